@@ -1,0 +1,11 @@
+// Catalog files from data/, compiled into the library so the native CLI and
+// the WASM module read the same records without a file system.
+#pragma once
+#include <string_view>
+
+namespace fw::detail {
+
+/// Contents of data/<name> (e.g. "species.json"); empty when no such file was embedded.
+std::string_view embedded_file(std::string_view name) noexcept;
+
+}  // namespace fw::detail

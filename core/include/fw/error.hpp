@@ -1,0 +1,33 @@
+// One error shape for the whole core: where in the input (a JSON pointer) and what is wrong.
+#pragma once
+#include <stdexcept>
+#include <string>
+#include <vector>
+
+namespace fw {
+
+/// A problem found in an input: `path` is a JSON pointer into the request ("/options/2/price/amount").
+struct issue {
+    std::string path;
+    std::string message;
+};
+
+/// Thrown inside the core for invalid input; entry points catch it and return it as an `issue`.
+class input_error : public std::runtime_error {
+public:
+    input_error(std::string path, std::string message);
+    const std::string& path() const noexcept { return path_; }
+    const std::string& message() const noexcept { return message_; }
+
+private:
+    std::string path_;
+    std::string message_;
+};
+
+/// "path: message", or the message alone when the path is empty.
+std::string format_issue(const issue& item);
+
+/// Shortest decimal text of a number that reads well in a message (up to 6 significant digits).
+std::string format_number(double value);
+
+}  // namespace fw

@@ -1,0 +1,41 @@
+// Reading typed fields out of JSON requests with errors that name the field (used by the JSON
+// entry points; lower layers never see JSON requests).
+#pragma once
+#include <nlohmann/json.hpp>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "fw/error.hpp"
+
+namespace fw::json_fields {
+
+/// Parses request text; malformed JSON becomes an input_error naming line and column.
+nlohmann::json parse_request(const std::string& text);
+
+/// The value must be a JSON object (the whole request, or a nested one).
+void require_object(const nlohmann::json& value, const std::string& path);
+
+/// A finite number at obj[key], or nullopt when absent; throws when present but not a number.
+std::optional<double> optional_number(const nlohmann::json& obj, const std::string& key, const std::string& path);
+
+/// A string at obj[key], or nullopt when absent; throws when present but not a string.
+std::optional<std::string> optional_string(const nlohmann::json& obj, const std::string& key, const std::string& path);
+
+/// A boolean at obj[key], or nullopt when absent; throws when present but not a boolean.
+std::optional<bool> optional_bool(const nlohmann::json& obj, const std::string& key, const std::string& path);
+
+/// Parses a whole string as a finite decimal number ("0.95", "-3e2"); throws input_error otherwise.
+double parse_number_text(const std::string& text, const std::string& path, const std::string& what);
+
+/// Warnings for keys of obj not in `known` ("/x: unknown field, ignored").
+void warn_unknown_keys(const nlohmann::json& obj, const std::vector<std::string>& known, const std::string& path,
+                       std::vector<issue>& warnings);
+
+/// JSON array of {path, message}.
+nlohmann::json issues_json(const std::vector<issue>& items);
+
+/// {"errors": [{path, message}], "warnings": []} as text.
+std::string error_response(const std::vector<issue>& errors);
+
+}  // namespace fw::json_fields

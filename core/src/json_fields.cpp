@@ -1,0 +1,80 @@
+#include "fw/json_fields.hpp"
+
+#include <cerrno>
+#include <cmath>
+#include <cstdlib>
+
+namespace fw::json_fields {
+
+nlohmann::json parse_request(const std::string& text) {
+    try {
+        return nlohmann::json::parse(text);
+    } catch (const nlohmann::json::parse_error& error) {
+        std::string what = error.what();
+        const auto bracket = what.find("] ");
+        if (bracket != std::string::npos) what = what.substr(bracket + 2);
+        throw input_error("", "malformed JSON: " + what);
+    }
+}
+
+void require_object(const nlohmann::json& value, const std::string& path) {
+    if (!value.is_object()) throw input_error(path, "must be a JSON object, got " + std::string(value.type_name()));
+}
+
+std::optional<double> optional_number(const nlohmann::json& obj, const std::string& key, const std::string& path) {
+    if (!obj.contains(key)) return std::nullopt;
+    const auto& value = obj.at(key);
+    if (!value.is_number()) throw input_error(path + "/" + key, "must be a number, got " + std::string(value.type_name()));
+    const double number = value.get<double>();
+    if (!std::isfinite(number)) throw input_error(path + "/" + key, "must be a finite number");
+    return number;
+}
+
+std::optional<std::string> optional_string(const nlohmann::json& obj, const std::string& key,
+                                           const std::string& path) {
+    if (!obj.contains(key)) return std::nullopt;
+    const auto& value = obj.at(key);
+    if (!value.is_string()) throw input_error(path + "/" + key, "must be a string, got " + std::string(value.type_name()));
+    return value.get<std::string>();
+}
+
+std::optional<bool> optional_bool(const nlohmann::json& obj, const std::string& key, const std::string& path) {
+    if (!obj.contains(key)) return std::nullopt;
+    const auto& value = obj.at(key);
+    if (!value.is_boolean())
+        throw input_error(path + "/" + key, "must be true or false, got " + std::string(value.type_name()));
+    return value.get<bool>();
+}
+
+double parse_number_text(const std::string& text, const std::string& path, const std::string& what) {
+    const char* begin = text.c_str();
+    char* end = nullptr;
+    errno = 0;
+    const double value = std::strtod(begin, &end);
+    const bool whole = end != begin && *end == '\0';
+    const bool plain = text.find_first_of("xXnNiI") == std::string::npos;  // no hex, nan or inf spellings
+    if (!whole || !plain || errno == ERANGE || !std::isfinite(value))
+        throw input_error(path, what + " must be a finite decimal number, got \"" + text + "\"");
+    return value;
+}
+
+void warn_unknown_keys(const nlohmann::json& obj, const std::vector<std::string>& known, const std::string& path,
+                       std::vector<issue>& warnings) {
+    for (const auto& item : obj.items()) {
+        bool found = false;
+        for (const auto& key : known) found = found || key == item.key();
+        if (!found) warnings.push_back({path + "/" + item.key(), "unknown field, ignored"});
+    }
+}
+
+nlohmann::json issues_json(const std::vector<issue>& items) {
+    auto list = nlohmann::json::array();
+    for (const auto& item : items) list.push_back({{"path", item.path}, {"message", item.message}});
+    return list;
+}
+
+std::string error_response(const std::vector<issue>& errors) {
+    return nlohmann::json{{"errors", issues_json(errors)}, {"warnings", nlohmann::json::array()}}.dump();
+}
+
+}  // namespace fw::json_fields

@@ -1,0 +1,121 @@
+// fuelwright: the command-line face of the core. Every command builds a JSON request, calls the
+// same entry point the WASM module calls, prints the JSON result on stdout, and exits 2 with one
+// line per error on stderr when the result carries errors.
+#include <cstdio>
+#include <iostream>
+#include <iterator>
+#include <map>
+#include <nlohmann/json.hpp>
+#include <string>
+#include <vector>
+
+#include "fw/api.hpp"
+
+namespace {
+
+using nlohmann::json;
+
+constexpr const char* usage_text = R"(usage: fuelwright COMMAND [ARGS]
+
+commands:
+  heating-value --formula F [--phase gas|liquid|solid] [--dhf KJ_PER_MOL | --hhv KJ_PER_MOL] [--reference 15C|0C|60F]
+  heating-value --mixture "CH4:0.95,C2H6:0.03,N2:0.02" [--fractions mole|mass] [--normalise] [--reference R]
+  heating-value --ultimate "C:50.2,H:6.1,O:43.2,N:0.1,S:0,ash:0.4" [--moisture PCT] [--basis dry|as-received|daf]
+                [--hhv-dry MJ_PER_KG]
+  convert VALUE FROM TO        e.g. convert 1 therm kWh
+  units                        list the accepted unit spellings
+  help                         this text
+Results are JSON on stdout. Bad input: exit 2, errors on stderr and as {"errors": [...]} on stdout.
+)";
+
+/// Prints the result and returns the exit code: 0 without errors, 2 with.
+int finish(const std::string& result_text) {
+    std::cout << result_text << "\n";
+    const auto result = json::parse(result_text);
+    if (!result.contains("errors") || result["errors"].empty()) return 0;
+    for (const auto& error : result["errors"]) {
+        const auto path = error.value("path", "");
+        std::cerr << "fuelwright: " << (path.empty() ? "" : path + ": ") << error.value("message", "") << "\n";
+    }
+    return 2;
+}
+
+int usage_error(const std::string& path, const std::string& message) {
+    json out = {{"errors", json::array({{{"path", path}, {"message", message}}})}, {"warnings", json::array()}};
+    return finish(out.dump());
+}
+
+struct flag_spec {
+    const char* name;
+    const char* key;   ///< request key
+    bool takes_value;
+    bool numeric;
+};
+
+int heating_value_command(const std::vector<std::string>& args) {
+    static const flag_spec flags[] = {
+        {"--formula", "formula", true, false},     {"--phase", "phase", true, false},
+        {"--dhf", "dhf_kj_per_mol", true, true},    {"--hhv", "hhv_kj_per_mol", true, true},
+        {"--reference", "reference", true, false}, {"--mixture", "mixture", true, false},
+        {"--fractions", "fractions", true, false}, {"--normalise", "normalise", false, false},
+        {"--ultimate", "ultimate", true, false},   {"--moisture", "moisture", true, true},
+        {"--basis", "basis", true, false},         {"--hhv-dry", "hhv_dry_mj_per_kg", true, true},
+    };
+    json request = json::object();
+    for (std::size_t i = 0; i < args.size(); ++i) {
+        const flag_spec* spec = nullptr;
+        for (const auto& flag : flags)
+            if (args[i] == flag.name) spec = &flag;
+        if (!spec) {
+            std::string known;
+            for (const auto& flag : flags) known += (known.empty() ? "" : ", ") + std::string(flag.name);
+            return usage_error(args[i], "unknown option for heating-value; accepted: " + known);
+        }
+        if (!spec->takes_value) {
+            request[spec->key] = true;
+            continue;
+        }
+        if (i + 1 >= args.size()) return usage_error(args[i], "needs a value");
+        const std::string& value = args[++i];
+        if (spec->numeric) {
+            // The core validates numbers; hand it the text as a JSON number when it is one.
+            char* end = nullptr;
+            const double number = std::strtod(value.c_str(), &end);
+            const bool plain = value.find_first_of("xXnNiI") == std::string::npos;
+            if (end == value.c_str() || *end != '\0' || !plain || number != number)
+                return usage_error(spec->name, std::string(spec->name) + " must be a finite decimal number, got \"" +
+                                                   value + "\"");
+            request[spec->key] = number;
+        } else {
+            request[spec->key] = value;
+        }
+    }
+    return finish(fw::heating_value_json(request.dump()));
+}
+
+int convert_command(const std::vector<std::string>& args) {
+    if (args.size() != 3) return usage_error("", "convert takes VALUE FROM TO, e.g. fuelwright convert 1 therm kWh");
+    char* end = nullptr;
+    const double number = std::strtod(args[0].c_str(), &end);
+    const bool plain = args[0].find_first_of("xXnNiI") == std::string::npos;
+    if (end == args[0].c_str() || *end != '\0' || !plain || number != number)
+        return usage_error("/value", "VALUE must be a finite decimal number, got \"" + args[0] + "\"");
+    return finish(fw::convert_json(json{{"value", number}, {"from", args[1]}, {"to", args[2]}}.dump()));
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+    std::vector<std::string> args(argv + 1, argv + argc);
+    if (args.empty() || args[0] == "help" || args[0] == "--help" || args[0] == "-h") {
+        std::cout << usage_text;
+        return args.empty() ? 2 : 0;
+    }
+    const std::string command = args[0];
+    const std::vector<std::string> rest(args.begin() + 1, args.end());
+    if (command == "heating-value") return heating_value_command(rest);
+    if (command == "convert") return convert_command(rest);
+    if (command == "units") return finish(fw::units_json());
+    std::cerr << usage_text;
+    return usage_error(command, "unknown command \"" + command + "\"; commands: heating-value, convert, units, help");
+}
