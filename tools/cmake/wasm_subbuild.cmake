@@ -1,0 +1,47 @@
+# From a native build: build the WebAssembly module as a sub-build of this
+# same source tree (build/wasm, Emscripten toolchain), assemble the site, and
+# register the Node and browser tests.
+
+include(ExternalProject)
+
+set(FW_EMSCRIPTEN_TOOLCHAIN "/usr/share/emscripten/cmake/Modules/Platform/Emscripten.cmake"
+  CACHE FILEPATH "Emscripten's CMake toolchain file")
+set(FW_WASM_BINARY_DIR "${CMAKE_SOURCE_DIR}/build/wasm" CACHE PATH "Binary folder of the WASM sub-build")
+find_program(FW_NODE node REQUIRED)
+
+ExternalProject_Add(wasm
+  SOURCE_DIR "${CMAKE_SOURCE_DIR}"
+  BINARY_DIR "${FW_WASM_BINARY_DIR}"
+  PREFIX "${CMAKE_BINARY_DIR}/wasm-subbuild"
+  CMAKE_ARGS
+    "-DCMAKE_TOOLCHAIN_FILE=${FW_EMSCRIPTEN_TOOLCHAIN}"
+    # emcmake's default emulator passes a flag Node 20 rejects.
+    "-DCMAKE_CROSSCOMPILING_EMULATOR=${FW_NODE}"
+    -DCMAKE_BUILD_TYPE=MinSizeRel
+    "-DFW_WARNINGS_AS_ERRORS=${FW_WARNINGS_AS_ERRORS}"
+    -DFW_WASM_SUBBUILD=ON
+  BUILD_ALWAYS ON
+  INSTALL_COMMAND ""
+  TEST_COMMAND "")
+
+include(site)
+fw_add_site_target("${FW_WASM_BINARY_DIR}" wasm)
+
+# The WASM module in Node, compared with the native CLI on the same inputs.
+add_test(NAME node_wasm
+  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/node/"
+  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+set_tests_properties(node_wasm PROPERTIES
+  ENVIRONMENT "FUELWRIGHT_SITE=${FW_SITE_DIR};FUELWRIGHT_CLI=$<TARGET_FILE:fuelwright>"
+  LABELS wasm
+  TIMEOUT 120)
+
+# The page in headless Chromium (playwright-core from node_modules).
+set(FW_CHROMIUM "/usr/bin/chromium" CACHE FILEPATH "Chromium used by the browser tests")
+add_test(NAME browser
+  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/"
+  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+set_tests_properties(browser PROPERTIES
+  ENVIRONMENT "FUELWRIGHT_SITE=${FW_SITE_DIR};FUELWRIGHT_CLI=$<TARGET_FILE:fuelwright>;FUELWRIGHT_CHROMIUM=${FW_CHROMIUM}"
+  LABELS browser
+  TIMEOUT 180)
