@@ -76,9 +76,10 @@ describe('errors come back as data', () => {
     }
   });
 
-  test('the CLI exits 2 on the same input', async () => {
-    const { code } = await cli('heating-value', '--formula', 'Xq2');
+  test('the CLI exits 2 and prints the same errors', async () => {
+    const { code, json } = await cliJson('heating-value', '--formula', 'Xq2');
     assert.equal(code, 2);
+    assert.deepEqual(call('heatingValue', { formula: 'Xq2' }), json);
   });
 
   test('an unknown unit gives errors[]', () => {
@@ -93,13 +94,16 @@ describe('errors come back as data', () => {
 });
 
 describe('units', () => {
-  test('lists every accepted unit spelling', () => {
+  test('lists every accepted unit spelling, as the CLI does', async () => {
     const units = JSON.parse(core.units());
-    const all = Object.values(units).flat();
+    const names = Object.values(units).flat().map((unit) => (typeof unit === 'string' ? unit : unit.name));
     for (const unit of ['J', 'kJ', 'MJ', 'GJ', 'kWh', 'Btu', 'MMBtu', 'therm', 'kcal', 'cal', 'kcal_th', 'cal_th',
       'm3', 'L', 'gal', 'imp_gal', 'ft3', 'ccf', 'Mcf', 'cord', 'kg', 'g', 'lb', 'short_ton', 'tonne',
       'W', 'kW', 'Btu/h', 'degC', 'degF', 'K']) {
-      assert.ok(all.includes(unit), `${unit} in ${JSON.stringify(units)}`);
+      assert.ok(names.includes(unit), `${unit} in ${names.join(' ')}`);
     }
+    const { code, json } = await cliJson('units');
+    assert.equal(code, 0);
+    assert.deepEqual(units, json);
   });
 });
