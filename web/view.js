@@ -54,7 +54,10 @@ export function showHeatingValue(container, result) {
   ]);
   const parts = [table];
   if (result.equation) parts.push(element('p', { className: 'equation', 'data-key': 'equation', text: describe(result.equation) }));
-  if (result.reference !== undefined) parts.push(element('p', { className: 'meta', text: `Reference: ${describe(result.reference)}` }));
+  if (result.reference !== undefined) {
+    const reference = result.reference?.description ?? describe(result.reference);
+    parts.push(element('p', { className: 'meta', 'data-key': 'reference', text: `Volumes at ${reference}` }));
+  }
   const warnings = Array.isArray(result.warnings) ? result.warnings : [];
   if (warnings.length) {
     parts.push(element('ul', { className: 'warnings' }, warnings.map((w) => element('li', { text: describe(w.message ?? w) }))));
