@@ -41,11 +41,11 @@ public:
     formula_parser(std::string_view text, const std::string& path) : text_(text), path_(path) {}
 
     composition parse() {
-        if (text_.empty()) fail("is empty; give a formula such as CH4 or C2H5OH", 0);
+        if (text_.empty()) throw input_error(path_, "formula is empty; give a formula such as CH4 or C2H5OH");
         auto atoms = parse_group(0);
         if (pos_ < text_.size()) {
-            if (text_[pos_] == ')') fail("has an unmatched ')'", pos_);
-            fail("has an unexpected character '" + std::string(1, text_[pos_]) + "'", pos_);
+            if (text_[pos_] == ')') fail("unmatched ')'", pos_);
+            fail("unexpected character '" + std::string(1, text_[pos_]) + "'", pos_);
         }
         return atoms;
     }
@@ -58,10 +58,10 @@ private:
             const char c = text_[pos_];
             if (c == '(') {
                 const std::size_t open = pos_++;
-                if (depth > 8) fail("nests parentheses too deeply", open);
+                if (depth > 8) fail("parentheses nested too deeply", open);
                 auto inner = parse_group(depth + 1);
-                if (pos_ >= text_.size() || text_[pos_] != ')') fail("has an unmatched '('", open);
-                if (inner.empty()) fail("has empty parentheses", open);
+                if (pos_ >= text_.size() || text_[pos_] != ')') fail("unmatched '('", open);
+                if (inner.empty()) fail("empty parentheses", open);
                 ++pos_;
                 add_scaled(atoms, inner, parse_count());
             } else if (std::isupper(static_cast<unsigned char>(c))) {
@@ -69,20 +69,19 @@ private:
                 while (pos_ < text_.size() && std::islower(static_cast<unsigned char>(text_[pos_]))) ++pos_;
                 const std::string symbol(text_.substr(start, pos_ - start));
                 if (!elements().weights.count(symbol))
-                    fail("has unknown element " + quote_text(symbol) + "; known elements are " + known_elements(), start);
+                    fail("unknown element " + quote_text(symbol), start, "known elements are " + known_elements());
                 atoms[symbol] += parse_count();
             } else if (std::islower(static_cast<unsigned char>(c))) {
-                fail("has an element symbol that starts in lower case ('" + std::string(1, c) +
-                         "'); symbols start with a capital letter, as in Cl or He",
-                     pos_);
+                fail("lower-case letter '" + std::string(1, c) + "'", pos_,
+                     "element symbols start with a capital letter, as in C, Cl or He");
             } else if (std::isdigit(static_cast<unsigned char>(c))) {
-                fail("has a count with no element before it", pos_);
+                fail("count with no element before it", pos_);
             } else {
-                fail("has an unexpected character '" + std::string(1, c) + "'", pos_);
+                fail("unexpected character '" + std::string(1, c) + "'", pos_);
             }
             any = true;
         }
-        if (!any && depth == 0) fail("has no elements", pos_);
+        if (!any && depth == 0) fail("no elements", pos_);
         return atoms;
     }
 
@@ -92,16 +91,16 @@ private:
         long value = 0;
         while (pos_ < text_.size() && std::isdigit(static_cast<unsigned char>(text_[pos_]))) {
             value = value * 10 + (text_[pos_] - '0');
-            if (value > 100000) fail("has a count larger than 100000", start);
+            if (value > 100000) fail("count larger than 100000", start);
             ++pos_;
         }
-        if (value == 0) fail("has a count of zero", start);
+        if (value == 0) fail("count of zero", start);
         return static_cast<double>(value);
     }
 
-    [[noreturn]] void fail(const std::string& what, std::size_t position) const {
-        throw input_error(path_, "formula " + quote_text(text_) + " " + what + " (at character " +
-                                     std::to_string(position + 1) + ")");
+    [[noreturn]] void fail(const std::string& what, std::size_t position, const std::string& hint = "") const {
+        throw input_error(path_, "formula " + quote_text(text_) + ": " + what + " at character " +
+                                     std::to_string(position + 1) + (hint.empty() ? "" : "; " + hint));
     }
 
     std::string_view text_;
