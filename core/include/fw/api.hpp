@@ -15,7 +15,14 @@ std::string heating_value_json(const std::string& request_json) noexcept;
 /// Unit conversion. Request: {"value": 1, "from": "therm", "to": "kWh"} -> {"value": 29.3…, "unit": "kWh"}
 std::string convert_json(const std::string& request_json) noexcept;
 
-/// The list of accepted unit spellings by dimension: {"energy": [...], ...}
+/// The list of accepted unit spellings by dimension: {"energy": [{name, definition}], ...}
 std::string units_json() noexcept;
+
+/// Evaluates a scenario (data/schema/scenario.schema.json): per option the fuel used in its sale
+/// unit, annual cost, cost of useful heat, emissions and a trace; a ranking; errors[] and warnings[].
+std::string evaluate_json(const std::string& scenario_json) noexcept;
+
+/// The fuel and system catalogs with heating values per sale unit, GWP sets and defaults.
+std::string catalog_json() noexcept;
 
 }  // namespace fw
