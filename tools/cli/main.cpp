@@ -2,6 +2,8 @@
 // same entry point the WASM module calls, prints the JSON result on stdout, and exits 2 with one
 // line per error on stderr when the result carries errors.
 #include <cstdio>
+#include <fstream>
+#include <optional>
 #include <iostream>
 #include <iterator>
 #include <map>
@@ -22,6 +24,8 @@ commands:
   heating-value --mixture "CH4:0.95,C2H6:0.03,N2:0.02" [--fractions mole|mass] [--normalise] [--reference R]
   heating-value --ultimate "C:50.2,H:6.1,O:43.2,N:0.1,S:0,ash:0.4" [--moisture PCT] [--basis dry|as-received|daf]
                 [--hhv-dry MJ_PER_KG]
+  evaluate FILE                evaluate a scenario (FILE or - for standard input)
+  catalog                      fuels with heating values per sale unit, systems, GWP sets
   convert VALUE FROM TO        e.g. convert 1 therm kWh
   units                        list the accepted unit spellings
   help                         this text
@@ -103,6 +107,21 @@ int convert_command(const std::vector<std::string>& args) {
     return finish(fw::convert_json(json{{"value", number}, {"from", args[1]}, {"to", args[2]}}.dump()));
 }
 
+/// Reads FILE, or standard input for "-"; nullopt when the file cannot be read.
+std::optional<std::string> read_input(const std::string& name) {
+    if (name == "-") return std::string(std::istreambuf_iterator<char>(std::cin), std::istreambuf_iterator<char>());
+    std::ifstream file(name, std::ios::binary);
+    if (!file) return std::nullopt;
+    return std::string(std::istreambuf_iterator<char>(file), std::istreambuf_iterator<char>());
+}
+
+int evaluate_command(const std::vector<std::string>& args) {
+    if (args.size() != 1) return usage_error("", "evaluate takes one FILE (or - for standard input)");
+    const auto text = read_input(args[0]);
+    if (!text) return usage_error(args[0], "cannot read file \"" + args[0] + "\"");
+    return finish(fw::evaluate_json(*text));
+}
+
 }  // namespace
 
 int main(int argc, char** argv) {
@@ -116,6 +135,8 @@ int main(int argc, char** argv) {
     if (command == "heating-value") return heating_value_command(rest);
     if (command == "convert") return convert_command(rest);
     if (command == "units") return finish(fw::units_json());
+    if (command == "evaluate") return evaluate_command(rest);
+    if (command == "catalog") return finish(fw::catalog_json());
     std::cerr << usage_text;
-    return usage_error(command, "unknown command \"" + command + "\"; commands: heating-value, convert, units, help");
+    return usage_error(command, "unknown command \"" + command + "\"; commands: heating-value, evaluate, catalog, convert, units, help");
 }

@@ -1,0 +1,502 @@
+#include "fw/scenario.hpp"
+
+#include <cmath>
+#include <cstdio>
+#include <algorithm>
+#include <cctype>
+#include <map>
+
+#include "fw/json_fields.hpp"
+#include "fw/units.hpp"
+
+namespace fw {
+
+using nlohmann::json;
+using namespace json_fields;
+
+namespace {
+
+/// Letters, digits, '.', '_' and '-', starting with a letter or digit, 1 to 64 characters.
+bool is_option_id(const std::string& id) {
+    if (id.empty() || id.size() > 64 || !std::isalnum(static_cast<unsigned char>(id[0]))) return false;
+    return std::all_of(id.begin(), id.end(), [](char c) {
+        return std::isalnum(static_cast<unsigned char>(c)) || c == '.' || c == '_' || c == '-';
+    });
+}
+
+/// Three capital letters, as ISO 4217 codes are.
+bool is_currency_code(const std::string& code) {
+    return code.size() == 3 && std::all_of(code.begin(), code.end(), [](char c) { return c >= 'A' && c <= 'Z'; });
+}
+
+std::string fixed(double value, int decimals) {
+    char buffer[64];
+    std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
+    return buffer;
+}
+
+/// Reads "Btu/therm" style text: energy unit / sale unit.
+std::pair<std::string, std::string> energy_per_unit(const std::string& text, const std::string& path) {
+    const auto slash = text.find('/');
+    if (slash == std::string::npos || slash == 0 || slash + 1 == text.size())
+        throw input_error(path, "unit \"" + text + "\" must be energy per sale unit, e.g. Btu/therm, Btu/gal or MJ/m3");
+    const auto energy = text.substr(0, slash);
+    if (find_unit(energy, path).kind != dimension::energy)
+        throw input_error(path, "\"" + energy + "\" in \"" + text + "\" is not an energy unit; accepted: " +
+                                    accepted_units(dimension::energy));
+    return {energy, text.substr(slash + 1)};
+}
+
+double required_number(const json& obj, const std::string& key, const std::string& path) {
+    const auto value = optional_number(obj, key, path);
+    if (!value) throw input_error(path + "/" + key, "is required (a number)");
+    return *value;
+}
+
+std::string required_string(const json& obj, const std::string& key, const std::string& path) {
+    const auto value = optional_string(obj, key, path);
+    if (!value || value->empty()) throw input_error(path + "/" + key, "is required (a non-empty string)");
+    return *value;
+}
+
+/// Parses "a:1,b:2" into name/number pairs.
+std::vector<std::pair<std::string, double>> parse_pairs(const std::string& text, const std::string& path,
+                                                        const std::string& form) {
+    std::vector<std::pair<std::string, double>> out;
+    std::size_t start = 0, index = 0;
+    while (start <= text.size()) {
+        auto comma = text.find(',', start);
+        if (comma == std::string::npos) comma = text.size();
+        const auto item = text.substr(start, comma - start);
+        const auto colon = item.find(':');
+        const std::string item_path = path + "/" + std::to_string(index);
+        if (colon == std::string::npos || colon == 0 || colon + 1 == item.size())
+            throw input_error(item_path, "\"" + item + "\" is not of the form " + form);
+        out.push_back({item.substr(0, colon), parse_number_text(item.substr(colon + 1), item_path, item.substr(0, colon))});
+        start = comma + 1;
+        ++index;
+    }
+    return out;
+}
+
+fuel_record read_custom_fuel(const json& fuel, const std::string& path, std::vector<issue>& warnings) {
+    require_object(fuel, path);
+    custom_fuel_request request;
+    request.id = required_string(fuel, "id", path);
+    request.name = optional_string(fuel, "name", path).value_or(request.id);
+    request.sale_unit = required_string(fuel, "sale_unit", path);
+    request.density_kg_per_l = optional_number(fuel, "density_kg_per_l", path);
+    request.biogenic = optional_bool(fuel, "biogenic", path).value_or(false);
+    request.ch4_kg_per_mmbtu = optional_number(fuel, "ch4_kg_per_mmbtu", path);
+    request.n2o_kg_per_mmbtu = optional_number(fuel, "n2o_kg_per_mmbtu", path);
+    for (const char* key : {"ch4_kg_per_mmbtu", "n2o_kg_per_mmbtu"})
+        if (const auto value = optional_number(fuel, key, path); value && *value < 0)
+            throw input_error(path + "/" + key, "must be >= 0, got " + format_number(*value));
+    const auto reference = optional_string(fuel, "reference", path).value_or("15C");
+    find_reference(reference, path + "/reference");
+    const int kinds = int(fuel.contains("formula")) + int(fuel.contains("mixture")) + int(fuel.contains("ultimate"));
+    if (kinds != 1)
+        throw input_error(path, "a custom fuel needs exactly one of \"formula\", \"mixture\" or \"ultimate\"");
+    if (fuel.contains("formula")) {
+        compound_request compound;
+        compound.formula = required_string(fuel, "formula", path);
+        if (const auto state = optional_string(fuel, "phase", path)) compound.state = parse_phase(*state, path + "/phase");
+        compound.dhf_kj_per_mol = optional_number(fuel, "dhf_kj_per_mol", path);
+        compound.hhv_kj_per_mol = optional_number(fuel, "hhv_kj_per_mol", path);
+        compound.reference = reference;
+        request.compound = compound;
+    } else if (fuel.contains("mixture")) {
+        mixture_request mixture;
+        for (const auto& [name, fraction] :
+             parse_pairs(required_string(fuel, "mixture", path), path + "/mixture", "species:fraction (e.g. CH4:0.95)"))
+            mixture.components.push_back({name, fraction});
+        const auto basis = optional_string(fuel, "fractions", path).value_or("mole");
+        if (basis != "mole" && basis != "mass")
+            throw input_error(path + "/fractions", "unknown fraction basis \"" + basis + "\"; accepted: mole, mass");
+        mixture.basis = basis == "mole" ? fraction_basis::mole : fraction_basis::mass;
+        mixture.normalise = optional_bool(fuel, "normalise", path).value_or(false);
+        mixture.reference = reference;
+        request.mixture = mixture;
+    } else {
+        ultimate_request ultimate;
+        for (const auto& [key, value] :
+             parse_pairs(required_string(fuel, "ultimate", path), path + "/ultimate", "element:wt% (e.g. C:50.2)")) {
+            double* target = key == "C" ? &ultimate.carbon_pct : key == "H" ? &ultimate.hydrogen_pct
+                           : key == "O" ? &ultimate.oxygen_pct : key == "N" ? &ultimate.nitrogen_pct
+                           : key == "S" ? &ultimate.sulfur_pct : key == "ash" ? &ultimate.ash_pct : nullptr;
+            if (!target) throw input_error(path + "/ultimate", "unknown item \"" + key + "\"; accepted: C, H, O, N, S, ash");
+            *target = value;
+        }
+        ultimate.moisture_pct = optional_number(fuel, "moisture", path).value_or(0.0);
+        const auto basis = optional_string(fuel, "basis", path).value_or("dry");
+        if (basis == "dry") ultimate.basis = analysis_basis::dry;
+        else if (basis == "as-received") ultimate.basis = analysis_basis::as_received;
+        else if (basis == "daf") ultimate.basis = analysis_basis::daf;
+        else throw input_error(path + "/basis", "unknown basis \"" + basis + "\"; accepted: dry, as-received, daf");
+        request.ultimate = ultimate;
+    }
+    auto record = make_custom_fuel(request, path);
+    if (!request.ch4_kg_per_mmbtu || !request.n2o_kg_per_mmbtu)
+        warnings.push_back({path, "no CH4 or N2O emission factor given for custom fuel " + request.id +
+                                      "; counted as zero (CO2 is computed from its carbon)"});
+    return record;
+}
+
+scenario_option read_option(const json& item, const std::string& path, std::vector<issue>& warnings) {
+    require_object(item, path);
+    scenario_option option;
+    option.path = path;
+    option.id = required_string(item, "id", path);
+    if (!is_option_id(option.id))
+        throw input_error(path + "/id", "option id \"" + option.id +
+                                            "\" must start with a letter or digit and use only letters, digits, . _ - "
+                                            "(at most 64 characters)");
+    option.label = optional_string(item, "label", path).value_or(option.id);
+    if (!item.contains("fuel")) throw input_error(path + "/fuel", "is required (a fuel id or a custom fuel object)");
+    const auto& fuel = item.at("fuel");
+    if (fuel.is_string()) option.fuel = find_fuel(fuel.get<std::string>(), path + "/fuel");
+    else if (fuel.is_object()) option.fuel = read_custom_fuel(fuel, path + "/fuel", warnings);
+    else throw input_error(path + "/fuel", "must be a fuel id or a custom fuel object");
+
+    if (!item.contains("price")) throw input_error(path + "/price", "is required ({\"amount\": ..., \"per\": unit})");
+    const auto& price = item.at("price");
+    require_object(price, path + "/price");
+    option.price_per_unit = required_number(price, "amount", path + "/price");
+    if (option.price_per_unit < 0)
+        throw input_error(path + "/price/amount", "must be >= 0, got " + format_number(option.price_per_unit));
+    option.price_unit = required_string(price, "per", path + "/price");
+
+    if (const auto bag = item.find("bag_mass"); bag != item.end()) {
+        require_object(*bag, path + "/bag_mass");
+        const double value = required_number(*bag, "value", path + "/bag_mass");
+        const auto unit = required_string(*bag, "unit", path + "/bag_mass");
+        if (find_unit(unit, path + "/bag_mass/unit").kind != dimension::mass)
+            throw input_error(path + "/bag_mass/unit", "must be a mass unit: " + accepted_units(dimension::mass));
+        if (value <= 0) throw input_error(path + "/bag_mass/value", "must be > 0, got " + format_number(value));
+        option.sale.bag_mass_kg = convert(value, unit, "kg");
+    }
+    if (const auto fraction = optional_number(item, "face_cord_fraction", path)) {
+        if (!(*fraction > 0 && *fraction <= 1))
+            throw input_error(path + "/face_cord_fraction", "must be a fraction of a cord in (0, 1], got " + format_number(*fraction));
+        option.sale.face_cord_fraction = fraction;
+    }
+    option.sale.wood_species = optional_string(item, "wood_species", path);
+    option.moisture_pct = optional_number(item, "moisture_pct", path);
+    if (option.moisture_pct && !(*option.moisture_pct >= 0 && *option.moisture_pct < 100))
+        throw input_error(path + "/moisture_pct", "must be from 0 to below 100 %, got " + format_number(*option.moisture_pct));
+    // Validates the priced unit now so the error points at the price.
+    heating_value_per_sale_unit(option.fuel, option.price_unit, option.sale, path + "/price/per");
+
+    if (const auto charges = item.find("fixed_charges"); charges != item.end()) {
+        if (!charges->is_array()) throw input_error(path + "/fixed_charges", "must be an array");
+        for (std::size_t i = 0; i < charges->size(); ++i) {
+            const std::string charge_path = path + "/fixed_charges/" + std::to_string(i);
+            const auto& charge = (*charges)[i];
+            require_object(charge, charge_path);
+            fixed_charge entry;
+            entry.label = optional_string(charge, "label", charge_path).value_or("fixed charge");
+            const auto monthly = optional_number(charge, "amount_per_month", charge_path);
+            const auto yearly = optional_number(charge, "amount_per_year", charge_path);
+            if (bool(monthly) == bool(yearly))
+                throw input_error(charge_path, "give either amount_per_month or amount_per_year");
+            const double amount = monthly ? *monthly : *yearly;
+            if (amount < 0)
+                throw input_error(charge_path + (monthly ? "/amount_per_month" : "/amount_per_year"),
+                                  "must be >= 0, got " + format_number(amount));
+            entry.amount_per_year = monthly ? *monthly * 12 : *yearly;
+            entry.text = monthly ? fixed(*monthly, 2) + " per month x 12" : fixed(*yearly, 2) + " per year";
+            option.fixed_charges.push_back(entry);
+        }
+    }
+
+    if (!item.contains("system")) throw input_error(path + "/system", "is required");
+    const auto& system = item.at("system");
+    const std::string system_path = path + "/system";
+    require_object(system, system_path);
+    const auto catalog = optional_string(system, "catalog", system_path);
+    const system_record* record = catalog ? &find_system(*catalog, system_path + "/catalog") : nullptr;
+    if (record) option.system_catalog = record->id;
+    const auto kind_text = optional_string(system, "kind", system_path);
+    if (!kind_text && !record) throw input_error(system_path + "/kind", "is required (or give a catalog system)");
+    option.system.kind = kind_text ? parse_kind(*kind_text, system_path + "/kind") : record->kind;
+    if (record && record->kind != option.system.kind)
+        throw input_error(system_path + "/kind", "catalog system " + record->id + " is a " +
+                                                     std::string(kind_name(record->kind)) + ", not a " + *kind_text);
+    if (const auto efficiency = system.find("efficiency"); efficiency != system.end()) {
+        require_object(*efficiency, system_path + "/efficiency");
+        option.system.efficiency_value = required_number(*efficiency, "value", system_path + "/efficiency");
+        option.system.rating =
+            parse_rating(required_string(*efficiency, "rating", system_path + "/efficiency"), system_path + "/efficiency/rating");
+    } else if (record) {
+        option.system.efficiency_value = record->typical.value;
+        option.system.rating = record->typical.rating;
+        warnings.push_back({system_path + "/efficiency", "no efficiency given; using the typical " +
+                                                             format_number(record->typical.value) + " " +
+                                                             std::string(rating_name(record->typical.rating)) + " of " +
+                                                             record->id + " — enter the nameplate rating"});
+    } else {
+        throw input_error(system_path + "/efficiency", "is required ({\"value\": ..., \"rating\": ...})");
+    }
+    option.system.distribution_loss = optional_number(system, "distribution_loss", system_path).value_or(0.0);
+    option.system.age_derating = optional_number(system, "age_derating", system_path).value_or(0.0);
+    if (record && !option.fuel.custom &&
+        std::find(record->fuels.begin(), record->fuels.end(), option.fuel.id) == record->fuels.end())
+        warnings.push_back({system_path + "/catalog", record->id + " is not usually fired with " + option.fuel.id});
+
+    if (const auto hv = item.find("heating_value"); hv != item.end()) {
+        const std::string hv_path = path + "/heating_value";
+        require_object(*hv, hv_path);
+        const double value = required_number(*hv, "value", hv_path);
+        if (value <= 0) throw input_error(hv_path + "/value", "must be > 0, got " + format_number(value));
+        const auto unit_text = required_string(*hv, "unit", hv_path);
+        const auto [energy_unit, sale_unit] = energy_per_unit(unit_text, hv_path + "/unit");
+        const auto basis = optional_string(*hv, "basis", hv_path).value_or("HHV");
+        if (basis != "HHV" && basis != "LHV")
+            throw input_error(hv_path + "/basis", "unknown basis \"" + basis + "\"; accepted: HHV, LHV");
+        const auto given_unit = heating_value_per_sale_unit(option.fuel, sale_unit, option.sale, hv_path + "/unit");
+        const auto priced_unit = heating_value_per_sale_unit(option.fuel, option.price_unit, option.sale, hv_path);
+        double j_per_given = convert(value, energy_unit, "J");
+        if (basis == "LHV") j_per_given /= option.fuel.lhv_over_hhv;
+        option.heating_value_override_j = j_per_given * priced_unit.hhv_j / given_unit.hhv_j;
+        option.heating_value_override_text = format_number(value) + " " + unit_text + " (" + basis + ", given)";
+        if (basis == "LHV")
+            option.heating_value_override_text += " / LHV/HHV " + format_number(option.fuel.lhv_over_hhv) + " = HHV";
+    }
+    warn_unknown_keys(item, {"id", "label", "fuel", "price", "fixed_charges", "system", "heating_value", "wood_species",
+                             "moisture_pct", "bag_mass", "face_cord_fraction", "existing", "installed_cost",
+                             "incentives", "annual_maintenance", "life_years"},
+                      path, warnings);
+    return option;
+}
+
+scenario_settings read_settings(const json& document, std::vector<issue>& warnings) {
+    scenario_settings settings;
+    settings.electricity_co2e_kg_per_kwh = default_electricity_emissions().co2e_kg_per_kwh;
+    settings.gwp = default_gwp_set();
+    if (!document.contains("settings")) return settings;
+    const auto& s = document.at("settings");
+    require_object(s, "/settings");
+    if (const auto units = optional_string(s, "units", "/settings")) {
+        if (*units == "us") settings.units = unit_system::us;
+        else if (*units == "metric") settings.units = unit_system::metric;
+        else throw input_error("/settings/units", "unknown unit system \"" + *units + "\"; accepted: us, metric");
+    }
+    if (const auto currency = optional_string(s, "currency", "/settings")) {
+        if (!is_currency_code(*currency))
+            throw input_error("/settings/currency", "must be an ISO 4217 code of three capital letters (USD, CAD, EUR), got \"" +
+                                                        *currency + "\"");
+        settings.currency = *currency;
+    }
+    if (const auto factor = optional_number(s, "electricity_co2e_kg_per_kwh", "/settings")) {
+        if (*factor < 0)
+            throw input_error("/settings/electricity_co2e_kg_per_kwh", "must be >= 0, got " + format_number(*factor));
+        if (*factor > 2) warnings.push_back({"/settings/electricity_co2e_kg_per_kwh",
+                                             "above 2 kg/kWh is more than any grid emits; check the value"});
+        settings.electricity_co2e_kg_per_kwh = *factor;
+        settings.electricity_factor_given = true;
+    }
+    if (const auto gwp = optional_string(s, "gwp", "/settings")) {
+        find_gwp_set(*gwp, "/settings/gwp");
+        settings.gwp = *gwp;
+    }
+    warn_unknown_keys(s, {"units", "currency", "electricity_co2e_kg_per_kwh", "gwp", "locale"}, "/settings", warnings);
+    return settings;
+}
+
+std::string energy_text(double kwh, unit_system units) {
+    if (units == unit_system::us) return fixed(convert(kwh, "kWh", "MMBtu"), 2) + " MMBtu";
+    return fixed(kwh, 0) + " kWh";
+}
+
+}  // namespace
+
+scenario read_scenario(const json& document, std::vector<issue>& errors, std::vector<issue>& warnings) {
+    scenario out;
+    auto attempt = [&](auto&& body) {
+        try {
+            body();
+        } catch (const input_error& error) {
+            errors.push_back({error.path(), error.message()});
+        }
+    };
+    attempt([&] {
+        require_object(document, "");
+        const auto schema = optional_string(document, "schema", "");
+        if (!schema) warnings.push_back({"/schema", "missing; read as fuelwright.scenario/1"});
+        else if (*schema != "fuelwright.scenario/1")
+            throw input_error("/schema", "unsupported schema \"" + *schema + "\"; this version reads fuelwright.scenario/1");
+        warn_unknown_keys(document, {"schema", "title", "description", "quote", "settings", "demand", "options", "climate",
+                                     "economics", "uncertainty"},
+                          "", warnings);
+    });
+    if (!errors.empty()) return out;
+    attempt([&] { out.settings = read_settings(document, warnings); });
+    attempt([&] {
+        if (!document.contains("demand")) throw input_error("/demand", "is required (how much useful heat the house needs)");
+        const auto& demand = document.at("demand");
+        require_object(demand, "/demand");
+        out.demand_method = optional_string(demand, "method", "/demand").value_or("direct");
+        if (out.demand_method != "direct")
+            throw input_error("/demand/method", "unknown demand method \"" + out.demand_method + "\"; accepted: direct");
+        if (!demand.contains("annual_useful_heat"))
+            throw input_error("/demand/annual_useful_heat", "is required ({\"value\": ..., \"unit\": \"MMBtu\"})");
+        const auto& heat = demand.at("annual_useful_heat");
+        require_object(heat, "/demand/annual_useful_heat");
+        const double value = required_number(heat, "value", "/demand/annual_useful_heat");
+        const auto unit = required_string(heat, "unit", "/demand/annual_useful_heat");
+        if (find_unit(unit, "/demand/annual_useful_heat/unit").kind != dimension::energy)
+            throw input_error("/demand/annual_useful_heat/unit", "must be an energy unit: " + accepted_units(dimension::energy));
+        if (value <= 0) throw input_error("/demand/annual_useful_heat/value", "must be > 0, got " + format_number(value));
+        out.annual_useful_heat_kwh = convert(value, unit, "kWh");
+        out.demand_trace.push_back("annual useful heat given directly: " + format_number(value) + " " + unit + " = " +
+                                   fixed(out.annual_useful_heat_kwh, 1) + " kWh");
+    });
+    attempt([&] {
+        if (!document.contains("options") || !document.at("options").is_array() || document.at("options").empty())
+            throw input_error("/options", "needs at least one option (a fuel, its price and a system)");
+        const auto& options = document.at("options");
+        if (options.size() > 30) throw input_error("/options", "at most 30 options, got " + std::to_string(options.size()));
+        std::map<std::string, std::string> seen;
+        for (std::size_t i = 0; i < options.size(); ++i) {
+            const std::string path = "/options/" + std::to_string(i);
+            attempt([&] {
+                auto option = read_option(options[i], path, warnings);
+                if (const auto found = seen.find(option.id); found != seen.end())
+                    throw input_error(path + "/id", "duplicate option id \"" + option.id + "\" (also at " + found->second + ")");
+                seen[option.id] = path;
+                out.options.push_back(std::move(option));
+            });
+        }
+    });
+    return out;
+}
+
+option_result evaluate_option(const scenario& input, const scenario_option& option) {
+    option_result r;
+    r.id = option.id;
+    r.label = option.label;
+    r.fuel_id = option.fuel.id;
+    r.fuel_name = option.fuel.name;
+    r.useful_heat_kwh = input.annual_useful_heat_kwh;
+    r.fuel_unit = option.price_unit;
+    r.price_per_unit = option.price_per_unit;
+    const auto units = input.settings.units;
+    const auto& currency = input.settings.currency;
+
+    fuel_record fuel = option.fuel;
+    std::optional<double> moisture_scale;
+    if (option.moisture_pct && fuel.moisture_pct) {
+        // Wetter wood: as-received HHV per kg falls as (1 - M); a cord keeps its dry wood, so its HHV stays.
+        if (fuel.basis_unit != "cord")
+            moisture_scale = (1 - *option.moisture_pct / 100) / (1 - *fuel.moisture_pct / 100);
+        if (*option.moisture_pct > 25)
+            r.warnings.push_back("wood above 20-25 % moisture burns poorly and smokes, and builds creosote in the "
+                                 "chimney (a chimney-fire risk): season it or buy dry wood");
+    }
+    const auto efficiency = seasonal_efficiency_hhv(option.system, fuel, option.path + "/system");
+    r.seasonal_efficiency_hhv = efficiency.hhv_basis;
+    for (const auto& w : efficiency.warnings) r.warnings.push_back(w);
+
+    auto hv = heating_value_per_sale_unit(fuel, option.price_unit, option.sale, option.path + "/price/per");
+    std::string hv_text = hv.derivation;
+    if (moisture_scale) {
+        hv.hhv_j *= *moisture_scale;
+        hv.lhv_j *= *moisture_scale;
+        hv_text += "; at " + format_number(*option.moisture_pct) + " % moisture instead of " +
+                   format_number(*fuel.moisture_pct) + " %: x " + fixed(*moisture_scale, 4) + " (wet basis)";
+    }
+    if (option.heating_value_override_j) {
+        hv.hhv_j = *option.heating_value_override_j;
+        hv.lhv_j = hv.hhv_j * fuel.lhv_over_hhv;
+        hv_text = option.heating_value_override_text + " replaces the catalog value";
+    }
+    r.hhv_kwh_per_unit = hv.hhv_j / 3.6e6;
+    r.lhv_kwh_per_unit = hv.lhv_j / 3.6e6;
+
+    r.fuel_energy_hhv_kwh = r.useful_heat_kwh / r.seasonal_efficiency_hhv;
+    r.fuel_quantity = r.fuel_energy_hhv_kwh / r.hhv_kwh_per_unit;
+    r.energy_cost = r.fuel_quantity * r.price_per_unit;
+    for (const auto& charge : option.fixed_charges) r.fixed_cost += charge.amount_per_year;
+    r.annual_cost = r.energy_cost + r.fixed_cost;
+    r.cost_per_useful_kwh = r.price_per_unit / (r.hhv_kwh_per_unit * r.seasonal_efficiency_hhv);
+
+    // Emissions.
+    const double fuel_mmbtu = convert(r.fuel_energy_hhv_kwh, "kWh", "MMBtu");
+    const auto& gwp = find_gwp_set(input.settings.gwp);
+    std::string emissions_line;
+    if (fuel.emissions.per_kwh_setting) {
+        r.co2_fossil_kg = r.fuel_energy_hhv_kwh * input.settings.electricity_co2e_kg_per_kwh;
+        r.co2e_kg = r.co2_fossil_kg;
+        emissions_line = fixed(r.fuel_energy_hhv_kwh, 0) + " kWh x " +
+                         format_number(input.settings.electricity_co2e_kg_per_kwh) + " kg CO2e/kWh (" +
+                         (input.settings.electricity_factor_given
+                              ? std::string("scenario setting")
+                              : "default: " + default_electricity_emissions().source + ", " +
+                                    std::to_string(default_electricity_emissions().year)) +
+                         ") = " + fixed(r.co2e_kg, 0) + " kg CO2e";
+    } else {
+        const double co2 = fuel_mmbtu * fuel.emissions.co2_kg_per_mmbtu;
+        (fuel.emissions.biogenic ? r.co2_biogenic_kg : r.co2_fossil_kg) = co2;
+        r.ch4_kg = fuel_mmbtu * fuel.emissions.ch4_kg_per_mmbtu;
+        r.n2o_kg = fuel_mmbtu * fuel.emissions.n2o_kg_per_mmbtu;
+        r.co2e_kg = r.co2_fossil_kg + r.ch4_kg * gwp.ch4 + r.n2o_kg * gwp.n2o;
+        emissions_line = fixed(fuel_mmbtu, 2) + " MMBtu x (" + format_number(fuel.emissions.co2_kg_per_mmbtu) +
+                         " kg CO2" + (fuel.emissions.biogenic ? " biogenic, not counted in CO2e" : "") + " + " +
+                         format_number(fuel.emissions.ch4_kg_per_mmbtu) + " kg CH4 x " + format_number(gwp.ch4) + " + " +
+                         format_number(fuel.emissions.n2o_kg_per_mmbtu) + " kg N2O x " + format_number(gwp.n2o) +
+                         ", GWP " + gwp.id + ") per MMBtu = " + fixed(r.co2e_kg, 0) + " kg CO2e";
+    }
+
+    // Trace, in the scenario's unit system.
+    r.trace.push_back("useful heat " + energy_text(r.useful_heat_kwh, units) + " (" + input.demand_method + " demand)");
+    for (const auto& line : efficiency.trace) r.trace.push_back(line);
+    const bool electric = fuel.category == fuel_category::electricity;
+    const std::string divisor = electric || is_heat_pump(option.system.kind) ? "COP " + fixed(r.seasonal_efficiency_hhv, 3)
+                                                                              : fixed(r.seasonal_efficiency_hhv, 4);
+    r.trace.push_back(energy_text(r.useful_heat_kwh, units) + " useful / " + divisor + " = " +
+                      energy_text(r.fuel_energy_hhv_kwh, units) + " " + fuel.name + (electric ? "" : " (HHV)"));
+    r.trace.push_back("heating value: " + hv_text);
+    const std::string per_unit = units == unit_system::us
+                                     ? format_number(convert(r.hhv_kwh_per_unit, "kWh", "MMBtu")) + " MMBtu/" + r.fuel_unit
+                                     : format_number(r.hhv_kwh_per_unit) + " kWh/" + r.fuel_unit;
+    r.trace.push_back(energy_text(r.fuel_energy_hhv_kwh, units) + " / " + per_unit + " = " +
+                      fixed(r.fuel_quantity, 1) + " " + r.fuel_unit);
+    r.trace.push_back(fixed(r.fuel_quantity, 1) + " " + r.fuel_unit + " x " + format_number(r.price_per_unit) + " " +
+                      currency + "/" + r.fuel_unit + " = " + fixed(r.energy_cost, 2) + " " + currency + " energy");
+    for (const auto& charge : option.fixed_charges)
+        r.trace.push_back(charge.label + ": " + charge.text + " = " + fixed(charge.amount_per_year, 2) + " " + currency);
+    r.trace.push_back("annual cost " + fixed(r.energy_cost, 2) + " + " + fixed(r.fixed_cost, 2) + " fixed = " +
+                      fixed(r.annual_cost, 2) + " " + currency);
+    r.trace.push_back("cost of useful heat " + format_number(r.price_per_unit) + " / (" +
+                      format_number(r.hhv_kwh_per_unit) + " kWh/" + r.fuel_unit + " x " +
+                      format_number(r.seasonal_efficiency_hhv) + ") = " + fixed(r.cost_per_useful_kwh, 4) + " " +
+                      currency + "/kWh useful (energy price only, fixed charges excluded)");
+    r.trace.push_back("emissions " + emissions_line);
+
+    r.sources = fuel.sources;
+    r.sources.push_back({"emission factors", fuel.id, fuel.emissions.source});
+    if (!fuel.emissions.per_kwh_setting) r.sources.push_back({"GWP " + gwp.id, "CH4 " + format_number(gwp.ch4) + ", N2O " + format_number(gwp.n2o), gwp.source});
+    if (option.system_catalog) {
+        const auto& record = find_system(*option.system_catalog);
+        r.sources.push_back({"systems.json " + record.id,
+                             "typical " + format_number(record.typical.value) + " " + std::string(rating_name(record.typical.rating)) +
+                                 ", minimum " + format_number(record.minimum.value) + " " + std::string(rating_name(record.minimum.rating)),
+                             record.minimum.source});
+    }
+    return r;
+}
+
+const std::vector<std::string>& cautions() {
+    static const std::vector<std::string> list = {
+        "These figures are estimates for comparing options, not a design: actual use depends on the house, the weather, "
+        "the installation and the occupants.",
+        "Every fuel-burning appliance needs correct venting, combustion air and regular service, and the home needs "
+        "working carbon-monoxide alarms.",
+        "Fuel switching, gas lines, oil-tank removal, electrical service upgrades and equipment sizing must be done by "
+        "licensed professionals to local codes and permits.",
+        "Prices change: check current prices and fixed charges with each supplier before deciding.",
+    };
+    return list;
+}
+
+}  // namespace fw
