@@ -53,6 +53,12 @@ std::string fixed(double value, int decimals) {
     return buffer;
 }
 
+/// "a furnace", "an air-source-heat-pump".
+std::string with_article(const std::string& noun) {
+    const bool vowel = !noun.empty() && std::string("aeiou").find(noun[0]) != std::string::npos;
+    return (vowel ? "an " : "a ") + noun;
+}
+
 std::string percent(double fraction) { return fixed(fraction * 100.0, 1) + " %"; }
 
 rated_efficiency load_rated(const nlohmann::json& item) {
@@ -138,15 +144,17 @@ seasonal_efficiency seasonal_efficiency_hhv(const system_request& request, const
     if (std::find(allowed.begin(), allowed.end(), request.rating) == allowed.end()) {
         std::string list;
         for (auto r : allowed) list += (list.empty() ? "" : ", ") + std::string(rating_name(r));
-        throw input_error(rating_path, rating + " does not apply to a " + kind + "; a " + kind + " is rated by " + list);
+        throw input_error(rating_path, rating + " does not apply to " + with_article(kind) + "; " + with_article(kind) +
+                                          " is rated by " + list);
     }
     if (!std::isfinite(v) || v <= 0)
         throw input_error(value_path, "efficiency must be a positive number, got " + format_number(v));
     const bool electric_fuel = fuel.category == fuel_category::electricity;
     if (!burns_fuel(request.kind) && !electric_fuel)
-        throw input_error(path + "/kind", "a " + kind + " runs on electricity, not " + fuel.id);
+        throw input_error(path + "/kind", with_article(kind) + " runs on electricity, not " + fuel.id);
     if (burns_fuel(request.kind) && electric_fuel)
-        throw input_error(path + "/kind", "a " + kind + " burns fuel; electricity needs an electric-resistance or heat-pump system");
+        throw input_error(path + "/kind", with_article(kind) + " burns fuel; electricity needs an electric-resistance or "
+                                          "heat-pump system");
     seasonal_efficiency out;
     switch (request.rating) {
         case efficiency_rating::afue:
