@@ -242,6 +242,10 @@ BAD = {
     "custom fuel moisture of 100": lambda d: option(d).update(
         fuel={"id": "x", "ultimate": "C:50,H:6,O:44", "moisture": 100, "sale_unit": "kg"},
         price={"amount": 1, "per": "kg"}),
+    "custom mixture with a space after a comma": lambda d: option(d).update(
+        fuel={"id": "x", "mixture": "CH4:0.6, CO2:0.4", "sale_unit": "m3"}, price={"amount": 1, "per": "m3"}),
+    "custom ultimate analysis with an unknown item": lambda d: option(d).update(
+        fuel={"id": "x", "ultimate": "C:50,H:6,O:43,Ash:1", "sale_unit": "kg"}, price={"amount": 1, "per": "kg"}),
     "quote date not YYYY-MM-DD": lambda d: d.update(quote={"date": "16/11/2026"}),
 }
 for name, change in BAD.items():
@@ -253,7 +257,7 @@ GOOD = {
     "a reserved demand method without annual_useful_heat": lambda d: d.update(demand={"method": "heat-loss"}),
     "reserved top-level objects": lambda d: d.update(climate={}, economics={"years": 15}, uncertainty={}),
     "custom fuel by mixture sold per m3": lambda d: option(d).update(
-        fuel={"id": "bio", "mixture": "CH4:0.6, CO2:0.4", "sale_unit": "m3", "reference": "0C"},
+        fuel={"id": "bio", "mixture": "CH4:0.6,CO2:0.4", "sale_unit": "m3", "reference": "0C"},
         price={"amount": 0.3, "per": "m3"}),
     "heating value in Btu/therm": lambda d: option(d).update(heating_value={"value": 100000, "unit": "Btu/therm"}),
     "fixed charge per year": lambda d: option(d).update(fixed_charges=[{"label": "meter", "amount_per_year": 60}]),
