@@ -25,6 +25,8 @@ export class CoreClient {
   heatingValue(request) { return this.call('heatingValue', request); }
   convert(request) { return this.call('convert', request); }
   units() { return this.call('units'); }
+  evaluate(scenario) { return this.call('evaluate', scenario); }
+  catalog() { return this.call('catalog'); }
 
   #ensureWorker() {
     if (this.#worker) return this.#worker;

@@ -9,6 +9,8 @@ const EXPORTS = {
   heatingValue: { takesRequest: true },
   convert: { takesRequest: true },
   units: { takesRequest: false },
+  evaluate: { takesRequest: true },
+  catalog: { takesRequest: false },
 };
 
 const core = createFuelwrightCore({

@@ -13,6 +13,8 @@ namespace {
 std::string heating_value(const std::string& request) { return fw::heating_value_json(request); }
 std::string convert(const std::string& request) { return fw::convert_json(request); }
 std::string units() { return fw::units_json(); }
+std::string evaluate(const std::string& scenario) { return fw::evaluate_json(scenario); }
+std::string catalog() { return fw::catalog_json(); }
 
 }  // namespace
 
@@ -20,4 +22,6 @@ EMSCRIPTEN_BINDINGS(fuelwright_core) {
     emscripten::function("heatingValue", &heating_value);
     emscripten::function("convert", &convert);
     emscripten::function("units", &units);
+    emscripten::function("evaluate", &evaluate);
+    emscripten::function("catalog", &catalog);
 }
