@@ -20,10 +20,10 @@ json sources_json(const std::vector<source_note>& notes) {
     return list;
 }
 
-json option_json(const option_result& r) {
+json option_json(const option_result& r, const scenario& input) {
     const double kwh_per_mmbtu = convert(1, "MMBtu", "kWh");
     const double kwh_per_gj = convert(1, "GJ", "kWh");
-    return {{"id", r.id},
+    json out = {{"id", r.id},
             {"label", r.label},
             {"fuel", r.fuel_id},
             {"fuel_name", r.fuel_name},
@@ -47,6 +47,105 @@ json option_json(const option_result& r) {
             {"n2o_kg", r.n2o_kg},
             {"trace", r.trace},
             {"sources", sources_json(r.sources)}};
+    if (r.season) {
+        const bool f = input.climate->fahrenheit;
+        const std::string unit = f ? "degF" : "degC";
+        const auto t = [&](double c) { return json{{"value", convert(c, "degC", unit)}, {"unit", unit}}; };
+        out["seasonal_cop"] = r.seasonal_cop;
+        out["heat_pump_kwh"] = r.heat_pump_kwh;
+        out["backup_kwh"] = r.backup_kwh;
+        out["backup_share"] = r.backup_share;
+        out["balance_point"] = t(r.balance_point_c);
+        out["hours_below_balance_point"] = r.season->hours_below_balance_point;
+        out["changeover"] = r.changeover_c ? t(*r.changeover_c) : json(nullptr);
+        if (!r.backup_option.empty()) {
+            out["backup_option"] = r.backup_option;
+            out["backup_fuel_quantity"] = {{"value", r.backup_fuel_quantity}, {"unit", r.backup_fuel_unit}};
+        }
+        out["bin_cop_range"] = {r.season->lowest_bin_cop, r.season->highest_bin_cop};
+        json bins = json::array();
+        for (const auto& bin : r.season->bins)
+            bins.push_back({{"t", convert(bin.t_c, "degC", unit)},
+                            {"hours", bin.hours},
+                            {"load_kw", bin.load_kw},
+                            {"capacity_kw", bin.capacity_kw},
+                            {"cop", bin.cop},
+                            {"heat_pump_heat_kwh", bin.heat_pump_heat_kwh},
+                            {"backup_heat_kwh", bin.backup_heat_kwh},
+                            {"heat_pump_kwh", bin.heat_pump_kwh},
+                            {"extrapolated", bin.extrapolated},
+                            {"off", bin.off}});
+        out["bins"] = bins;
+    }
+    return out;
+}
+
+json demand_result(const scenario& input) {
+    json out = {{"method", input.demand_method},
+                {"annual_useful_heat_kwh", input.annual_useful_heat_kwh},
+                {"space_heat_kwh", input.space_heat_kwh},
+                {"hot_water_kwh", input.hot_water_kwh},
+                {"trace", input.demand_trace}};
+    const bool f = input.climate ? input.climate->fahrenheit : input.settings.units == unit_system::us;
+    const std::string unit = f ? "degF" : "degC";
+    if (input.balance_point_c)
+        out["balance_point"] = {{"value", convert(*input.balance_point_c, "degC", unit)}, {"unit", unit}};
+    if (input.ua_w_per_k) out["ua_w_per_k"] = *input.ua_w_per_k;
+    if (input.demand_uncertainty_kwh) out["uncertainty_kwh"] = *input.demand_uncertainty_kwh;
+    if (input.fit) {
+        const auto& fit = *input.fit;
+        const double per_k = f ? 5.0 / 9.0 : 1.0;  // kWh per K day -> kWh per degF day
+        json points = json::array();
+        for (const auto& [x, y] : fit.points) points.push_back({{"hdd_per_day", x / per_k}, {"use_per_day", y}});
+        out["fit"] = {{"base_per_day", fit.base_kwh_per_day},
+                      {"slope", fit.slope_kwh_per_k_day * per_k},
+                      {"tau", convert(fit.tau_c, "degC", unit)},
+                      {"r2", fit.r2},
+                      {"nac", fit.nac_kwh},
+                      {"heating", fit.heating_kwh},
+                      {"base", fit.base_annual_kwh},
+                      {"standard_error", fit.nac_standard_error_kwh},
+                      {"normal_hdd", fit.normal_hdd / per_k},
+                      {"unit", "kWh"},
+                      {"temperature_unit", unit},
+                      {"points", points}};
+    }
+    return out;
+}
+
+/// Climate results in the input's temperature unit.
+json climate_result(const climate_info& info) {
+    const std::string unit = info.fahrenheit ? "degF" : "degC";
+    const double per_k = info.fahrenheit ? 9.0 / 5.0 : 1.0;
+    const auto t = [&](double c) { return convert(c, "degC", unit); };
+    const auto monthly = monthly_hdd(info.model, info.base_c);
+    json hdd = json::array(), means = json::array(), sd = json::array();
+    double annual = 0;
+    for (int m = 0; m < 12; ++m) {
+        hdd.push_back(monthly[m] * per_k);
+        annual += monthly[m] * per_k;
+        means.push_back(t(info.model.monthly_mean_c[m]));
+        sd.push_back(info.model.daily_sd_k[m] * per_k);
+    }
+    json bins = json::array();
+    double hours = 0;
+    for (const auto& bin : info.bins) {
+        bins.push_back({{"t", t(bin.t_c)}, {"hours", bin.hours}});
+        hours += bin.hours;
+    }
+    return {{"unit", unit},
+            {"base", {{"value", t(info.base_c)}, {"unit", unit}}},
+            {"monthly_mean", means},
+            {"monthly_sd", sd},
+            {"monthly_hdd", hdd},
+            {"annual_hdd", annual},
+            {"bins", bins},
+            {"bin_width", info.fahrenheit ? 2 : 1},
+            {"bin_hours_total", hours},
+            {"design_temperature_99", t(info.design_99_c)},
+            {"design_temperature_996", t(info.design_996_c)},
+            {"daily_range", info.model.daily_range_k * per_k},
+            {"trace", info.model.trace}};
 }
 
 json evaluate(const json& document) {
@@ -58,7 +157,7 @@ json evaluate(const json& document) {
         try {
             auto result = evaluate_option(input, option);
             for (const auto& w : result.warnings) warnings.push_back({option.path, w});
-            options.push_back(option_json(result));
+            options.push_back(option_json(result, input));
             results.push_back(std::move(result));
         } catch (const input_error& error) {
             errors.push_back({error.path(), error.message()});
@@ -76,11 +175,9 @@ json evaluate(const json& document) {
                      {"electricity_co2e_kg_per_kwh", input.settings.electricity_co2e_kg_per_kwh},
                      {"gwp", input.settings.gwp}};
     json out = {{"schema", "fuelwright.result/1"},
+                {"climate", input.climate ? climate_result(*input.climate) : json(nullptr)},
                 {"settings", settings},
-                {"demand",
-                 {{"method", input.demand_method},
-                  {"annual_useful_heat_kwh", input.annual_useful_heat_kwh},
-                  {"trace", input.demand_trace}}},
+                {"demand", demand_result(input)},
                 {"options", options},
                 {"ranking", ranking},
                 {"cautions", cautions()},
@@ -135,6 +232,22 @@ std::string evaluate_json(const std::string& scenario_json) noexcept {
     }
 }
 
+std::string climate_json(const std::string& request_json) noexcept {
+    try {
+        const auto request = parse_request(request_json);
+        require_object(request, "");
+        const auto& climate = request.contains("climate") ? request.at("climate") : request;
+        auto out = climate_result(read_climate(climate));
+        out["errors"] = json::array();
+        out["warnings"] = json::array();
+        return out.dump();
+    } catch (const input_error& error) {
+        return error_response({{error.path(), error.message()}});
+    } catch (const std::exception& error) {
+        return error_response({{"", std::string("internal error: ") + error.what()}});
+    }
+}
+
 std::string catalog_json() noexcept {
     try {
         json fuels = json::array();
@@ -164,7 +277,8 @@ std::string catalog_json() noexcept {
                     {"electricity_default",
                      {{"co2e_kg_per_kwh", electricity.co2e_kg_per_kwh}, {"year", electricity.year}, {"source", electricity.source}}},
                     {"cautions", cautions()},
-                    {"errors", json::array()}}
+                    {"errors", json::array()},
+                    {"warnings", json::array()}}
             .dump();
     } catch (const std::exception& error) {
         return error_response({{"", std::string("internal error: ") + error.what()}});

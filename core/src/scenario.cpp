@@ -142,6 +142,77 @@ fuel_record read_custom_fuel(const json& fuel, const std::string& path, std::vec
     return record;
 }
 
+/// A temperature {value, unit} in degC.
+double read_temperature_c(const json& value, const std::string& path) {
+    require_object(value, path);
+    const double number = required_number(value, "value", path);
+    const auto unit = required_string(value, "unit", path);
+    if (find_unit(unit, path + "/unit").kind != dimension::temperature)
+        throw input_error(path + "/unit", "must be a temperature unit: " + accepted_units(dimension::temperature));
+    return convert(number, unit, "degC", path + "/value");
+}
+
+/// A power {value, unit} in kW.
+double read_power_kw(const json& value, const std::string& path) {
+    require_object(value, path);
+    const double number = required_number(value, "value", path);
+    const auto unit = required_string(value, "unit", path);
+    if (find_unit(unit, path + "/unit").kind != dimension::power)
+        throw input_error(path + "/unit", "must be a power unit: " + accepted_units(dimension::power));
+    return convert(number, unit, "kW", path + "/value");
+}
+
+void read_heat_pump_fields(const json& system, const std::string& path, scenario_option& option) {
+    const bool heat_pump = is_heat_pump(option.system.kind);
+    for (const char* key : {"ratings", "cutoff", "cd", "backup", "changeover", "capacity"})
+        if (system.contains(key) && !heat_pump)
+            throw input_error(path + "/" + key, std::string(key) + " applies to heat pumps only");
+    if (const auto ratings = system.find("ratings"); ratings != system.end()) {
+        if (!ratings->is_array() || ratings->size() < 2)
+            throw input_error(path + "/ratings", "needs at least two data-sheet points (e.g. at 47, 17 and 5 degF)");
+        for (std::size_t i = 0; i < ratings->size(); ++i) {
+            const std::string point_path = path + "/ratings/" + std::to_string(i);
+            const auto& point = (*ratings)[i];
+            require_object(point, point_path);
+            if (!point.contains("outdoor") || !point.contains("capacity"))
+                throw input_error(point_path, "needs \"outdoor\", \"capacity\" and \"cop\"");
+            heat_pump_point entry{read_temperature_c(point.at("outdoor"), point_path + "/outdoor"),
+                                  read_power_kw(point.at("capacity"), point_path + "/capacity"),
+                                  required_number(point, "cop", point_path)};
+            if (entry.capacity_kw <= 0)
+                throw input_error(point_path + "/capacity/value", "must be > 0, got " + format_number(entry.capacity_kw));
+            if (entry.cop < 1)
+                throw input_error(point_path + "/cop", "a heat pump's COP cannot be below 1, got " + format_number(entry.cop));
+            for (const auto& other : option.ratings)
+                if (std::fabs(other.outdoor_c - entry.outdoor_c) < 1e-9)
+                    throw input_error(point_path + "/outdoor", "two data-sheet points at the same outdoor temperature");
+            option.ratings.push_back(entry);
+        }
+    }
+    if (system.contains("cutoff")) option.cutoff_c = read_temperature_c(system.at("cutoff"), path + "/cutoff");
+    if (const auto cd = optional_number(system, "cd", path)) {
+        if (*cd < 0 || *cd > 1) throw input_error(path + "/cd", "must be from 0 to 1, got " + format_number(*cd));
+        option.cd = *cd;
+        option.cd_given = true;
+    }
+    if (const auto backup = optional_string(system, "backup", path)) option.backup = *backup;
+    if (const auto changeover = system.find("changeover"); changeover != system.end()) {
+        if (changeover->is_string()) {
+            if (changeover->get<std::string>() != "optimal")
+                throw input_error(path + "/changeover", "must be {value, unit} or \"optimal\"");
+            option.changeover_optimal = true;
+        } else {
+            option.changeover_c = read_temperature_c(*changeover, path + "/changeover");
+        }
+    }
+    if (system.contains("capacity")) {
+        option.capacity_47_kw = read_power_kw(system.at("capacity"), path + "/capacity");
+        if (*option.capacity_47_kw <= 0) throw input_error(path + "/capacity/value", "must be > 0");
+    }
+}
+
+}  // namespace
+
 scenario_option read_option(const json& item, const std::string& path, std::vector<issue>& warnings) {
     require_object(item, path);
     scenario_option option;
@@ -152,6 +223,7 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
                                             "\" must start with a letter or digit and use only letters, digits, . _ - "
                                             "(at most 64 characters)");
     option.label = optional_string(item, "label", path).value_or(option.id);
+    option.existing = optional_bool(item, "existing", path).value_or(false);
     if (!item.contains("fuel")) throw input_error(path + "/fuel", "is required (a fuel id or a custom fuel object)");
     const auto& fuel = item.at("fuel");
     if (fuel.is_string()) option.fuel = find_fuel(fuel.get<std::string>(), path + "/fuel");
@@ -227,6 +299,10 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
         option.system.efficiency_value = required_number(*efficiency, "value", system_path + "/efficiency");
         option.system.rating =
             parse_rating(required_string(*efficiency, "rating", system_path + "/efficiency"), system_path + "/efficiency/rating");
+    } else if (system.contains("ratings") && is_heat_pump(option.system.kind)) {
+        option.efficiency_given = false;
+        option.system.efficiency_value = 1.0;  // replaced by the bin model's seasonal COP
+        option.system.rating = efficiency_rating::cop;
     } else if (record) {
         option.system.efficiency_value = record->typical.value;
         option.system.rating = record->typical.rating;
@@ -237,6 +313,10 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
     } else {
         throw input_error(system_path + "/efficiency", "is required ({\"value\": ..., \"rating\": ...})");
     }
+    read_heat_pump_fields(system, system_path, option);
+    warn_unknown_keys(system, {"kind", "catalog", "efficiency", "distribution_loss", "age_derating", "ratings", "cutoff",
+                               "cd", "backup", "changeover", "capacity"},
+                      system_path, warnings);
     option.system.distribution_loss = optional_number(system, "distribution_loss", system_path).value_or(0.0);
     option.system.age_derating = optional_number(system, "age_derating", system_path).value_or(0.0);
     if (record && !option.fuel.custom &&
@@ -268,6 +348,8 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
                       path, warnings);
     return option;
 }
+
+namespace {
 
 scenario_settings read_settings(const json& document, std::vector<issue>& warnings) {
     scenario_settings settings;
@@ -332,24 +414,7 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
     if (!errors.empty()) return out;
     attempt([&] { out.settings = read_settings(document, warnings); });
     attempt([&] {
-        if (!document.contains("demand")) throw input_error("/demand", "is required (how much useful heat the house needs)");
-        const auto& demand = document.at("demand");
-        require_object(demand, "/demand");
-        out.demand_method = optional_string(demand, "method", "/demand").value_or("direct");
-        if (out.demand_method != "direct")
-            throw input_error("/demand/method", "unknown demand method \"" + out.demand_method + "\"; accepted: direct");
-        if (!demand.contains("annual_useful_heat"))
-            throw input_error("/demand/annual_useful_heat", "is required ({\"value\": ..., \"unit\": \"MMBtu\"})");
-        const auto& heat = demand.at("annual_useful_heat");
-        require_object(heat, "/demand/annual_useful_heat");
-        const double value = required_number(heat, "value", "/demand/annual_useful_heat");
-        const auto unit = required_string(heat, "unit", "/demand/annual_useful_heat");
-        if (find_unit(unit, "/demand/annual_useful_heat/unit").kind != dimension::energy)
-            throw input_error("/demand/annual_useful_heat/unit", "must be an energy unit: " + accepted_units(dimension::energy));
-        if (value <= 0) throw input_error("/demand/annual_useful_heat/value", "must be > 0, got " + format_number(value));
-        out.annual_useful_heat_kwh = convert(value, unit, "kWh");
-        out.demand_trace.push_back("annual useful heat given directly: " + format_number(value) + " " + unit + " = " +
-                                   fixed(out.annual_useful_heat_kwh, 1) + " kWh");
+        if (document.contains("climate")) out.climate = read_climate(document.at("climate"));
     });
     attempt([&] {
         if (!document.contains("options") || !document.at("options").is_array() || document.at("options").empty())
@@ -367,11 +432,52 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
                 out.options.push_back(std::move(option));
             });
         }
+        int existing = 0;
+        for (const auto& option : out.options) existing += option.existing;
+        if (existing > 1) throw input_error("/options", "at most one option can be the existing system; " +
+                                                            std::to_string(existing) + " are marked existing");
+    });
+    attempt([&] {
+        if (!document.contains("demand")) throw input_error("/demand", "is required (how much useful heat the house needs)");
+        read_demand(document.at("demand"), out,
+                    document.contains("options") ? document.at("options") : json::array(), warnings);
     });
     return out;
 }
 
+emissions emissions_of(const fuel_record& fuel, double fuel_kwh_hhv, const scenario_settings& settings) {
+    emissions out;
+    if (fuel.emissions.per_kwh_setting) {
+        out.co2_fossil_kg = fuel_kwh_hhv * settings.electricity_co2e_kg_per_kwh;
+        out.co2e_kg = out.co2_fossil_kg;
+        out.text = fixed(fuel_kwh_hhv, 0) + " kWh x " + format_number(settings.electricity_co2e_kg_per_kwh) +
+                   " kg CO2e/kWh (" +
+                   (settings.electricity_factor_given ? std::string("scenario setting")
+                                                      : "default: " + default_electricity_emissions().source + ", " +
+                                                            std::to_string(default_electricity_emissions().year)) +
+                   ") = " + fixed(out.co2e_kg, 0) + " kg CO2e";
+        return out;
+    }
+    const auto& gwp = find_gwp_set(settings.gwp);
+    const double mmbtu = convert(fuel_kwh_hhv, "kWh", "MMBtu");
+    const double co2 = mmbtu * fuel.emissions.co2_kg_per_mmbtu;
+    (fuel.emissions.biogenic ? out.co2_biogenic_kg : out.co2_fossil_kg) = co2;
+    out.ch4_kg = mmbtu * fuel.emissions.ch4_kg_per_mmbtu;
+    out.n2o_kg = mmbtu * fuel.emissions.n2o_kg_per_mmbtu;
+    out.co2e_kg = out.co2_fossil_kg + out.ch4_kg * gwp.ch4 + out.n2o_kg * gwp.n2o;
+    out.text = fixed(mmbtu, 2) + " MMBtu x (" + format_number(fuel.emissions.co2_kg_per_mmbtu) + " kg CO2" +
+               (fuel.emissions.biogenic ? " biogenic, not counted in CO2e" : "") + " + " +
+               format_number(fuel.emissions.ch4_kg_per_mmbtu) + " kg CH4 x " + format_number(gwp.ch4) + " + " +
+               format_number(fuel.emissions.n2o_kg_per_mmbtu) + " kg N2O x " + format_number(gwp.n2o) + ", GWP " +
+               gwp.id + ") per MMBtu = " + fixed(out.co2e_kg, 0) + " kg CO2e";
+    return out;
+}
+
 option_result evaluate_option(const scenario& input, const scenario_option& option) {
+    if (is_heat_pump(option.system.kind) && input.climate) return evaluate_heat_pump_option(input, option);
+    if (!option.efficiency_given)
+        throw input_error(option.path + "/system/ratings",
+                          "data-sheet points need a climate (for the temperature bins); without one give efficiency");
     option_result r;
     r.id = option.id;
     r.label = option.label;
@@ -420,32 +526,14 @@ option_result evaluate_option(const scenario& input, const scenario_option& opti
     r.annual_cost = r.energy_cost + r.fixed_cost;
     r.cost_per_useful_kwh = r.price_per_unit / (r.hhv_kwh_per_unit * r.seasonal_efficiency_hhv);
 
-    // Emissions.
-    const double fuel_mmbtu = convert(r.fuel_energy_hhv_kwh, "kWh", "MMBtu");
+    const auto emitted = emissions_of(fuel, r.fuel_energy_hhv_kwh, input.settings);
+    r.co2e_kg = emitted.co2e_kg;
+    r.co2_fossil_kg = emitted.co2_fossil_kg;
+    r.co2_biogenic_kg = emitted.co2_biogenic_kg;
+    r.ch4_kg = emitted.ch4_kg;
+    r.n2o_kg = emitted.n2o_kg;
+    const std::string& emissions_line = emitted.text;
     const auto& gwp = find_gwp_set(input.settings.gwp);
-    std::string emissions_line;
-    if (fuel.emissions.per_kwh_setting) {
-        r.co2_fossil_kg = r.fuel_energy_hhv_kwh * input.settings.electricity_co2e_kg_per_kwh;
-        r.co2e_kg = r.co2_fossil_kg;
-        emissions_line = fixed(r.fuel_energy_hhv_kwh, 0) + " kWh x " +
-                         format_number(input.settings.electricity_co2e_kg_per_kwh) + " kg CO2e/kWh (" +
-                         (input.settings.electricity_factor_given
-                              ? std::string("scenario setting")
-                              : "default: " + default_electricity_emissions().source + ", " +
-                                    std::to_string(default_electricity_emissions().year)) +
-                         ") = " + fixed(r.co2e_kg, 0) + " kg CO2e";
-    } else {
-        const double co2 = fuel_mmbtu * fuel.emissions.co2_kg_per_mmbtu;
-        (fuel.emissions.biogenic ? r.co2_biogenic_kg : r.co2_fossil_kg) = co2;
-        r.ch4_kg = fuel_mmbtu * fuel.emissions.ch4_kg_per_mmbtu;
-        r.n2o_kg = fuel_mmbtu * fuel.emissions.n2o_kg_per_mmbtu;
-        r.co2e_kg = r.co2_fossil_kg + r.ch4_kg * gwp.ch4 + r.n2o_kg * gwp.n2o;
-        emissions_line = fixed(fuel_mmbtu, 2) + " MMBtu x (" + format_number(fuel.emissions.co2_kg_per_mmbtu) +
-                         " kg CO2" + (fuel.emissions.biogenic ? " biogenic, not counted in CO2e" : "") + " + " +
-                         format_number(fuel.emissions.ch4_kg_per_mmbtu) + " kg CH4 x " + format_number(gwp.ch4) + " + " +
-                         format_number(fuel.emissions.n2o_kg_per_mmbtu) + " kg N2O x " + format_number(gwp.n2o) +
-                         ", GWP " + gwp.id + ") per MMBtu = " + fixed(r.co2e_kg, 0) + " kg CO2e";
-    }
 
     // Trace, in the scenario's unit system.
     r.trace.push_back("useful heat " + energy_text(r.useful_heat_kwh, units) + " (" + input.demand_method + " demand)");

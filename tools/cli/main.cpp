@@ -25,6 +25,7 @@ commands:
   heating-value --ultimate "C:50.2,H:6.1,O:43.2,N:0.1,S:0,ash:0.4" [--moisture PCT] [--basis dry|as-received|daf]
                 [--hhv-dry MJ_PER_KG]
   evaluate FILE                evaluate a scenario (FILE or - for standard input)
+  climate FILE                 degree-days, hourly bins and design temperatures of a climate (or scenario) file
   catalog                      fuels with heating values per sale unit, systems, GWP sets
   convert VALUE FROM TO        e.g. convert 1 therm kWh
   units                        list the accepted unit spellings
@@ -115,11 +116,12 @@ std::optional<std::string> read_input(const std::string& name) {
     return std::string(std::istreambuf_iterator<char>(file), std::istreambuf_iterator<char>());
 }
 
-int evaluate_command(const std::vector<std::string>& args) {
-    if (args.size() != 1) return usage_error("", "evaluate takes one FILE (or - for standard input)");
+/// Runs `entry` on the text of the one FILE argument.
+int file_command(const std::vector<std::string>& args, const char* name, std::string (*entry)(const std::string&) noexcept) {
+    if (args.size() != 1) return usage_error("", std::string(name) + " takes one FILE (or - for standard input)");
     const auto text = read_input(args[0]);
     if (!text) return usage_error(args[0], "cannot read file \"" + args[0] + "\"");
-    return finish(fw::evaluate_json(*text));
+    return finish(entry(*text));
 }
 
 }  // namespace
@@ -135,8 +137,9 @@ int main(int argc, char** argv) {
     if (command == "heating-value") return heating_value_command(rest);
     if (command == "convert") return convert_command(rest);
     if (command == "units") return finish(fw::units_json());
-    if (command == "evaluate") return evaluate_command(rest);
+    if (command == "evaluate") return file_command(rest, "evaluate", fw::evaluate_json);
+    if (command == "climate") return file_command(rest, "climate", fw::climate_json);
     if (command == "catalog") return finish(fw::catalog_json());
     std::cerr << usage_text;
-    return usage_error(command, "unknown command \"" + command + "\"; commands: heating-value, evaluate, catalog, convert, units, help");
+    return usage_error(command, "unknown command \"" + command + "\"; commands: heating-value, evaluate, climate, catalog, convert, units, help");
 }

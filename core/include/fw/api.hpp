@@ -22,6 +22,10 @@ std::string units_json() noexcept;
 /// unit, annual cost, cost of useful heat, emissions and a trace; a ranking; errors[] and warnings[].
 std::string evaluate_json(const std::string& scenario_json) noexcept;
 
+/// A climate: monthly HDD, annual HDD, hourly bins and design temperatures in the input's unit.
+/// Request: the climate object itself, or a scenario with a "climate".
+std::string climate_json(const std::string& request_json) noexcept;
+
 /// The fuel and system catalogs with heating values per sale unit, GWP sets and defaults.
 std::string catalog_json() noexcept;
 

@@ -6,8 +6,11 @@
 #include <string>
 #include <vector>
 
+#include "fw/climate.hpp"
+#include "fw/demand.hpp"
 #include "fw/error.hpp"
 #include "fw/fuels.hpp"
+#include "fw/heat_pump.hpp"
 #include "fw/systems.hpp"
 
 namespace fw {
@@ -42,16 +45,56 @@ struct scenario_option {
     std::optional<double> heating_value_override_j;  ///< [J HHV per price_unit]
     std::string heating_value_override_text;
     std::optional<double> moisture_pct;
+    bool efficiency_given = true;
+    // Heat pumps on bins.
+    std::vector<heat_pump_point> ratings;
+    std::optional<double> cutoff_c;
+    double cd = default_cd;
+    bool cd_given = false;
+    std::string backup = "electric-resistance";  ///< or the id of another option (dual fuel)
+    std::optional<double> changeover_c;
+    bool changeover_optimal = false;
+    std::optional<double> capacity_47_kw;
+    bool existing = false;
     std::string path;               ///< "/options/N"
+};
+
+/// The scenario's climate, evaluated once: the model, its bins and design temperatures.
+struct climate_info {
+    climate_model model;
+    bool fahrenheit = false;        ///< the input's temperature unit (results are given back in it)
+    double base_c = 18.3;
+    std::vector<temperature_bin> bins;  ///< 1 degC or 2 degF wide
+    double design_99_c = 0, design_996_c = 0;
+    std::optional<double> given_design_c;
 };
 
 struct scenario {
     scenario_settings settings;
-    double annual_useful_heat_kwh = 0;
+    std::optional<climate_info> climate;
+    double annual_useful_heat_kwh = 0;  ///< space heat + hot water
+    double space_heat_kwh = 0;
+    double hot_water_kwh = 0;
     std::string demand_method = "direct";
     std::vector<std::string> demand_trace;
+    std::optional<double> balance_point_c;  ///< for the heat-pump bins
+    bool balance_point_defaulted = false;
+    std::optional<double> ua_w_per_k;
+    std::optional<prism_fit> fit;
+    std::string fit_unit;                   ///< energy unit of the fit's per-day figures
+    std::optional<double> demand_uncertainty_kwh;  ///< standard error of the useful heat
     std::vector<scenario_option> options;
 };
+
+/// Reads the climate object; throws input_error.
+climate_info read_climate(const nlohmann::json& climate);
+
+/// Reads the demand object into the scenario (needs its climate and options for some methods).
+void read_demand(const nlohmann::json& demand, scenario& out, const nlohmann::json& options_json,
+                 std::vector<issue>& warnings);
+
+/// The option's data read from JSON (also used for the fuel and system of a bills demand).
+scenario_option read_option(const nlohmann::json& item, const std::string& path, std::vector<issue>& warnings);
 
 /// Per-option result (the names of the JSON result).
 struct option_result {
@@ -69,6 +112,15 @@ struct option_result {
     std::vector<std::string> trace;
     std::vector<source_note> sources;
     std::vector<std::string> warnings;
+    // Heat pumps on bins (present when `season` is set).
+    std::optional<heat_pump_season> season;
+    double seasonal_cop = 0;
+    double heat_pump_kwh = 0, backup_kwh = 0, backup_share = 0;
+    std::optional<double> changeover_c;
+    double balance_point_c = 0;
+    std::string backup_option;               ///< dual fuel: id of the backup option
+    double backup_fuel_quantity = 0;
+    std::string backup_fuel_unit;
 };
 
 /// Reads a scenario; problems go to `errors` (every one found, each with its JSON pointer), and
@@ -77,6 +129,16 @@ scenario read_scenario(const nlohmann::json& document, std::vector<issue>& error
 
 /// Evaluates one option of a scenario; throws input_error for an impossible combination.
 option_result evaluate_option(const scenario& input, const scenario_option& option);
+
+/// Emissions of burning `fuel_kwh_hhv` of a fuel [kg], with the arithmetic in words.
+struct emissions {
+    double co2e_kg = 0, co2_fossil_kg = 0, co2_biogenic_kg = 0, ch4_kg = 0, n2o_kg = 0;
+    std::string text;
+};
+emissions emissions_of(const fuel_record& fuel, double fuel_kwh_hhv, const scenario_settings& settings);
+
+/// A heat-pump option on the climate's temperature bins (evaluate_option calls it when a climate is given).
+option_result evaluate_heat_pump_option(const scenario& input, const scenario_option& option);
 
 /// The cautions every verdict carries (estimates, venting and CO, licensed work, prices).
 const std::vector<std::string>& cautions();

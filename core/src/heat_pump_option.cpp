@@ -1,0 +1,239 @@
+// A heat-pump option on the scenario's temperature bins, with resistance or dual-fuel backup.
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+
+#include "fw/scenario.hpp"
+#include "fw/units.hpp"
+
+namespace fw {
+
+namespace {
+
+std::string fixed(double value, int decimals) {
+    char buffer[64];
+    std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
+    return buffer;
+}
+
+struct backup_system {
+    const scenario_option* option = nullptr;  ///< nullptr: electric resistance
+    double efficiency = 1.0;                  ///< HHV basis
+    double hhv_kwh_per_unit = 1.0;
+};
+
+struct season_cost {
+    heat_pump_season season;
+    double electricity_kwh = 0;   ///< compressor + resistance backup + hot water
+    double backup_fuel_kwh = 0;   ///< dual fuel, HHV
+    double energy_cost = 0;
+};
+
+season_cost run(const scenario& input, const scenario_option& option, const std::vector<heat_pump_point>& points,
+                double ua_kw_per_k, double balance_c, std::optional<double> changeover_c, const backup_system& backup,
+                double losses) {
+    heat_pump_inputs inputs;
+    inputs.points = points;
+    inputs.cd = option.cd;
+    inputs.cutoff_c = option.cutoff_c;
+    inputs.changeover_c = changeover_c;
+    season_cost out;
+    out.season = run_bins(input.climate->bins, ua_kw_per_k, balance_c, inputs);
+    const double hp_kwh = out.season.heat_pump_kwh * losses;
+    const double backup_heat = out.season.backup_heat_kwh * losses;
+    out.electricity_kwh = hp_kwh;
+    if (backup.option) out.backup_fuel_kwh = backup_heat / backup.efficiency;
+    else out.electricity_kwh += backup_heat;
+    // Hot water: served at the season's overall COP (with resistance backup counted as COP 1).
+    if (input.hot_water_kwh > 0) out.electricity_kwh += input.hot_water_kwh / out.season.seasonal_cop_with_resistance();
+    out.energy_cost = out.electricity_kwh * option.price_per_unit;
+    if (backup.option) out.energy_cost += out.backup_fuel_kwh / backup.hhv_kwh_per_unit * backup.option->price_per_unit;
+    return out;
+}
+
+}  // namespace
+
+option_result evaluate_heat_pump_option(const scenario& input, const scenario_option& option) {
+    option_result r;
+    r.id = option.id;
+    r.label = option.label;
+    r.fuel_id = option.fuel.id;
+    r.fuel_name = option.fuel.name;
+    r.useful_heat_kwh = input.annual_useful_heat_kwh;
+    r.fuel_unit = option.price_unit;
+    r.price_per_unit = option.price_per_unit;
+    const auto& climate = *input.climate;
+    const bool f = climate.fahrenheit;
+    const auto temp_text = [&](double c) {
+        return f ? fixed(convert(c, "degC", "degF"), 1) + " degF" : fixed(c, 1) + " degC";
+    };
+    const auto& currency = input.settings.currency;
+    if (option.fuel.category != fuel_category::electricity)
+        throw input_error(option.path + "/fuel", "a heat pump runs on electricity, not " + option.fuel.id);
+
+    // Balance point and the building's load line on the bins.
+    double balance_c = 0;
+    if (input.balance_point_c) {
+        balance_c = *input.balance_point_c;
+    } else {
+        balance_c = f ? convert(65, "degF", "degC") : 18.0;
+        r.warnings.push_back("no balance point known; the load is spread over the hours below " + temp_text(balance_c) +
+                             " (set demand.balance_point)");
+    }
+    double degree_hours = 0;
+    for (const auto& bin : climate.bins)
+        if (bin.t_c < balance_c) degree_hours += bin.hours * (balance_c - bin.t_c);
+    if (degree_hours <= 0)
+        throw input_error("/demand/balance_point", "the climate has no hours below the balance point " + temp_text(balance_c));
+    const double ua_kw = input.space_heat_kwh / degree_hours;
+    const double design_c = climate.given_design_c.value_or(climate.design_99_c);
+    const double design_load_kw = ua_kw * std::max(0.0, balance_c - design_c);
+
+    // Data sheet, or the default curve scaled to the rating.
+    std::vector<heat_pump_point> points = option.ratings;
+    std::vector<std::string> sheet_trace;
+    const double losses = 1.0 / ((1 - option.system.age_derating) * (1 - option.system.distribution_loss));
+    if (points.empty()) {
+        const auto rated = seasonal_efficiency_hhv(option.system, option.fuel, option.path + "/system");
+        const double capacity = option.capacity_47_kw.value_or(std::max(design_load_kw, 0.5));
+        points = default_points_for_seasonal_cop(rated.rated_hhv_basis, capacity);
+        for (const auto& line : rated.trace) sheet_trace.push_back(line);
+        r.warnings.push_back("no data-sheet points: a default curve (capacity 100/62/50 %, COP 100/66/55 % at 47/17/5 degF) "
+                             "is scaled so its seasonal COP over the DOE Region IV bins equals the rating; enter the "
+                             "data sheet's capacities and COPs for a real prediction");
+        if (!option.capacity_47_kw)
+            r.warnings.push_back("no capacity given: taken as the design load at " + temp_text(design_c) + " (" +
+                                 fixed(capacity, 2) + " kW at 47 degF); equipment sizing needs a Manual J or EN 12831 "
+                                 "load calculation by a professional");
+        sheet_trace.push_back("default curve scaled to seasonal COP " + fixed(rated.rated_hhv_basis, 2) +
+                              ": COP at 47 degF " + fixed(points[0].cop, 2) + ", capacity " + fixed(capacity, 2) + " kW");
+    } else {
+        std::string line = "data sheet:";
+        auto sorted = points;
+        std::sort(sorted.begin(), sorted.end(), [](auto& a, auto& b) { return a.outdoor_c > b.outdoor_c; });
+        for (const auto& p : sorted)
+            line += " " + temp_text(p.outdoor_c) + " " + fixed(p.capacity_kw, 2) + " kW COP " + fixed(p.cop, 2) + ";";
+        line.pop_back();
+        sheet_trace.push_back(line);
+    }
+
+    // Backup: electric resistance, or another option's furnace or boiler (dual fuel).
+    backup_system backup;
+    if (option.backup != "electric-resistance") {
+        for (const auto& other : input.options)
+            if (other.id == option.backup) backup.option = &other;
+        if (!backup.option)
+            throw input_error(option.path + "/system/backup", "no option has id \"" + option.backup +
+                                                                  "\"; give electric-resistance or the id of a furnace or boiler option");
+        if (!burns_fuel(backup.option->system.kind))
+            throw input_error(option.path + "/system/backup", "the backup " + option.backup + " must burn fuel (a " +
+                                                                  std::string(kind_name(backup.option->system.kind)) + " is not)");
+        backup.efficiency = seasonal_efficiency_hhv(backup.option->system, backup.option->fuel,
+                                                    backup.option->path + "/system").hhv_basis;
+        backup.hhv_kwh_per_unit =
+            heating_value_per_sale_unit(backup.option->fuel, backup.option->price_unit, backup.option->sale,
+                                        backup.option->path + "/price/per").hhv_j / 3.6e6;
+    } else if (option.changeover_c || option.changeover_optimal) {
+        throw input_error(option.path + "/system/changeover", "a changeover temperature needs a fuel backup (system.backup)");
+    }
+
+    std::optional<double> changeover = option.changeover_c;
+    if (option.changeover_optimal) {
+        double best_cost = INFINITY;
+        for (const auto& bin : climate.bins) {
+            if (bin.t_c > balance_c) break;
+            const double candidate = bin.t_c;
+            const double cost = run(input, option, points, ua_kw, balance_c, candidate, backup, losses).energy_cost;
+            if (cost < best_cost - 1e-9) {
+                best_cost = cost;
+                changeover = candidate;
+            }
+        }
+        const double no_lockout = run(input, option, points, ua_kw, balance_c, std::nullopt, backup, losses).energy_cost;
+        if (no_lockout <= best_cost) changeover.reset();
+    }
+    const auto result = run(input, option, points, ua_kw, balance_c, changeover, backup, losses);
+    const auto& season = result.season;
+    r.season = season;
+    r.balance_point_c = balance_c;
+    r.changeover_c = changeover;
+    r.heat_pump_kwh = season.heat_pump_kwh * losses;
+    r.backup_kwh = backup.option ? 0.0 : season.backup_heat_kwh * losses;
+    r.backup_share = season.load_kwh > 0 ? season.backup_heat_kwh / season.load_kwh : 0.0;
+    r.seasonal_cop = backup.option ? season.heat_pump_cop() / losses : season.seasonal_cop_with_resistance() / losses;
+    r.fuel_energy_hhv_kwh = result.electricity_kwh + result.backup_fuel_kwh;
+    r.fuel_quantity = result.electricity_kwh;
+    r.hhv_kwh_per_unit = 1.0;
+    r.lhv_kwh_per_unit = 1.0;
+    r.seasonal_efficiency_hhv = r.useful_heat_kwh / r.fuel_energy_hhv_kwh;
+    r.energy_cost = result.energy_cost;
+    for (const auto& charge : option.fixed_charges) r.fixed_cost += charge.amount_per_year;
+    if (backup.option)
+        for (const auto& charge : backup.option->fixed_charges) r.fixed_cost += charge.amount_per_year;
+    r.annual_cost = r.energy_cost + r.fixed_cost;
+    r.cost_per_useful_kwh = r.energy_cost / r.useful_heat_kwh;
+    auto emitted = emissions_of(option.fuel, result.electricity_kwh, input.settings);
+    std::string emissions_text = emitted.text;
+    if (backup.option) {
+        r.backup_option = backup.option->id;
+        r.backup_fuel_unit = backup.option->price_unit;
+        r.backup_fuel_quantity = result.backup_fuel_kwh / backup.hhv_kwh_per_unit;
+        const auto more = emissions_of(backup.option->fuel, result.backup_fuel_kwh, input.settings);
+        emitted.co2e_kg += more.co2e_kg;
+        emitted.co2_fossil_kg += more.co2_fossil_kg;
+        emitted.co2_biogenic_kg += more.co2_biogenic_kg;
+        emitted.ch4_kg += more.ch4_kg;
+        emitted.n2o_kg += more.n2o_kg;
+        emissions_text += "; backup " + more.text;
+    }
+    r.co2e_kg = emitted.co2e_kg;
+    r.co2_fossil_kg = emitted.co2_fossil_kg;
+    r.co2_biogenic_kg = emitted.co2_biogenic_kg;
+    r.ch4_kg = emitted.ch4_kg;
+    r.n2o_kg = emitted.n2o_kg;
+
+    if (season.extrapolated_hours > 0)
+        r.warnings.push_back(fixed(season.extrapolated_hours, 0) + " heating hours lie outside the data sheet's "
+                             "temperatures; capacity and COP there are extrapolated linearly");
+
+    // Trace.
+    const bool us = input.settings.units == unit_system::us;
+    const auto energy_text = [&](double kwh) {
+        return us ? fixed(convert(kwh, "kWh", "MMBtu"), 2) + " MMBtu" : fixed(kwh, 0) + " kWh";
+    };
+    r.trace.push_back("useful heat " + energy_text(r.useful_heat_kwh) + " (" + input.demand_method + " demand)" +
+                      (input.hot_water_kwh > 0 ? ", of which hot water " + energy_text(input.hot_water_kwh) : ""));
+    for (const auto& line : sheet_trace) r.trace.push_back(line);
+    r.trace.push_back("temperature bins: " + std::to_string(climate.bins.size()) + " bins, " +
+                      fixed(season.hours_below_balance_point, 0) + " h below the balance point " + temp_text(balance_c) +
+                      "; load line " + fixed(ua_kw * 1000, 1) + " W/K x (balance point - outdoor)");
+    r.trace.push_back("each bin: capacity and COP interpolated; part load X = min(1, load/capacity), PLF = 1 - " +
+                      format_number(option.cd) + " (1 - X)" + (option.cd_given ? "" : " (C_D default 0.25, DOE App. M)") +
+                      (option.cutoff_c ? "; off below " + temp_text(*option.cutoff_c) : "") +
+                      (changeover ? "; changeover to " + option.backup + " below " + temp_text(*changeover) +
+                                        (option.changeover_optimal ? " (lowest cost at these prices)" : "")
+                                  : ""));
+    r.trace.push_back("season: heat pump delivers " + energy_text(season.heat_pump_heat_kwh) + " using " +
+                      fixed(season.heat_pump_kwh, 0) + " kWh (COP " + fixed(season.heat_pump_cop(), 2) +
+                      "); backup " + energy_text(season.backup_heat_kwh) + " (" + fixed(100 * r.backup_share, 1) + " % of the load)");
+    if (losses != 1.0) r.trace.push_back("age derating and distribution loss: energies x " + fixed(losses, 4));
+    if (backup.option)
+        r.trace.push_back("backup " + backup.option->id + ": " + energy_text(season.backup_heat_kwh * losses) + " / " +
+                          fixed(backup.efficiency, 3) + " = " + fixed(r.backup_fuel_quantity, 1) + " " + r.backup_fuel_unit +
+                          " x " + format_number(backup.option->price_per_unit) + " " + currency);
+    else
+        r.trace.push_back("resistance backup " + fixed(r.backup_kwh, 0) + " kWh; seasonal COP with backup " +
+                          fixed(r.seasonal_cop, 2));
+    r.trace.push_back(fixed(result.electricity_kwh, 0) + " kWh x " + format_number(option.price_per_unit) + " " + currency +
+                      "/kWh" + (backup.option ? " + backup fuel" : "") + " = " + fixed(r.energy_cost, 2) + " " + currency +
+                      " energy; fixed " + fixed(r.fixed_cost, 2) + "; annual " + fixed(r.annual_cost, 2) + " " + currency);
+    r.trace.push_back("emissions " + emissions_text);
+    r.sources = option.fuel.sources;
+    r.sources.push_back({"emission factors", option.fuel.id, option.fuel.emissions.source});
+    r.sources.push_back({"bin method", "capacity, COP, C_D and backup per temperature bin",
+                         "ASHRAE bin method; DOE 10 CFR 430 Subpart B Appendix M/M1 heating calculation (from memory)"});
+    r.sources.push_back({"climate bins", "Erbs, Klein & Beckman (1983)", "ASHRAE Journal 25(6), via Duffie & Beckman (from memory)"});
+    return r;
+}
+
+}  // namespace fw

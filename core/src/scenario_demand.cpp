@@ -1,0 +1,380 @@
+// Scenario climate and demand: reading the JSON and working out the house's annual useful heat.
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+#include <numeric>
+
+#include "fw/json_fields.hpp"
+#include "fw/scenario.hpp"
+#include "fw/units.hpp"
+
+namespace fw {
+
+using nlohmann::json;
+using namespace json_fields;
+
+namespace {
+
+std::string fixed(double value, int decimals) {
+    char buffer[64];
+    std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
+    return buffer;
+}
+
+/// [degC] from a {value, unit} temperature.
+double temperature_c(const json& obj, const std::string& path) {
+    require_object(obj, path);
+    const auto value = optional_number(obj, "value", path);
+    const auto unit = optional_string(obj, "unit", path);
+    if (!value) throw input_error(path + "/value", "is required (a number)");
+    if (!unit) throw input_error(path + "/unit", "is required (degC, degF or K)");
+    if (find_unit(*unit, path + "/unit").kind != dimension::temperature)
+        throw input_error(path + "/unit", "must be a temperature unit: " + accepted_units(dimension::temperature));
+    return convert(*value, *unit, "degC", path + "/value");
+}
+
+/// A {value, unit} quantity of `kind` converted to `to`.
+double quantity(const json& obj, const std::string& path, dimension kind, const std::string& to) {
+    require_object(obj, path);
+    const auto value = optional_number(obj, "value", path);
+    const auto unit = optional_string(obj, "unit", path);
+    if (!value) throw input_error(path + "/value", "is required (a number)");
+    if (!unit) throw input_error(path + "/unit", "is required");
+    if (find_unit(*unit, path + "/unit").kind != kind)
+        throw input_error(path + "/unit", "must be " + std::string(kind == dimension::energy ? "an " : "a ") +
+                                              std::string(dimension_name(kind)) + " unit: " + accepted_units(kind));
+    return convert(*value, *unit, to, path + "/value");
+}
+
+std::array<double, 12> twelve_numbers(const json& obj, const std::string& key, const std::string& path) {
+    const auto& value = obj.at(key);
+    if (!value.is_array()) throw input_error(path + "/" + key, "must be an array of 12 numbers, January first");
+    if (value.size() != 12)
+        throw input_error(path + "/" + key, "needs 12 values (January first), got " + std::to_string(value.size()));
+    std::array<double, 12> out{};
+    for (std::size_t m = 0; m < 12; ++m) {
+        if (!value[m].is_number())
+            throw input_error(path + "/" + key + "/" + std::to_string(m), "must be a number, got " + std::string(value[m].type_name()));
+        out[m] = value[m].get<double>();
+    }
+    return out;
+}
+
+/// [K per input degree]: 1 for degC and K, 5/9 for degF.
+double degree_size(bool fahrenheit) { return fahrenheit ? 5.0 / 9.0 : 1.0; }
+
+}  // namespace
+
+climate_info read_climate(const json& climate) {
+    const std::string path = "/climate";
+    require_object(climate, path);
+    climate_info info;
+    const auto unit = optional_string(climate, "unit", path);
+    if (!unit) throw input_error(path + "/unit", "is required (degC or degF)");
+    if (*unit != "degC" && *unit != "degF")
+        throw input_error(path + "/unit", "must be degC or degF, got \"" + *unit + "\"");
+    info.fahrenheit = *unit == "degF";
+    const double k = degree_size(info.fahrenheit);
+    const auto to_c = [&](double t) { return convert(t, *unit, "degC"); };
+    info.base_c = climate.contains("base") ? temperature_c(climate.at("base"), path + "/base") : (info.fahrenheit ? to_c(65) : 18.3);
+    const bool leap = optional_bool(climate, "leap_year", path).value_or(false);
+    double range_k = default_daily_range_k;
+    bool range_given = false;
+    if (const auto range = optional_number(climate, "daily_range", path)) {
+        if (*range < 0 || *range > 40 / k)
+            throw input_error(path + "/daily_range", "must be a daily temperature range from 0 to " + fixed(40 / k, 0) +
+                                                         " " + *unit + ", got " + format_number(*range));
+        range_k = *range * k;
+        range_given = true;
+    }
+    if (climate.contains("design_temperature"))
+        info.given_design_c = temperature_c(climate.at("design_temperature"), path + "/design_temperature");
+    if (climate.contains("monthly_mean")) {
+        auto means = twelve_numbers(climate, "monthly_mean", path);
+        for (std::size_t m = 0; m < 12; ++m) {
+            const std::string item = path + "/monthly_mean/" + std::to_string(m);
+            means[m] = convert(means[m], *unit, "degC", item);
+            if (means[m] < -70 || means[m] > 50)
+                throw input_error(item, format_number(climate.at("monthly_mean")[m].get<double>()) + " " + *unit +
+                                            " is not a plausible monthly mean (it must lie between " +
+                                            (info.fahrenheit ? "-94 and 122 degF" : "-70 and 50 degC") + ")");
+        }
+        std::optional<std::array<double, 12>> sd;
+        if (climate.contains("monthly_sd")) {
+            auto values = twelve_numbers(climate, "monthly_sd", path);
+            for (std::size_t m = 0; m < 12; ++m) {
+                if (!(values[m] > 0) || values[m] * k > 25)
+                    throw input_error(path + "/monthly_sd/" + std::to_string(m),
+                                      "the standard deviation of daily means must be > 0 and at most " + fixed(25 / k, 0) +
+                                          " " + *unit + ", got " + format_number(values[m]));
+                values[m] *= k;
+            }
+            sd = values;
+        }
+        info.model = climate_from_means(means, sd, leap, range_k);
+    } else if (climate.contains("monthly_hdd")) {
+        auto hdd = twelve_numbers(climate, "monthly_hdd", path);
+        for (std::size_t m = 0; m < 12; ++m) {
+            if (hdd[m] < 0 || hdd[m] * k > 31 * 80)
+                throw input_error(path + "/monthly_hdd/" + std::to_string(m),
+                                  "must be from 0 to a plausible monthly total, got " + format_number(hdd[m]));
+            hdd[m] *= k;
+        }
+        info.model = climate_from_monthly_hdd(hdd, info.base_c, leap, range_k);
+    } else if (climate.contains("annual_hdd")) {
+        const auto annual = optional_number(climate, "annual_hdd", path);
+        if (!annual || *annual <= 0 || *annual * k > 15000)
+            throw input_error(path + "/annual_hdd", "must be a positive annual total of heating degree-days");
+        if (!info.given_design_c)
+            throw input_error(path + "/design_temperature", "is required with annual_hdd (the 99 % heating design temperature)");
+        info.model = climate_from_annual_hdd(*annual * k, info.base_c, *info.given_design_c, leap, range_k);
+    } else {
+        throw input_error(path, "give monthly_mean (12 values), monthly_hdd (12 values), or annual_hdd with design_temperature");
+    }
+    info.model.trace.push_back(range_given ? "daily range " + format_number(range_k / k) + " " + *unit + " as given"
+                                           : "daily range " + fixed(range_k / k, 0) + " " + *unit +
+                                                 " assumed (typical of inland mid-latitude sites; give daily_range)");
+    info.bins = hourly_bins(info.model, info.fahrenheit ? 2 * k : 1.0);
+    info.design_99_c = design_temperature(info.model, 0.01);
+    info.design_996_c = design_temperature(info.model, 0.004);
+    return info;
+}
+
+void read_demand(const json& demand, scenario& out, const json& options_json, std::vector<issue>& warnings) {
+    require_object(demand, "/demand");
+    out.demand_method = optional_string(demand, "method", "/demand").value_or("direct");
+    const auto& method = out.demand_method;
+    const bool us = out.settings.units == unit_system::us;
+    const auto energy_text = [&](double kwh) {
+        return us ? fixed(convert(kwh, "kWh", "MMBtu"), 2) + " MMBtu" : fixed(kwh, 0) + " kWh";
+    };
+    const auto temp_text = [&](double c) {
+        const bool f = out.climate ? out.climate->fahrenheit : us;
+        return f ? fixed(convert(c, "degC", "degF"), 1) + " degF" : fixed(c, 1) + " degC";
+    };
+    const auto need_climate = [&](const char* what) {
+        if (!out.climate) throw input_error("/climate", std::string("is required for ") + what);
+    };
+    if (demand.contains("balance_point")) out.balance_point_c = temperature_c(demand.at("balance_point"), "/demand/balance_point");
+    if (method == "direct") {
+        if (!demand.contains("annual_useful_heat"))
+            throw input_error("/demand/annual_useful_heat", "is required ({\"value\": ..., \"unit\": \"MMBtu\"})");
+        const auto& heat = demand.at("annual_useful_heat");
+        require_object(heat, "/demand/annual_useful_heat");
+        const double kwh = quantity(heat, "/demand/annual_useful_heat", dimension::energy, "kWh");
+        if (kwh <= 0)
+            throw input_error("/demand/annual_useful_heat/value", "must be > 0, got " + format_number(heat.at("value").get<double>()));
+        out.space_heat_kwh = kwh;
+        out.demand_trace.push_back("annual useful heat given directly: " + format_number(heat.at("value").get<double>()) +
+                                   " " + heat.at("unit").get<std::string>() + " = " + fixed(kwh, 1) + " kWh");
+        warn_unknown_keys(demand, {"method", "annual_useful_heat", "balance_point", "hot_water"}, "/demand", warnings);
+    } else if (method == "heat-loss") {
+        need_climate("the heat-loss method (degree-days come from it)");
+        double ua = 0;
+        std::optional<double> indoor_c;
+        if (demand.contains("indoor")) indoor_c = temperature_c(demand.at("indoor"), "/demand/indoor");
+        if (demand.contains("ua")) {
+            const auto& value = demand.at("ua");
+            require_object(value, "/demand/ua");
+            const auto number = optional_number(value, "value", "/demand/ua");
+            const auto unit = optional_string(value, "unit", "/demand/ua").value_or("");
+            if (!number) throw input_error("/demand/ua/value", "is required (a number)");
+            if (unit != "W/K" && unit != "Btu/h/degF")
+                throw input_error("/demand/ua/unit", "must be W/K or Btu/h/degF, got \"" + unit + "\"");
+            ua = unit == "W/K" ? *number : *number * constants::joule_per_btu / 3600.0 * 9.0 / 5.0;
+            if (ua <= 0) throw input_error("/demand/ua/value", "must be > 0, got " + format_number(*number));
+            out.demand_trace.push_back("UA " + format_number(*number) + " " + unit + " = " + fixed(ua, 1) + " W/K");
+        } else if (demand.contains("design_heat_loss")) {
+            const double watts = quantity(demand.at("design_heat_loss"), "/demand/design_heat_loss", dimension::power, "W");
+            if (watts <= 0) throw input_error("/demand/design_heat_loss/value", "must be > 0");
+            if (!indoor_c) throw input_error("/demand/indoor", "is required with design_heat_loss");
+            const double outdoor_c = demand.contains("design_outdoor")
+                                         ? temperature_c(demand.at("design_outdoor"), "/demand/design_outdoor")
+                                         : out.climate->given_design_c.value_or(out.climate->design_99_c);
+            if (*indoor_c - outdoor_c < 5)
+                throw input_error("/demand/design_outdoor", "the design outdoor temperature must be at least 5 K below indoor (" +
+                                                                temp_text(*indoor_c) + "), got " + temp_text(outdoor_c));
+            ua = watts / (*indoor_c - outdoor_c);
+            out.demand_trace.push_back("UA = design heat loss " + fixed(watts, 0) + " W / (" + temp_text(*indoor_c) + " - " +
+                                       temp_text(outdoor_c) + ") = " + fixed(ua, 1) + " W/K" +
+                                       (demand.contains("design_outdoor") ? "" : " (design outdoor temperature from the climate, 99 %)"));
+        } else {
+            throw input_error("/demand/ua", "give ua {value, unit} or design_heat_loss with indoor and design_outdoor");
+        }
+        out.ua_w_per_k = ua;
+        if (out.balance_point_c) {
+            out.demand_trace.push_back("balance point " + temp_text(*out.balance_point_c) + " as given");
+        } else if (demand.contains("internal_gains")) {
+            if (!indoor_c) throw input_error("/demand/indoor", "is required with internal_gains");
+            const double gains = quantity(demand.at("internal_gains"), "/demand/internal_gains", dimension::power, "W");
+            if (gains < 0) throw input_error("/demand/internal_gains/value", "must be >= 0");
+            out.balance_point_c = *indoor_c - gains / ua;
+            out.demand_trace.push_back("balance point = indoor " + temp_text(*indoor_c) + " - gains " + fixed(gains, 0) +
+                                       " W / UA = " + temp_text(*out.balance_point_c));
+        } else {
+            out.balance_point_c = out.climate->base_c;
+            out.balance_point_defaulted = true;
+            warnings.push_back({"/demand/balance_point", "no balance point or internal gains given; using the climate's "
+                                                         "degree-day base " + temp_text(out.climate->base_c)});
+        }
+        const auto monthly = monthly_hdd(out.climate->model, *out.balance_point_c);
+        const double hdd = std::accumulate(monthly.begin(), monthly.end(), 0.0);
+        double space = ua * hdd * 24.0 / 1000.0;
+        out.demand_trace.push_back("annual space heat = UA x HDD x 24 h = " + fixed(ua, 1) + " W/K x " + fixed(hdd, 0) +
+                                   " K day (base " + temp_text(*out.balance_point_c) + ") x 24 h = " + fixed(space, 0) + " kWh");
+        if (const auto cd = optional_number(demand, "degree_day_correction", "/demand")) {
+            if (*cd <= 0 || *cd > 1.2)
+                throw input_error("/demand/degree_day_correction", "C_D must be from above 0 to 1.2, got " + format_number(*cd));
+            space *= *cd;
+            out.demand_trace.push_back("x C_D " + format_number(*cd) +
+                                       " (degree-day correction factor as entered; ASHRAE Handbook—Fundamentals (1985-1993 "
+                                       "editions) gives 0.6-0.8 for a 65 degF base, from memory) = " + fixed(space, 0) + " kWh");
+        }
+        out.space_heat_kwh = space;
+        warn_unknown_keys(demand, {"method", "ua", "design_heat_loss", "indoor", "design_outdoor", "balance_point",
+                                   "internal_gains", "degree_day_correction", "hot_water"},
+                          "/demand", warnings);
+    } else if (method == "bills") {
+        need_climate("the bills method (the fit is against its degree-days)");
+        // The equipment that used the fuel: an option of the scenario, or its own fuel and system.
+        scenario_option equipment;
+        if (const auto id = optional_string(demand, "option", "/demand")) {
+            bool found = false;
+            for (std::size_t i = 0; i < options_json.size() && !found; ++i)
+                if (options_json[i].is_object() && options_json[i].value("id", "") == *id) {
+                    equipment = read_option(options_json[i], "/options/" + std::to_string(i), warnings);
+                    found = true;
+                }
+            if (!found) throw input_error("/demand/option", "no option has id \"" + *id + "\"");
+        } else {
+            if (!demand.contains("fuel") || !demand.contains("system"))
+                throw input_error("/demand/option", "give the id of the existing option, or fuel and system");
+            json pseudo = {{"id", "bills"}, {"fuel", demand.at("fuel")}, {"system", demand.at("system")},
+                           {"price", {{"amount", 0}, {"per", ""}}}};
+            // The price unit is only needed to check it; take the bills' unit.
+            if (demand.contains("bills") && demand.at("bills").is_array() && !demand.at("bills").empty() &&
+                demand.at("bills")[0].is_object())
+                pseudo["price"]["per"] = demand.at("bills")[0].value("unit", "");
+            std::vector<issue> ignored;
+            try {
+                equipment = read_option(pseudo, "/demand", ignored);
+            } catch (const input_error& error) {
+                std::string path = error.path();
+                if (path.rfind("/demand/price", 0) == 0) path = "/demand/bills/0/unit";
+                throw input_error(path, error.message());
+            }
+        }
+        const auto efficiency = seasonal_efficiency_hhv(equipment.system, equipment.fuel, "/demand/system");
+        if (!demand.contains("bills") || !demand.at("bills").is_array() || demand.at("bills").empty())
+            throw input_error("/demand/bills", "needs at least one bill {start, end, quantity, unit}");
+        const auto& list = demand.at("bills");
+        if (list.size() > 120) throw input_error("/demand/bills", "at most 120 bills, got " + std::to_string(list.size()));
+        std::vector<bill_period> bills;
+        for (std::size_t i = 0; i < list.size(); ++i) {
+            const std::string path = "/demand/bills/" + std::to_string(i);
+            const auto& item = list[i];
+            require_object(item, path);
+            const auto start = optional_string(item, "start", path);
+            const auto end = optional_string(item, "end", path);
+            if (!start) throw input_error(path + "/start", "is required (YYYY-MM-DD)");
+            if (!end) throw input_error(path + "/end", "is required (YYYY-MM-DD)");
+            const long first = parse_day_number(*start, path + "/start");
+            const long last = parse_day_number(*end, path + "/end");
+            if (last < first)
+                throw input_error(path + "/end", "the period " + *start + " to " + *end + " has no days (it ends before it starts)");
+            const auto amount = optional_number(item, "quantity", path);
+            if (!amount) throw input_error(path + "/quantity", "is required (a number)");
+            if (*amount < 0) throw input_error(path + "/quantity", "must be >= 0, got " + format_number(*amount));
+            const auto unit = optional_string(item, "unit", path);
+            if (!unit) throw input_error(path + "/unit", "is required (the unit the bill is in)");
+            const auto hv = heating_value_per_sale_unit(equipment.fuel, *unit, equipment.sale, path + "/unit");
+            bills.push_back({first, last, *amount * hv.hhv_j / 3.6e6});
+        }
+        std::vector<std::size_t> order(bills.size());
+        std::iota(order.begin(), order.end(), 0);
+        std::sort(order.begin(), order.end(), [&](auto a, auto b) { return bills[a].first_day < bills[b].first_day; });
+        long gap_days = 0;
+        for (std::size_t k = 1; k < order.size(); ++k) {
+            const auto& previous = bills[order[k - 1]];
+            const auto& current = bills[order[k]];
+            if (current.first_day <= previous.last_day)
+                throw input_error("/demand/bills/" + std::to_string(order[k]),
+                                  "overlaps bill " + std::to_string(order[k - 1]) + " (periods must not share days)");
+            gap_days += current.first_day - previous.last_day - 1;
+        }
+        if (gap_days > 0)
+            warnings.push_back({"/demand/bills", std::to_string(gap_days) + " days between bill periods are not covered"});
+        long total_days = 0;
+        double total_kwh = 0;
+        for (const auto& b : bills) {
+            total_days += b.last_day - b.first_day + 1;
+            total_kwh += b.fuel_kwh;
+        }
+        const double eta = efficiency.hhv_basis;
+        out.demand_trace.push_back("current equipment: " + equipment.fuel.name + ", " + efficiency.trace.front());
+        if (bills.size() < 3) {
+            if (total_days < 300)
+                throw input_error("/demand/bills", "needs at least 3 bills to fit against the weather, or bills covering a "
+                                                   "whole year; got " + std::to_string(bills.size()) + " covering " +
+                                                   std::to_string(total_days) + " days");
+            const double annual = total_kwh * 365.0 / total_days;
+            out.space_heat_kwh = annual * eta;
+            warnings.push_back({"/demand/bills", "an annual total alone is not weather-normalised: a mild or a cold year "
+                                                 "moves it directly"});
+            out.demand_trace.push_back("annual fuel " + energy_text(annual) + " (HHV) x " + fixed(eta, 3) + " = " +
+                                       energy_text(out.space_heat_kwh) + " useful (hot water and cooking, if any, included)");
+        } else {
+            const bool f = out.climate->fahrenheit;
+            const double tau_low = f ? convert(40, "degF", "degC") : 5.0;
+            const double tau_high = f ? convert(75, "degF", "degC") : 24.0;
+            const auto fit = fit_prism(bills, out.climate->model, tau_low, tau_high);
+            out.fit = fit;
+            out.fit_unit = "kWh";
+            out.balance_point_c = fit.tau_c;
+            out.space_heat_kwh = fit.heating_kwh * eta;
+            out.demand_uncertainty_kwh = fit.nac_standard_error_kwh * eta;
+            out.demand_trace.push_back("PRISM fit (Fels 1986) of " + std::to_string(bills.size()) + " bills: use per day = " +
+                                       fixed(fit.base_kwh_per_day, 2) + " kWh + " + fixed(fit.slope_kwh_per_k_day, 3) +
+                                       " kWh per K day x HDD per day to tau = " + temp_text(fit.tau_c) +
+                                       ", R^2 = " + fixed(fit.r2, 3));
+            out.demand_trace.push_back("normalised annual consumption " + energy_text(fit.nac_kwh) + " = base " +
+                                       energy_text(fit.base_annual_kwh) + " + heating " + energy_text(fit.heating_kwh) +
+                                       " (HHV; standard error " + energy_text(fit.nac_standard_error_kwh) + ")");
+            out.demand_trace.push_back("useful space heat = heating part x " + fixed(eta, 3) + " = " +
+                                       energy_text(out.space_heat_kwh) + "; the base part (hot water, cooking) is not counted");
+            if (fit.r2 < 0.7)
+                warnings.push_back({"/demand/bills", "poor fit (R^2 = " + fixed(fit.r2, 2) + " < 0.7): the bills do not follow "
+                                                     "the weather well; check the readings and the climate"});
+            if (fit.slope_kwh_per_k_day <= 0)
+                throw input_error("/demand/bills", "the bills show no heating use that rises with the cold (slope " +
+                                                       format_number(fit.slope_kwh_per_k_day) + ")");
+        }
+        if (bills.size() < 6)
+            warnings.push_back({"/demand/bills", "fewer than 6 bills (" + std::to_string(bills.size()) +
+                                                 "); 12 monthly bills give the most reliable fit"});
+        // A winter bill: one whose period touches one of the climate's three coldest months.
+        std::array<int, 12> by_cold{};
+        std::iota(by_cold.begin(), by_cold.end(), 0);
+        std::sort(by_cold.begin(), by_cold.end(),
+                  [&](int a, int b) { return out.climate->model.monthly_mean_c[a] < out.climate->model.monthly_mean_c[b]; });
+        bool winter = false;
+        for (const auto& b : bills)
+            for (long day = b.first_day; day <= b.last_day && !winter; ++day) {
+                const int m = month_of_day(day);
+                winter = m == by_cold[0] || m == by_cold[1] || m == by_cold[2];
+            }
+        if (!winter) warnings.push_back({"/demand/bills", "no bill covers the coldest months; the heating slope is uncertain"});
+        warn_unknown_keys(demand, {"method", "bills", "option", "fuel", "system", "balance_point", "hot_water"}, "/demand",
+                          warnings);
+    } else {
+        throw input_error("/demand/method", "unknown demand method \"" + method + "\"; accepted: direct, heat-loss, bills");
+    }
+    if (demand.contains("hot_water")) {
+        out.hot_water_kwh = quantity(demand.at("hot_water"), "/demand/hot_water", dimension::energy, "kWh");
+        if (out.hot_water_kwh < 0) throw input_error("/demand/hot_water/value", "must be >= 0");
+        out.demand_trace.push_back("plus domestic hot water " + energy_text(out.hot_water_kwh) + " useful per year");
+    }
+    out.annual_useful_heat_kwh = out.space_heat_kwh + out.hot_water_kwh;
+}
+
+}  // namespace fw
