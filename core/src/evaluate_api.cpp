@@ -3,6 +3,7 @@
 #include <nlohmann/json.hpp>
 
 #include "fw/api.hpp"
+#include "fw/embedded_data.hpp"
 #include "fw/json_fields.hpp"
 #include "fw/scenario.hpp"
 #include "fw/units.hpp"
@@ -276,6 +277,7 @@ std::string catalog_json() noexcept {
                     {"default_gwp_set", default_gwp_set()},
                     {"electricity_default",
                      {{"co2e_kg_per_kwh", electricity.co2e_kg_per_kwh}, {"year", electricity.year}, {"source", electricity.source}}},
+                    {"demo_climates", json::parse(detail::embedded_file("demo-climates.json")).at("climates")},
                     {"cautions", cautions()},
                     {"errors", json::array()},
                     {"warnings", json::array()}}

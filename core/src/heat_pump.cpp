@@ -30,6 +30,8 @@ heat_pump_season run_bins(const std::vector<temperature_bin>& bins, double ua_kw
                           const heat_pump_inputs& inputs) {
     heat_pump_season season;
     bool first_cop = true;
+    double coldest_c = inputs.points.front().outdoor_c;
+    for (const auto& p : inputs.points) coldest_c = std::min(coldest_c, p.outdoor_c);
     for (const auto& bin : bins) {
         heat_pump_bin out{bin.t_c, bin.hours, 0, 0, 0, 0, 0, 0, false, false};
         const double load = bin.t_c < balance_point_c ? ua_kw_per_k * (balance_point_c - bin.t_c) : 0.0;
@@ -41,7 +43,7 @@ heat_pump_season run_bins(const std::vector<temperature_bin>& bins, double ua_kw
         out.extrapolated = extrapolated;
         if (load > 0) {
             season.hours_below_balance_point += bin.hours;
-            if (extrapolated) season.extrapolated_hours += bin.hours;
+            if (extrapolated && bin.t_c < coldest_c) season.extrapolated_hours += bin.hours;
             out.off = (inputs.cutoff_c && bin.t_c < *inputs.cutoff_c) ||
                       (inputs.changeover_c && bin.t_c < *inputs.changeover_c) || rated.capacity_kw <= 0;
             if (out.off) {

@@ -192,9 +192,12 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
     r.ch4_kg = emitted.ch4_kg;
     r.n2o_kg = emitted.n2o_kg;
 
-    if (season.extrapolated_hours > 0)
-        r.warnings.push_back(fixed(season.extrapolated_hours, 0) + " heating hours lie outside the data sheet's "
-                             "temperatures; capacity and COP there are extrapolated linearly");
+    if (season.extrapolated_hours > 0) {
+        double coldest = points.front().outdoor_c;
+        for (const auto& p : points) coldest = std::min(coldest, p.outdoor_c);
+        r.warnings.push_back(fixed(season.extrapolated_hours, 0) + " heating hours are colder than the data sheet's coldest "
+                             "point (" + temp_text(coldest) + "); capacity and COP there are extrapolated linearly");
+    }
 
     // Trace.
     const bool us = input.settings.units == unit_system::us;

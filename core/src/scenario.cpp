@@ -135,6 +135,19 @@ fuel_record read_custom_fuel(const json& fuel, const std::string& path, std::vec
         else throw input_error(path + "/basis", "unknown basis \"" + basis + "\"; accepted: dry, as-received, daf");
         request.ultimate = ultimate;
     }
+    if (!request.ultimate)
+        for (const char* key : {"moisture", "basis"})
+            if (fuel.contains(key)) throw input_error(path + "/" + key, std::string(key) + " applies to an ultimate analysis only");
+    if (!request.compound)
+        for (const char* key : {"phase", "dhf_kj_per_mol", "hhv_kj_per_mol"})
+            if (fuel.contains(key)) throw input_error(path + "/" + key, std::string(key) + " applies to a formula only");
+    if (!request.mixture)
+        for (const char* key : {"fractions", "normalise"})
+            if (fuel.contains(key)) throw input_error(path + "/" + key, std::string(key) + " applies to a mixture only");
+    warn_unknown_keys(fuel, {"id", "name", "formula", "phase", "dhf_kj_per_mol", "hhv_kj_per_mol", "mixture", "fractions",
+                             "normalise", "ultimate", "moisture", "basis", "sale_unit", "density_kg_per_l", "reference",
+                             "biogenic", "ch4_kg_per_mmbtu", "n2o_kg_per_mmbtu"},
+                      path, warnings);
     auto record = make_custom_fuel(request, path);
     if (!request.ch4_kg_per_mmbtu || !request.n2o_kg_per_mmbtu)
         warnings.push_back({path, "no CH4 or N2O emission factor given for custom fuel " + request.id +
@@ -164,9 +177,13 @@ double read_power_kw(const json& value, const std::string& path) {
 
 void read_heat_pump_fields(const json& system, const std::string& path, scenario_option& option) {
     const bool heat_pump = is_heat_pump(option.system.kind);
-    for (const char* key : {"ratings", "cutoff", "cd", "backup", "changeover", "capacity"})
+    for (const char* key : {"ratings", "cutoff", "cd", "backup", "changeover", "capacity"}) {
         if (system.contains(key) && !heat_pump)
             throw input_error(path + "/" + key, std::string(key) + " applies to heat pumps only");
+        if (system.contains(key) && option.system.kind == system_kind::ground_source_heat_pump)
+            throw input_error(path + "/" + key, std::string(key) + " applies to air-source heat pumps: a ground-source heat "
+                                                "pump's COP follows its ground loop, not the outdoor air; give its COP or SCOP");
+    }
     if (const auto ratings = system.find("ratings"); ratings != system.end()) {
         if (!ratings->is_array() || ratings->size() < 2)
             throw input_error(path + "/ratings", "needs at least two data-sheet points (e.g. at 47, 17 and 5 degF)");
@@ -237,6 +254,7 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
     if (option.price_per_unit < 0)
         throw input_error(path + "/price/amount", "must be >= 0, got " + format_number(option.price_per_unit));
     option.price_unit = required_string(price, "per", path + "/price");
+    warn_unknown_keys(price, {"amount", "per"}, path + "/price", warnings);
 
     if (const auto bag = item.find("bag_mass"); bag != item.end()) {
         require_object(*bag, path + "/bag_mass");
@@ -253,6 +271,8 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
         option.sale.face_cord_fraction = fraction;
     }
     option.sale.wood_species = optional_string(item, "wood_species", path);
+    if (option.sale.wood_species && option.fuel.species_groups.empty())
+        throw input_error(path + "/wood_species", "applies to cordwood only; " + option.fuel.id + " has no wood species");
     option.moisture_pct = optional_number(item, "moisture_pct", path);
     if (option.moisture_pct && !(*option.moisture_pct >= 0 && *option.moisture_pct < 100))
         throw input_error(path + "/moisture_pct", "must be from 0 to below 100 %, got " + format_number(*option.moisture_pct));
@@ -299,6 +319,7 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
         option.system.efficiency_value = required_number(*efficiency, "value", system_path + "/efficiency");
         option.system.rating =
             parse_rating(required_string(*efficiency, "rating", system_path + "/efficiency"), system_path + "/efficiency/rating");
+        warn_unknown_keys(*efficiency, {"value", "rating"}, system_path + "/efficiency", warnings);
     } else if (system.contains("ratings") && is_heat_pump(option.system.kind)) {
         option.efficiency_given = false;
         option.system.efficiency_value = 1.0;  // replaced by the bin model's seasonal COP
@@ -331,6 +352,7 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
         const auto unit_text = required_string(*hv, "unit", hv_path);
         const auto [energy_unit, sale_unit] = energy_per_unit(unit_text, hv_path + "/unit");
         const auto basis = optional_string(*hv, "basis", hv_path).value_or("HHV");
+        warn_unknown_keys(*hv, {"value", "unit", "basis"}, hv_path, warnings);
         if (basis != "HHV" && basis != "LHV")
             throw input_error(hv_path + "/basis", "unknown basis \"" + basis + "\"; accepted: HHV, LHV");
         const auto given_unit = heating_value_per_sale_unit(option.fuel, sale_unit, option.sale, hv_path + "/unit");
@@ -407,6 +429,14 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
         if (!schema) warnings.push_back({"/schema", "missing; read as fuelwright.scenario/1"});
         else if (*schema != "fuelwright.scenario/1")
             throw input_error("/schema", "unsupported schema \"" + *schema + "\"; this version reads fuelwright.scenario/1");
+        if (document.contains("quote")) {
+            const auto& quote = document.at("quote");
+            require_object(quote, "/quote");
+            for (const char* key : {"customer", "site", "date", "prepared_by", "notes"}) optional_string(quote, key, "/quote");
+            if (const auto date = optional_string(quote, "date", "/quote"); date && !date->empty())
+                parse_day_number(*date, "/quote/date");
+            warn_unknown_keys(quote, {"customer", "site", "date", "prepared_by", "notes"}, "/quote", warnings);
+        }
         warn_unknown_keys(document, {"schema", "title", "description", "quote", "settings", "demand", "options", "climate",
                                      "economics", "uncertainty"},
                           "", warnings);
@@ -474,7 +504,8 @@ emissions emissions_of(const fuel_record& fuel, double fuel_kwh_hhv, const scena
 }
 
 option_result evaluate_option(const scenario& input, const scenario_option& option) {
-    if (is_heat_pump(option.system.kind) && input.climate) return evaluate_heat_pump_option(input, option);
+    if (option.system.kind == system_kind::air_source_heat_pump && input.climate)
+        return evaluate_heat_pump_option(input, option);
     if (!option.efficiency_given)
         throw input_error(option.path + "/system/ratings",
                           "data-sheet points need a climate (for the temperature bins); without one give efficiency");
@@ -562,6 +593,13 @@ option_result evaluate_option(const scenario& input, const scenario_option& opti
     r.trace.push_back("emissions " + emissions_line);
 
     r.sources = fuel.sources;
+    if (option.heating_value_override_j) {
+        // The given heating value replaces the catalog's HHV record.
+        r.sources.erase(std::remove_if(r.sources.begin(), r.sources.end(),
+                                       [&](const source_note& note) { return note.record == "fuels.json " + fuel.id + " HHV"; }),
+                        r.sources.end());
+        r.sources.insert(r.sources.begin(), {"scenario", option.heating_value_override_text, "given in the scenario"});
+    }
     r.sources.push_back({"emission factors", fuel.id, fuel.emissions.source});
     if (!fuel.emissions.per_kwh_setting) r.sources.push_back({"GWP " + gwp.id, "CH4 " + format_number(gwp.ch4) + ", N2O " + format_number(gwp.n2o), gwp.source});
     if (option.system_catalog) {

@@ -267,6 +267,25 @@ TEST(scenario_errors, scenario_level) {
               "expected '[', '{', or a literal");
 }
 
+TEST(scenario_errors, fields_that_do_not_apply) {
+    using strings = std::vector<std::string>;
+    EXPECT_EQ(errors_of(one_option({{"wood_species", "red-oak"}})),
+              strings{"/options/0/wood_species: applies to cordwood only; natural-gas has no wood species"});
+    EXPECT_EQ(errors_of(one_option({{"fuel", {{"id", "x"}, {"mixture", "CH4:1"}, {"moisture", 10}, {"sale_unit", "m3"}}},
+                                    {"price", {{"per", "m3"}}}})),
+              strings{"/options/0/fuel/moisture: moisture applies to an ultimate analysis only"});
+    EXPECT_EQ(errors_of(one_option({{"system", {{"cd", 0.2}}}})), strings{"/options/0/system/cd: cd applies to heat pumps only"});
+    auto scenario = one_option(json::object());
+    scenario["quote"] = {{"customer", "A. Client"}, {"date", "2026-13-01"}};
+    EXPECT_EQ(errors_of(scenario), strings{"/quote/date: date \"2026-13-01\" does not exist"});
+    scenario["quote"] = {{"customer", "A. Client"}, {"date", "1/12/2026"}};
+    EXPECT_EQ(errors_of(scenario), strings{"/quote/date: date \"1/12/2026\" must be written YYYY-MM-DD"});
+    auto typo = one_option({{"system", {{"efficency", 3}}}});
+    const auto result = evaluate(typo);
+    ASSERT_EQ(result.at("warnings").size(), 1u) << result.dump();
+    EXPECT_EQ(result.at("warnings")[0].at("path"), "/options/0/system/efficency");
+}
+
 TEST(scenario_errors, all_problems_are_reported_at_once) {
     auto scenario = one_option({{"price", {{"amount", -1}}}});
     scenario["options"].push_back({{"id", "b"}, {"fuel", "peat"}, {"price", {{"amount", 1}, {"per", "kg"}}},

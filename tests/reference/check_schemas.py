@@ -197,6 +197,13 @@ BAD = {
     "empty options": lambda d: d.update(options=[]),
     "31 options": lambda d: d.update(options=[dict(option(d), id=f"o{i}") for i in range(31)]),
     "missing demand": lambda d: d.pop("demand"),
+    "heat-loss demand without UA or design load": lambda d: d.update(demand={"method": "heat-loss"}),
+    "bills demand without bills": lambda d: d.update(demand={"method": "bills", "option": "gas"}),
+    "climate with 11 monthly means": lambda d: d.update(climate={"monthly_mean": [0] * 11, "unit": "degC"}),
+    "climate in kelvin": lambda d: d.update(climate={"monthly_mean": [270] * 12, "unit": "K"}),
+    "heat-pump point with COP below 1": lambda d: option(d)["system"].update(
+        ratings=[{"outdoor": {"value": 47, "unit": "degF"}, "capacity": {"value": 1, "unit": "kW"}, "cop": 0.8},
+                 {"outdoor": {"value": 17, "unit": "degF"}, "capacity": {"value": 1, "unit": "kW"}, "cop": 2}]),
     "wrong schema version": lambda d: d.update(schema="fuelwright.scenario/2"),
     "unknown top-level key": lambda d: d.update(optoins=[]),
     "direct demand without annual_useful_heat": lambda d: d["demand"].pop("annual_useful_heat"),
@@ -254,8 +261,20 @@ for name, change in BAD.items():
 GOOD = {
     "efficiency left to the catalog": lambda d: option(d)["system"].update(
         catalog="gas-furnace-condensing") or option(d)["system"].pop("efficiency"),
-    "a reserved demand method without annual_useful_heat": lambda d: d.update(demand={"method": "heat-loss"}),
-    "reserved top-level objects": lambda d: d.update(climate={}, economics={"years": 15}, uncertainty={}),
+    "heat-loss demand by UA with a climate": lambda d: d.update(
+        demand={"method": "heat-loss", "ua": {"value": 300, "unit": "W/K"},
+                "balance_point": {"value": 16, "unit": "degC"}},
+        climate={"monthly_mean": [-5, -3, 2, 8, 14, 19, 22, 21, 16, 10, 4, -2], "unit": "degC"}),
+    "bills demand naming an option": lambda d: d.update(
+        demand={"method": "bills", "option": "a",
+                "bills": [{"start": "2025-01-01", "end": "2025-01-31", "quantity": 98.5, "unit": "therm"}]},
+        climate={"annual_hdd": 5000, "unit": "degF", "design_temperature": {"value": 5, "unit": "degF"}}),
+    "free economics and uncertainty objects": lambda d: d.update(economics={"years": 15}, uncertainty={}),
+    "heat pump with data-sheet points": lambda d: option(d).update(
+        fuel="electricity", price={"amount": 0.16, "per": "kWh"},
+        system={"kind": "air-source-heat-pump", "backup": "electric-resistance", "cd": 0.25,
+                "ratings": [{"outdoor": {"value": 47, "unit": "degF"}, "capacity": {"value": 36000, "unit": "Btu/h"}, "cop": 3.8},
+                            {"outdoor": {"value": 17, "unit": "degF"}, "capacity": {"value": 24000, "unit": "Btu/h"}, "cop": 2.5}]}),
     "custom fuel by mixture sold per m3": lambda d: option(d).update(
         fuel={"id": "bio", "mixture": "CH4:0.6,CO2:0.4", "sale_unit": "m3", "reference": "0C"},
         price={"amount": 0.3, "per": "m3"}),

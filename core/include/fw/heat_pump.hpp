@@ -39,7 +39,7 @@ struct heat_pump_season {
     std::vector<heat_pump_bin> bins;
     double load_kwh = 0, heat_pump_heat_kwh = 0, heat_pump_kwh = 0, backup_heat_kwh = 0;
     double hours_below_balance_point = 0;
-    double extrapolated_hours = 0;
+    double extrapolated_hours = 0;   ///< heating hours colder than the coldest data-sheet point
     double lowest_bin_cop = 0, highest_bin_cop = 0;
     /// [1] heat delivered / (compressor electricity + backup heat as resistance electricity)
     double seasonal_cop_with_resistance() const { return load_kwh / (heat_pump_kwh + backup_heat_kwh); }
