@@ -15,6 +15,7 @@ std::string convert(const std::string& request) { return fw::convert_json(reques
 std::string units() { return fw::units_json(); }
 std::string evaluate(const std::string& scenario) { return fw::evaluate_json(scenario); }
 std::string catalog() { return fw::catalog_json(); }
+std::string climate(const std::string& request) { return fw::climate_json(request); }
 
 }  // namespace
 
@@ -24,4 +25,5 @@ EMSCRIPTEN_BINDINGS(fuelwright_core) {
     emscripten::function("units", &units);
     emscripten::function("evaluate", &evaluate);
     emscripten::function("catalog", &catalog);
+    emscripten::function("climate", &climate);
 }
