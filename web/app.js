@@ -1,56 +1,770 @@
-// Controller: creates the core client and the views, wires the form, and
-// runs the built-in example on load.
+// Controller: creates the core client, the store and the views, and wires
+// them: typing -> store -> (debounced) evaluate in the worker -> verdict,
+// quote sheet and autosave. One role per module; this one only connects them.
 import { CoreClient } from './core-client.js';
-import { clear, showErrors, showHeatingValue, showStatus } from './view.js';
+import { h } from './dom.js';
+import { bindFields, showFieldErrors } from './fields.js';
+import { createFormat, isCurrency, isLocale } from './format.js';
+import { demoWorkspace } from './demo.js';
 import { registerServiceWorker } from './offline.js';
+import { renderQuoteSheet } from './print.js';
+import {
+  HEAT_PUMP_KINDS, blankWorkspace, fromScenario, fuelId, newFuelKey, toScenario, today, uniqueSystemId,
+} from './scenario.js';
+import {
+  currentQuoteId, isCurrentRecord, loadPreferences, makeRecord, newId, openQuotes, savePreferences, setCurrentQuoteId,
+} from './storage.js';
+import { Store } from './store.js';
+import { DISPLAY, convert, convertQuantity, convertTemperature, convertTemperatureDifference, unitLabel } from './units.js';
+import { renderFuels, saleUnitsOf, fuelName } from './views/fuels.js';
+import { renderHouse } from './views/house.js';
+import { renderLab } from './views/lab.js';
+import { renderQuotes } from './views/quotes.js';
+import { KIND_NAMES, renderSystems } from './views/systems.js';
+import { openTrace } from './views/trace.js';
+import { bindVerdict, renderVerdict, resultsCsv } from './views/verdict.js';
 
-const EXAMPLE_REQUEST = { formula: 'C3H8' };  // propane
+const EVALUATE_DEBOUNCE_MS = 150;
+const SWEEP_DEBOUNCE_MS = 350;
+const SAVE_DEBOUNCE_MS = 400;
+const SWEEP_POINTS = 11;
+const LOCALES = [['en-US', 'English (US) 1,234.5'], ['en-CA', 'English (Canada)'], ['en-GB', 'English (UK)'], ['fr-CA', 'Français (Canada) 1 234,5'],
+  ['de-DE', 'Deutsch 1.234,5'], ['fr-FR', 'Français 1 234,5'], ['nb-NO', 'Norsk 1 234,5'], ['sv-SE', 'Svenska'], ['nl-NL', 'Nederlands'], ['es-ES', 'Español']];
 
+const $ = (selector) => document.querySelector(selector);
 const core = new CoreClient();
+const store = new Store(blankWorkspace());
+const localErrors = new Map();
+const panels = {};
+const prefs = { locale: 'en-US', tab: 'house', ...loadPreferences() };
+if (!isLocale(prefs.locale)) prefs.locale = 'en-US';
 
-async function computeInto(container, errorTarget, request) {
-  showStatus(container, 'Computing…');
-  showErrors(errorTarget, []);
-  try {
-    const result = await core.heatingValue(request);
-    if (Array.isArray(result.errors) && result.errors.length) {
-      clear(container);
-      showErrors(errorTarget, result.errors);
-      return;
+const verdict = { result: null, errors: [], sweep: null, by: 'annual', fieldErrorCount: 0, sweepFuel: null };
+const quotes = { records: [], currentId: null, query: '', storageKind: '', undo: null };
+let storage = null;
+let evaluateTimer = 0;
+let sweepTimer = 0;
+let saveTimer = 0;
+let generation = 0;
+let sweepGeneration = 0;
+let undoTimer = 0;
+let verdictBody = null;
+
+const ctx = {
+  store,
+  core,
+  catalog: null,
+  get locale() { return prefs.locale; },
+  format: createFormat({ locale: prefs.locale, currency: 'USD' }),
+  onField,
+  onLocalError: () => { showErrors(); },
+  renderLab: (slot) => renderLab(slot, ctx),
+  addCustomFuel,
+  onSearch: (query) => { quotes.query = query; paintQuotes(); },
+};
+
+// ---------------------------------------------------------------------------
+// Rendering
+
+function refreshFormat() {
+  const currency = isCurrency(store.state.settings.currency) ? store.state.settings.currency : 'USD';
+  ctx.format = createFormat({ locale: prefs.locale, currency });
+}
+
+/** Re-renders while keeping the focused control (by id) and its caret. */
+function keepingFocus(fn) {
+  const active = document.activeElement;
+  const id = active?.id;
+  const caret = active && 'selectionStart' in active ? [active.selectionStart, active.selectionEnd] : null;
+  fn();
+  if (id && document.activeElement !== active) {
+    const again = document.getElementById(id);
+    if (again) {
+      again.focus({ preventScroll: true });
+      if (caret && 'setSelectionRange' in again) { try { again.setSelectionRange(...caret); } catch { /* not a text input */ } }
     }
-    showHeatingValue(container, result);
-  } catch (error) {
-    clear(container);
-    showErrors(errorTarget, error);
   }
 }
 
-function start() {
-  const exampleResult = document.getElementById('example-result');
-  const form = document.getElementById('hv-form');
-  const input = document.getElementById('formula-input');
-  const submit = document.getElementById('hv-submit');
-  const result = document.getElementById('hv-result');
-  const error = document.getElementById('hv-error');
+function paintInputs() {
+  keepingFocus(() => {
+    renderHouse(panels.house, ctx);
+    renderFuels(panels.fuels, ctx);
+    renderSystems(panels.systems, ctx);
+  });
+  showErrors();
+}
 
-  // The example has no error line of its own: failures show in its container.
-  const exampleError = document.createElement('p');
-  exampleError.className = 'error';
-  exampleError.hidden = true;
-  exampleResult.after(exampleError);
-  computeInto(exampleResult, exampleError, EXAMPLE_REQUEST);
+function paintHeader() {
+  const ws = store.state;
+  $('#units-us').checked = ws.settings.units === 'us';
+  $('#units-metric').checked = ws.settings.units === 'metric';
+  const energy = $('#energy-unit');
+  energy.replaceChildren(...DISPLAY[ws.settings.units].energyChoices.map((u) => h('option', { value: u, text: unitLabel(u), selected: u === ws.settings.energy_unit })));
+  const currency = $('#currency');
+  if (document.activeElement !== currency) currency.value = ws.settings.currency;
+  applyPaper();
+}
 
-  form.addEventListener('submit', async (event) => {
+function paintVerdict() {
+  keepingFocus(() => renderVerdict(verdictBody, ctx, verdict));
+  paintSummary();
+}
+
+function paintSummary() {
+  const bar = $('#summary-bar');
+  const r = verdict.result;
+  const best = r?.ranking?.[0] && r.options?.find((o) => o.id === r.ranking[0].id);
+  if (!best || r.errors?.length) {
+    $('#summary-text').textContent = verdict.errors.length || verdict.fieldErrorCount ? 'Some entries need attention.' : '';
+  } else {
+    $('#summary-text').textContent = `Cheapest to run: ${best.label ?? best.id}, ${ctx.format.money(best.annual_cost)} a year`;
+  }
+  bar.hidden = !$('#summary-text').textContent;
+}
+
+function paintQuotes() {
+  keepingFocus(() => renderQuotes(panels.saved, ctx, quotes));
+}
+
+function paintSheet() {
+  renderQuoteSheet($('#quote-sheet'), ctx, verdict.result);
+}
+
+function showErrors() {
+  const errors = verdict.result?.errors ?? [];
+  const roots = [panels.house, panels.fuels, panels.systems];
+  const { unplaced, counts } = showFieldErrors(roots, errors, store.state, localErrors);
+  verdict.errors = unplaced;
+  verdict.fieldErrorCount = [...counts.values()].reduce((a, b) => a + b, 0);
+  for (const [name, root] of Object.entries({ house: panels.house, fuels: panels.fuels, systems: panels.systems })) {
+    const tab = $(`#tab-${name}`);
+    const n = counts.get(root) ?? 0;
+    tab.querySelector('.count')?.remove();
+    if (n) tab.append(h('span', { class: 'count', 'aria-label': `${n} to fix`, text: String(n) }));
+  }
+}
+
+function setTab(name) {
+  prefs.tab = name;
+  savePreferences(prefs);
+  for (const tab of document.querySelectorAll('[role="tab"]')) {
+    const on = tab.dataset.tab === name;
+    tab.setAttribute('aria-selected', String(on));
+    tab.tabIndex = on ? 0 : -1;
+  }
+  for (const [key, panel] of Object.entries(panels)) panel.classList.toggle('active', key === name);
+  document.body.dataset.tab = name;
+}
+
+// ---------------------------------------------------------------------------
+// Evaluation
+
+function setProgress(state) {
+  const box = $('#progress');
+  const bar = $('#progress-bar');
+  if (!state) {
+    box.hidden = true;
+    $('#verdict-state').textContent = '';
+    return;
+  }
+  box.hidden = false;
+  if (state.total) {
+    const pct = Math.round((100 * state.done) / state.total);
+    bar.style.width = `${pct}%`;
+    bar.setAttribute('aria-valuenow', String(pct));
+    bar.classList.remove('indeterminate');
+  } else {
+    bar.style.width = '';
+    bar.removeAttribute('aria-valuenow');
+    bar.classList.add('indeterminate');
+  }
+  $('#verdict-state').textContent = state.label ?? 'Working out…';
+}
+
+function scheduleEvaluate(delay = EVALUATE_DEBOUNCE_MS) {
+  clearTimeout(evaluateTimer);
+  evaluateTimer = setTimeout(evaluate, delay);
+}
+
+async function evaluate() {
+  const ws = store.state;
+  const gen = ++generation;
+  verdictBody.dataset.state = 'loading';
+  if (!ws.systems.length) {
+    verdict.result = null;
+    verdict.sweep = null;
+    showErrors();
+    paintVerdict();
+    paintSheet();
+    verdictBody.dataset.state = 'empty';
+    return;
+  }
+  const scenario = toScenario(ws);
+  const slow = ws.uncertainty?.enabled;
+  setProgress({ label: slow ? 'Working out the price draws…' : 'Working out…' });
+  try {
+    const result = await core.evaluate(scenario, { timeoutMs: slow ? 60_000 : 20_000 });
+    if (gen !== generation) return;
+    verdict.result = result;
+    verdict.sweep = null;
+    showErrors();
+    paintVerdict();
+    paintSheet();
+    verdictBody.dataset.state = result.errors?.length ? 'errors' : 'done';
+    verdictBody.dataset.generation = String(gen);
+    setProgress(null);
+    if (!result.errors?.length) scheduleSweep();
+  } catch (failure) {
+    if (gen !== generation) return;
+    verdict.result = null;
+    verdict.errors = [{ path: '', message: failure.message }];
+    paintVerdict();
+    verdictBody.dataset.state = 'failed';
+    setProgress(null);
+  }
+}
+
+function scheduleSweep() {
+  clearTimeout(sweepTimer);
+  sweepTimer = setTimeout(runSweep, SWEEP_DEBOUNCE_MS);
+}
+
+function defaultSweepFuel(ws, result) {
+  if (Number.isInteger(verdict.sweepFuel) && ws.fuels[verdict.sweepFuel]) return verdict.sweepFuel;
+  const bestId = result.ranking?.[0]?.id;
+  const sys = ws.systems.find((s) => s.id === bestId);
+  const index = ws.fuels.findIndex((f) => f.key === sys?.fuel_key);
+  return index >= 0 ? index : 0;
+}
+
+async function runSweep() {
+  const ws = store.state;
+  const result = verdict.result;
+  if (!result?.options?.length || !ws.fuels.length) return;
+  const gen = generation;
+  const sweepGen = ++sweepGeneration;
+  const fuelIndex = defaultSweepFuel(ws, result);
+  const entry = ws.fuels[fuelIndex];
+  const now = Number(entry.price?.amount) || 0;
+  const top = now > 0 ? now * 2 : 1;
+  const prices = Array.from({ length: SWEEP_POINTS }, (_, i) => (top * i) / (SWEEP_POINTS - 1));
+  const options = ws.systems.map((s, i) => (s.fuel_key === entry.key ? i : -1)).filter((i) => i >= 0);
+  if (!options.length) {
+    verdict.sweep = { fuelIndex, points: [], optionIds: [] };
+    paintVerdict();
+    return;
+  }
+  try {
+    const reply = await core.priceSweep({ scenario: toScenario(ws), options, prices }, {
+      onProgress: (p) => { if (sweepGen === sweepGeneration) setProgress({ ...p, label: 'Working out the price chart…' }); },
+    });
+    if (gen !== generation || sweepGen !== sweepGeneration) return;
+    verdict.sweep = { fuelIndex, points: reply.points, optionIds: options.map((i) => ws.systems[i].id) };
+    paintVerdict();
+    verdictBody.dataset.sweep = String(gen);
+  } catch (failure) {
+    console.warn('price chart unavailable:', failure.message);
+  } finally {
+    if (sweepGen === sweepGeneration) setProgress(null);
+  }
+}
+
+// ---------------------------------------------------------------------------
+// Saving
+
+function scheduleSave() {
+  clearTimeout(saveTimer);
+  saveTimer = setTimeout(saveNow, SAVE_DEBOUNCE_MS);
+}
+
+async function saveNow() {
+  clearTimeout(saveTimer);
+  if (!storage) return;
+  const ws = store.state;
+  const existing = quotes.records.find((r) => r.id === quotes.currentId);
+  const record = makeRecord({ id: quotes.currentId ?? newId(), createdAt: existing?.created_at, workspace: structuredClone(ws), scenario: toScenario(ws) });
+  quotes.currentId = record.id;
+  setCurrentQuoteId(record.id);
+  await storage.put(record);
+  const i = quotes.records.findIndex((r) => r.id === record.id);
+  if (i >= 0) quotes.records[i] = record;
+  else quotes.records.push(record);
+  document.body.dataset.saved = record.updated_at;
+  if (prefs.tab === 'saved') paintQuotes();
+}
+
+async function openWorkspace(ws, { id = newId(), save = true } = {}) {
+  await flushSave();
+  quotes.currentId = id;
+  setCurrentQuoteId(id);
+  localErrors.clear();
+  verdict.sweepFuel = null;
+  store.replace(ws);
+  if (save) await saveNow();
+  paintQuotes();
+}
+
+async function flushSave() {
+  if (saveTimer) {
+    clearTimeout(saveTimer);
+    saveTimer = 0;
+    await saveNow();
+  }
+}
+
+// ---------------------------------------------------------------------------
+// Editing
+
+function autoLabel(ws, sys) {
+  const entry = ws.fuels.find((f) => f.key === sys.fuel_key);
+  return `${KIND_NAMES[sys.system?.kind] ?? 'System'}${entry ? `, ${fuelName(entry, ctx.catalog)}` : ''}`;
+}
+
+function fitSystemToCatalog(ws, sys) {
+  const entry = ws.fuels.find((f) => f.key === sys.fuel_key);
+  const fid = fuelId(entry);
+  const kind = sys.system.kind;
+  const model = ctx.catalog.systemsById.get(sys.system.catalog);
+  const fits = (m) => m && m.kind === kind && (!fid || typeof entry?.fuel === 'object' || m.fuels.includes(fid));
+  if (!fits(model)) {
+    const next = ctx.catalog.systems.find(fits);
+    sys.system.catalog = next?.id ?? '';
+    if (next) sys.system.efficiency = { value: next.typical.value, rating: next.typical.rating };
+  }
+  const current = ctx.catalog.systemsById.get(sys.system.catalog);
+  if (current && !current.ratings.includes(sys.system.efficiency?.rating)) {
+    sys.system.efficiency = { value: current.typical.value, rating: current.typical.rating };
+  }
+  if (sys.label_auto) sys.label = autoLabel(ws, sys);
+}
+
+function onField(path, value, { structural }) {
+  const ws = store.state;
+  let m;
+  if ((m = /^\/fuels\/(\d+)\/fuel$/.exec(path))) {
+    const entry = ws.fuels[Number(m[1])];
+    store.mutate(() => {
+      entry.fuel = value === 'custom' ? { kind: 'formula', id: 'custom-fuel', name: 'Custom fuel', formula: '', sale_unit: 'kg' } : value;
+      const units = saleUnitsOf(entry, ctx.catalog);
+      if (!units.includes(entry.price?.per)) entry.price = { ...entry.price, per: units[0] };
+      for (const sys of ws.systems) if (sys.fuel_key === entry.key) fitSystemToCatalog(ws, sys);
+    });
+    return;
+  }
+  if ((m = /^\/fuels\/(\d+)\/fuel\/sale_unit$/.exec(path))) {
+    const entry = ws.fuels[Number(m[1])];
+    store.mutate(() => {
+      entry.fuel.sale_unit = value || undefined;
+      entry.price = { ...entry.price, per: value || undefined };
+    });
+    return;
+  }
+  if ((m = /^\/fuels\/(\d+)\/heating_value\/value$/.exec(path))) {
+    const card = panels.fuels.querySelectorAll('.fuel-card')[Number(m[1])];
+    const entry = ws.fuels[Number(m[1])];
+    if (value === undefined) { store.set(`/fuels/${m[1]}/heating_value`, undefined); return; }
+    if (!entry.heating_value?.unit) {
+      const energy = card?.querySelector('[data-part="energy"]')?.value ?? 'Btu';
+      const per = card?.querySelector('[data-part="per"]')?.value ?? entry.price?.per;
+      store.set(`/fuels/${m[1]}/heating_value/unit`, `${energy}/${per}`);
+    }
+    store.set(path, value);
+    return;
+  }
+  if ((m = /^\/systems\/(\d+)\/(fuel_key|system\/kind|system\/catalog)$/.exec(path))) {
+    const sys = ws.systems[Number(m[1])];
+    store.mutate(() => {
+      if (m[2] === 'fuel_key') sys.fuel_key = value;
+      else if (m[2] === 'system/kind') sys.system.kind = value;
+      else {
+        sys.system.catalog = value;
+        const model = ctx.catalog.systemsById.get(value);
+        if (model && !model.ratings.includes(sys.system.efficiency?.rating)) sys.system.efficiency = { ...model.typical };
+      }
+      if (m[2] !== 'system/catalog') fitSystemToCatalog(ws, sys);
+      if (sys.label_auto) sys.label = autoLabel(ws, sys);
+    });
+    return;
+  }
+  if ((m = /^\/systems\/(\d+)\/label$/.exec(path))) {
+    ws.systems[Number(m[1])].label_auto = false;
+    store.set(path, value);
+    const head = panels.systems.querySelectorAll('.system-card h3')[Number(m[1])];
+    if (head) head.textContent = value || ws.systems[Number(m[1])].id;
+    return;
+  }
+  if ((m = /^\/systems\/(\d+)\/existing$/.exec(path)) && value) {
+    store.mutate(() => ws.systems.forEach((s, i) => { s.existing = i === Number(m[1]); }));
+    return;
+  }
+  if (path === '/quote/customer' || path === '/quote/site' || path === '/quote/date') {
+    store.set(path, value);
+    return;
+  }
+  store.set(path, value, { structural });
+}
+
+function addCustomFuel(fuel) {
+  store.mutate((ws) => {
+    ws.fuels.push({ key: newFuelKey(ws), fuel, price: { per: fuel.sale_unit }, fixed_charges: [] });
+  });
+  setTab('fuels');
+  panels.fuels.querySelector('.fuel-card:last-of-type')?.scrollIntoView({ block: 'start' });
+}
+
+function addFuel(id) {
+  store.mutate((ws) => {
+    const entry = { key: newFuelKey(ws), fuel: id === 'custom' ? { kind: 'formula', id: 'custom-fuel', name: 'Custom fuel', formula: '', sale_unit: 'kg' } : id, price: {}, fixed_charges: [] };
+    entry.price.per = saleUnitsOf(entry, ctx.catalog)[0];
+    ws.fuels.push(entry);
+  });
+  const cards = panels.fuels.querySelectorAll('.fuel-card');
+  cards[cards.length - 1]?.querySelector('[data-path$="/price/amount"]')?.focus();
+}
+
+function addSystem(kind) {
+  store.mutate((ws) => {
+    const electric = kind === 'electric-resistance' || HEAT_PUMP_KINDS.includes(kind);
+    const fuel = ws.fuels.find((f) => (fuelId(f) === 'electricity') === electric) ?? ws.fuels[0];
+    const sys = { id: '', label: '', label_auto: true, fuel_key: fuel?.key ?? '', system: { kind, catalog: '', efficiency: { rating: '' }, ratings: [] } };
+    fitSystemToCatalog(ws, sys);
+    if (!sys.system.efficiency?.rating) sys.system.efficiency = { rating: electric ? 'COP' : 'thermal' };
+    sys.id = uniqueSystemId(ws, `${kind}-${fuelId(fuel) || 'fuel'}`);
+    sys.label = autoLabel(ws, sys);
+    ws.systems.push(sys);
+  });
+  const cards = panels.systems.querySelectorAll('.system-card');
+  cards[cards.length - 1]?.querySelector('[data-path$="/label"]')?.focus();
+}
+
+/** Switches the unit system, converting every entered quantity with a known factor. */
+function switchUnits(system) {
+  store.mutate((ws) => {
+    if (ws.settings.units === system) return;
+    ws.settings.units = system;
+    ws.settings.energy_unit = DISPLAY[system].energyChoices[0];
+    const d = ws.demand;
+    for (const key of ['annual_useful_heat', 'balance_point', 'ua', 'design_heat_loss', 'indoor', 'design_outdoor', 'internal_gains', 'hot_water']) {
+      d[key] = convertUnitOnly(convertQuantity(d[key], system), system);
+    }
+    const c = ws.climate;
+    const want = DISPLAY[system].temperature;
+    if (c.unit !== want) {
+      c.monthly_mean = (c.monthly_mean ?? []).map((v) => (typeof v === 'number' ? convertTemperature(v, c.unit, want) : v));
+      c.monthly_hdd = (c.monthly_hdd ?? []).map((v) => (typeof v === 'number' ? convertTemperatureDifference(v, c.unit, want) : v));
+      if (Array.isArray(c.monthly_sd)) c.monthly_sd = c.monthly_sd.map((v) => (typeof v === 'number' ? convertTemperatureDifference(v, c.unit, want) : v));
+      if (typeof c.annual_hdd === 'number') c.annual_hdd = convertTemperatureDifference(c.annual_hdd, c.unit, want);
+      c.unit = want;
+    }
+    c.base = convertUnitOnly(convertQuantity(c.base, system), system);
+    c.design_temperature = convertUnitOnly(convertQuantity(c.design_temperature, system), system);
+    if (c.daily_range?.unit && c.daily_range.unit !== want) {
+      c.daily_range = typeof c.daily_range.value === 'number'
+        ? { value: convertTemperatureDifference(c.daily_range.value, c.daily_range.unit, want), unit: want } : { unit: want };
+    }
+    for (const sys of ws.systems) {
+      const s = sys.system;
+      for (const point of s.ratings ?? []) {
+        point.outdoor = convertUnitOnly(convertQuantity(point.outdoor, system), system);
+        point.capacity = convertUnitOnly(convertQuantity(point.capacity, system), system);
+      }
+      for (const key of ['cutoff', 'changeover', 'capacity']) if (s[key]) s[key] = convertUnitOnly(convertQuantity(s[key], system), system);
+    }
+    for (const entry of ws.fuels) if (entry.bag_mass) entry.bag_mass = convertQuantity(entry.bag_mass, system);
+  }, { reason: 'load' });
+}
+
+/** A quantity with a unit but no value yet takes the new system's unit. */
+function convertUnitOnly(q, system) {
+  if (!q || typeof q.value === 'number' || !q.unit) return q;
+  try {
+    const probe = convertQuantity({ value: 1, unit: q.unit }, system);
+    return { ...q, unit: probe.unit };
+  } catch {
+    return q;
+  }
+}
+
+// ---------------------------------------------------------------------------
+// Files
+
+function download(name, type, text) {
+  const url = URL.createObjectURL(new Blob([text], { type }));
+  const a = h('a', { href: url, download: name, hidden: true });
+  document.body.append(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 1000);
+}
+
+function fileStem(ws) {
+  const base = [ws.quote.customer, ws.quote.date].filter(Boolean).join(' ') || 'quote';
+  return `fuelwright-${base.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60) || 'quote'}`;
+}
+
+async function importFile(file) {
+  const msg = $('#import-msg');
+  try {
+    const doc = JSON.parse(await file.text());
+    const ws = fromScenario(doc);
+    await openWorkspace(ws);
+    msg.textContent = `Imported “${file.name}”.`;
+    msg.className = 'field-msg ok';
+    msg.hidden = false;
+  } catch (failure) {
+    const again = $('#import-msg');
+    again.textContent = `Could not import “${file.name}”: ${failure.message}`;
+    again.className = 'field-msg';
+    again.hidden = false;
+  }
+}
+
+// ---------------------------------------------------------------------------
+// Actions
+
+const ACTIONS = {
+  'add-fuel': () => addFuel($('#add-fuel-choice').value),
+  'remove-fuel': (d) => store.mutate((ws) => { ws.fuels.splice(Number(d.index), 1); verdict.sweepFuel = null; }),
+  'add-charge': (d) => store.mutate(() => { const e = store.get(d.fuel); e.fixed_charges = [...(e.fixed_charges ?? []), { label: '', amount_per_month: undefined }]; }),
+  'remove-charge': (d) => store.mutate(() => store.get(d.fuel).fixed_charges.splice(Number(d.index), 1)),
+  'add-system': () => addSystem($('#add-system-kind').value),
+  'remove-system': (d) => store.mutate((ws) => ws.systems.splice(Number(d.index), 1)),
+  'duplicate-system': (d) => store.mutate((ws) => {
+    const copy = structuredClone(ws.systems[Number(d.index)]);
+    copy.id = uniqueSystemId(ws, copy.id);
+    copy.label = `${copy.label || copy.id} (copy)`;
+    copy.existing = false;
+    ws.systems.splice(Number(d.index) + 1, 0, copy);
+  }),
+  'add-rating': (d) => store.mutate((ws) => {
+    const s = ws.systems[Number(d.system)].system;
+    const us = ws.settings.units === 'us';
+    s.ratings = [...(s.ratings ?? []), { outdoor: { unit: us ? 'degF' : 'degC' }, capacity: { unit: us ? 'Btu/h' : 'kW' } }];
+  }),
+  'remove-rating': (d) => store.mutate((ws) => ws.systems[Number(d.system)].system.ratings.splice(Number(d.index), 1)),
+  'add-bill': () => store.mutate((ws) => {
+    const last = ws.demand.bills.at(-1);
+    ws.demand.bills.push({ start: '', end: '', unit: last?.unit ?? (ws.settings.units === 'us' ? 'therm' : 'kWh') });
+  }),
+  'remove-bill': (d) => store.mutate((ws) => ws.demand.bills.splice(Number(d.index), 1)),
+  'rank-by': (d) => { verdict.by = d.by; paintVerdict(); },
+  'export-csv': () => verdict.result && download(`${fileStem(store.state)}.csv`, 'text/csv', resultsCsv(verdict.result, store.state, verdict.by)),
+  'export-json': () => download(`${fileStem(store.state)}.json`, 'application/json', `${JSON.stringify(toScenario(store.state), null, 2)}\n`),
+  print: () => { paintSheet(); window.print(); },
+  'climate-trace': () => openTrace({ title: 'Climate and heat need', trace: [...(verdict.result?.climate?.trace ?? []), ...(verdict.result?.demand?.trace ?? [])] }),
+  'new-quote': () => {
+    const ws = blankWorkspace({ units: store.state.settings.units, currency: store.state.settings.currency });
+    ws.quote.prepared_by = store.state.quote.prepared_by;
+    openWorkspace(ws).then(() => setTab('house'));
+  },
+  'new-quote-keep': () => {
+    const ws = structuredClone(store.state);
+    ws.quote = { customer: '', site: '', date: today(), prepared_by: ws.quote.prepared_by, notes: '' };
+    ws.title = '';
+    openWorkspace(ws).then(() => setTab('house'));
+  },
+  'load-demo': () => openWorkspace(demoWorkspace()).then(() => setTab('verdict')),
+  'open-quote': async (d) => {
+    const record = await storage.get(d.id);
+    if (!record) return;
+    const ws = isCurrentRecord(record) ? record.workspace : fromScenario(record.scenario);
+    await openWorkspace(ws, { id: record.id, save: false });
+    setTab('verdict');
+  },
+  'duplicate-quote': async (d) => {
+    const record = await storage.get(d.id);
+    if (!record) return;
+    const ws = structuredClone(isCurrentRecord(record) ? record.workspace : fromScenario(record.scenario));
+    ws.quote.customer = ws.quote.customer ? `${ws.quote.customer} (copy)` : '(copy)';
+    ws.quote.date = today();
+    await openWorkspace(ws);
+  },
+  'delete-quote': async (d) => {
+    const record = await storage.get(d.id);
+    if (!record) return;
+    await storage.delete(d.id);
+    quotes.records = quotes.records.filter((r) => r.id !== d.id);
+    quotes.undo = record;
+    clearTimeout(undoTimer);
+    undoTimer = setTimeout(() => { quotes.undo = null; paintQuotes(); }, 10_000);
+    if (d.id === quotes.currentId) {
+      const next = quotes.records.sort((a, b) => (b.updated_at ?? '').localeCompare(a.updated_at ?? ''))[0];
+      if (next) await openWorkspace(isCurrentRecord(next) ? next.workspace : fromScenario(next.scenario), { id: next.id, save: false });
+      else await openWorkspace(blankWorkspace({ units: store.state.settings.units, currency: store.state.settings.currency }));
+    }
+    paintQuotes();
+    $('#undo-toast button')?.focus();
+  },
+  'undo-delete': async () => {
+    const record = quotes.undo;
+    if (!record) return;
+    quotes.undo = null;
+    clearTimeout(undoTimer);
+    await storage.put(record);
+    quotes.records.push(record);
+    paintQuotes();
+  },
+};
+
+function onClick(event) {
+  const tabButton = event.target.closest('[data-tab]');
+  if (tabButton) {
+    setTab(tabButton.dataset.tab);
+    if (tabButton.closest('.summary-bar')) $('#tab-verdict').focus();
+    return;
+  }
+  const button = event.target.closest('button[data-action]');
+  if (!button) return;
+  const action = ACTIONS[button.dataset.action];
+  if (action) {
     event.preventDefault();
-    const formula = input.value.trim();
-    submit.disabled = true;
-    try {
-      await computeInto(result, error, { formula });
-    } finally {
-      submit.disabled = false;
+    action(button.dataset);
+  }
+}
+
+function onChange(event) {
+  const t = event.target;
+  const action = t.dataset?.action;
+  if (action === 'charge-period') {
+    store.mutate(() => {
+      const charge = store.get(t.dataset.fuel).fixed_charges[Number(t.dataset.index)];
+      const amount = charge.amount_per_month ?? charge.amount_per_year;
+      delete charge.amount_per_month;
+      delete charge.amount_per_year;
+      charge[t.value === 'year' ? 'amount_per_year' : 'amount_per_month'] = amount;
+    });
+  } else if (action === 'hv-unit') {
+    const card = t.closest('.fuel-card');
+    const energy = card.querySelector('[data-part="energy"]').value;
+    const per = card.querySelector('[data-part="per"]').value;
+    store.set(`${t.dataset.fuel}/heating_value/unit`, `${energy}/${per}`);
+  } else if (action === 'sweep-fuel') {
+    verdict.sweepFuel = Number(t.value);
+    verdict.sweep = null;
+    runSweep();
+  } else if (t.id === 'paper') {
+    store.state.settings.paper = t.value === 'a4' ? 'a4' : 'letter';
+    applyPaper();
+    scheduleSave();
+  } else if (t.id === 'import-file' && t.files?.[0]) {
+    importFile(t.files[0]);
+    t.value = '';
+  }
+}
+
+function onTabKeys(event) {
+  const tabs = [...document.querySelectorAll('[role="tab"]')].filter((t) => t.offsetParent !== null);
+  const i = tabs.indexOf(event.target);
+  if (i < 0) return;
+  let next = null;
+  if (event.key === 'ArrowRight') next = tabs[(i + 1) % tabs.length];
+  else if (event.key === 'ArrowLeft') next = tabs[(i - 1 + tabs.length) % tabs.length];
+  else if (event.key === 'Home') next = tabs[0];
+  else if (event.key === 'End') next = tabs.at(-1);
+  if (next) {
+    event.preventDefault();
+    setTab(next.dataset.tab);
+    next.focus();
+  }
+}
+
+function applyPaper() {
+  const paper = store.state.settings.paper === 'a4' ? 'a4' : 'letter';
+  $('#paper-letter').disabled = paper !== 'letter';
+  $('#paper-a4').disabled = paper !== 'a4';
+  document.documentElement.dataset.paper = paper;
+}
+
+function wireHeader() {
+  for (const id of ['#units-us', '#units-metric']) {
+    $(id).addEventListener('change', (event) => { if (event.target.checked) switchUnits(event.target.value); });
+  }
+  $('#energy-unit').addEventListener('change', (event) => store.mutate((ws) => { ws.settings.energy_unit = event.target.value; }, { reason: 'display' }));
+  const currency = $('#currency');
+  currency.addEventListener('input', () => {
+    const code = currency.value.trim().toUpperCase();
+    currency.setCustomValidity(isCurrency(code) ? '' : 'Use a three-letter ISO 4217 code, e.g. USD, CAD, EUR');
+    if (isCurrency(code) && code !== store.state.settings.currency) {
+      store.mutate((ws) => { ws.settings.currency = code; }, { reason: 'display' });
     }
   });
+  const locale = $('#locale');
+  const list = LOCALES.some(([l]) => l === prefs.locale) ? LOCALES : [[prefs.locale, prefs.locale], ...LOCALES];
+  locale.replaceChildren(...list.map(([l, t]) => h('option', { value: l, text: t, selected: l === prefs.locale })));
+  locale.addEventListener('change', () => {
+    prefs.locale = locale.value;
+    savePreferences(prefs);
+    document.documentElement.lang = prefs.locale;
+    store.mutate(() => {}, { reason: 'display' });
+  });
+  window.addEventListener('beforeprint', paintSheet);
+}
 
+function onStoreChange(change) {
+  if (change.reason === 'load' || change.reason === 'display') {
+    refreshFormat();
+    paintHeader();
+    paintInputs();
+    paintVerdict();
+    paintSheet();
+  } else if (change.reason === 'structure') {
+    paintInputs();
+  }
+  scheduleEvaluate();
+  scheduleSave();
+}
+
+// ---------------------------------------------------------------------------
+// Start
+
+function indexCatalog(catalog) {
+  catalog.fuelsById = new Map(catalog.fuels.map((f) => [f.id, f]));
+  catalog.systemsById = new Map(catalog.systems.map((s) => [s.id, s]));
+  return catalog;
+}
+
+async function start() {
+  for (const panel of document.querySelectorAll('[data-panel]')) panels[panel.dataset.panel] = panel;
+  verdictBody = $('#verdict-body');
+  const body = verdictBody;
+  bindVerdict(body, ctx, () => verdict);
+  document.documentElement.lang = prefs.locale;
+
+  document.addEventListener('click', onClick);
+  document.addEventListener('change', onChange);
+  $('.tabs').addEventListener('keydown', onTabKeys);
+  for (const name of ['house', 'fuels', 'systems']) bindFields(panels[name], ctx, localErrors);
+  wireHeader();
+  setTab(['house', 'fuels', 'systems', 'verdict', 'saved'].includes(prefs.tab) ? prefs.tab : 'verdict');
+
+  try {
+    ctx.catalog = indexCatalog(await core.catalog());
+  } catch (failure) {
+    body.replaceChildren(h('p', { class: 'problems', role: 'alert', text: `The calculation core could not start: ${failure.message}` }));
+    return;
+  }
+  storage = await openQuotes();
+  quotes.storageKind = storage.kind;
+  quotes.records = (await storage.list()).filter((r) => r && r.id);
+  const id = currentQuoteId();
+  const record = id ? quotes.records.find((r) => r.id === id) : null;
+  let ws;
+  try {
+    ws = record ? (isCurrentRecord(record) ? record.workspace : fromScenario(record.scenario)) : null;
+  } catch {
+    ws = null;
+  }
+  store.subscribe(onStoreChange);
+  if (ws) {
+    quotes.currentId = record.id;
+    store.replace(ws);
+  } else {
+    await openWorkspace(demoWorkspace());
+    if (!prefs.tabChosen) setTab('verdict');
+  }
+  paintQuotes();
+  for (const tab of document.querySelectorAll('[role="tab"]')) tab.addEventListener('click', () => { prefs.tabChosen = true; savePreferences(prefs); });
   registerServiceWorker();
 }
 

@@ -1,0 +1,173 @@
+// Charts as inline SVG built from DOM nodes (no chart library): annual cost
+// (energy and fixed stacked), annual cost against one price with break-even
+// points, heat-pump performance over temperature bins, and uncertainty ranges.
+import { s } from './dom.js';
+
+export const PALETTE = ['#1f5aa6', '#b35900', '#2c7a3f', '#7b3fa0', '#b3261e', '#00696b', '#6d4c2f', '#3d4a5c'];
+const DASHES = ['', '6 3', '2 3', '8 3 2 3', '1 2', '10 4'];
+const INK = '#1b2433';
+const MUTED = '#4f5b6b';
+const GRID = '#d5dbe3';
+
+function niceTicks(min, max, count = 5) {
+  if (!(max > min)) return [min];
+  const raw = (max - min) / count;
+  const mag = 10 ** Math.floor(Math.log10(raw));
+  const step = [1, 2, 2.5, 5, 10].map((m) => m * mag).find((st) => st >= raw) ?? raw;
+  const ticks = [];
+  for (let v = Math.ceil(min / step) * step; v <= max + step * 1e-9; v += step) ticks.push(Number(v.toPrecision(12)));
+  if (ticks.at(-1) < max) ticks.push(Number((ticks.at(-1) + step).toPrecision(12)));
+  return ticks;
+}
+
+function frame(width, height, label) {
+  return s('svg', { viewBox: `0 0 ${width} ${height}`, width: '100%', role: 'img', 'aria-label': label,
+    class: 'chart', preserveAspectRatio: 'xMidYMid meet' }, s('title', { text: label }));
+}
+
+const text = (x, y, content, props = {}) => s('text', { x, y, fill: INK, 'font-size': 13, ...props, text: content });
+
+/** Horizontal stacked bars of annual cost: rows [{id, label, energy, fixed}]. */
+export function costBars(rows, { money, title = 'Annual cost' }) {
+  const width = 640;
+  const labelW = 250;
+  const barH = 26;
+  const gap = 12;
+  const top = 34;
+  const height = top + rows.length * (barH + gap) + 30;
+  const max = Math.max(1, ...rows.map((r) => r.energy + r.fixed));
+  const ticks = niceTicks(0, max, 4);
+  const right = width - 80;
+  const x = (v) => labelW + (v / Math.max(max, ticks.at(-1))) * (right - labelW);
+  const svg = frame(width, height, title);
+  svg.append(
+    s('rect', { x: labelW, y: 8, width: 14, height: 14, fill: PALETTE[0] }), text(labelW + 20, 20, 'energy'),
+    s('rect', { x: labelW + 90, y: 8, width: 14, height: 14, fill: '#9fb8d9', stroke: PALETTE[0] }), text(labelW + 110, 20, 'fixed charges'));
+  for (const t of ticks) {
+    svg.append(s('line', { x1: x(t), x2: x(t), y1: top - 4, y2: height - 24, stroke: GRID }),
+      text(x(t), height - 8, money(t), { 'text-anchor': 'middle', fill: MUTED, 'font-size': 11 }));
+  }
+  rows.forEach((row, i) => {
+    const y = top + i * (barH + gap);
+    const label = row.label.length > 28 ? `${row.label.slice(0, 27)}…` : row.label;
+    svg.append(text(labelW - 8, y + barH / 2 + 5, label, { 'text-anchor': 'end' }));
+    svg.append(s('rect', { x: labelW, y, width: Math.max(0, x(row.energy) - labelW), height: barH, fill: PALETTE[0], dataset: { id: row.id, part: 'energy' } }));
+    svg.append(s('rect', { x: x(row.energy), y, width: Math.max(0, x(row.energy + row.fixed) - x(row.energy)), height: barH,
+      fill: '#9fb8d9', stroke: PALETTE[0], dataset: { id: row.id, part: 'fixed' } }));
+    svg.append(text(x(row.energy + row.fixed) + 6, y + barH / 2 + 5, money(row.energy + row.fixed), { 'font-weight': 600 }));
+  });
+  return svg;
+}
+
+/**
+ * Lines of annual cost against one price. series [{id, label, points: [[price, cost]], swept}],
+ * marks [{x, y, label}] (break-even points), current (the price now).
+ */
+export function priceLines(series, { marks = [], current, formatX, money, xLabel, title }) {
+  const width = 640;
+  const height = 360;
+  const left = 70;
+  const right = 20;
+  const top = 20;
+  const bottom = 54;
+  const xs = series.flatMap((sr) => sr.points.map((p) => p[0]));
+  const ys = series.flatMap((sr) => sr.points.map((p) => p[1]));
+  const x0 = Math.min(...xs);
+  const x1 = Math.max(...xs);
+  const yTicks = niceTicks(0, Math.max(1, ...ys), 5);
+  const y1 = yTicks.at(-1);
+  const X = (v) => left + ((v - x0) / (x1 - x0 || 1)) * (width - left - right);
+  const Y = (v) => top + (1 - v / (y1 || 1)) * (height - top - bottom);
+  const svg = frame(width, height, title);
+  for (const t of yTicks) {
+    svg.append(s('line', { x1: left, x2: width - right, y1: Y(t), y2: Y(t), stroke: GRID }),
+      text(left - 6, Y(t) + 4, money(t), { 'text-anchor': 'end', fill: MUTED, 'font-size': 11 }));
+  }
+  for (const t of niceTicks(x0, x1, 5)) {
+    svg.append(text(X(t), height - bottom + 16, formatX(t), { 'text-anchor': 'middle', fill: MUTED, 'font-size': 11 }));
+  }
+  svg.append(text((left + width - right) / 2, height - 12, xLabel, { 'text-anchor': 'middle', fill: MUTED }));
+  if (Number.isFinite(current)) {
+    svg.append(s('line', { x1: X(current), x2: X(current), y1: top, y2: height - bottom, stroke: MUTED, 'stroke-dasharray': '3 3' }),
+      text(X(current) + 4, top + 12, 'now', { fill: MUTED, 'font-size': 11 }));
+  }
+  series.forEach((sr, i) => {
+    const d = sr.points.map((p, k) => `${k ? 'L' : 'M'}${X(p[0]).toFixed(1)},${Y(p[1]).toFixed(1)}`).join(' ');
+    svg.append(s('path', { d, fill: 'none', stroke: PALETTE[i % PALETTE.length], 'stroke-width': sr.swept ? 3.5 : 2,
+      'stroke-dasharray': DASHES[i % DASHES.length] || undefined, dataset: { id: sr.id } }));
+  });
+  for (const mark of marks) {
+    svg.append(s('circle', { cx: X(mark.x), cy: Y(mark.y), r: 6, fill: '#fff', stroke: INK, 'stroke-width': 2, class: 'break-even' },
+      s('title', { text: mark.label })));
+  }
+  return svg;
+}
+
+/** Heat-pump performance over temperature bins: load and capacity [kW], COP, hours. */
+export function binsChart(bins, { tempLabel, toTemp, title, number }) {
+  const width = 640;
+  const height = 320;
+  const left = 56;
+  const right = 56;
+  const top = 26;
+  const bottom = 48;
+  const ts = bins.map((b) => toTemp(b.t));
+  const t0 = Math.min(...ts);
+  const t1 = Math.max(...ts);
+  const kw = Math.max(1, ...bins.flatMap((b) => [b.load_kw ?? 0, b.capacity_kw ?? 0]));
+  const kTicks = niceTicks(0, kw, 4);
+  const kMax = kTicks.at(-1);
+  const hours = Math.max(1, ...bins.map((b) => b.hours ?? 0));
+  const copMax = Math.max(1, ...bins.map((b) => b.cop ?? 0));
+  const X = (t) => left + ((t - t0) / (t1 - t0 || 1)) * (width - left - right);
+  const Y = (v, max) => top + (1 - v / max) * (height - top - bottom);
+  const svg = frame(width, height, title);
+  const barW = Math.max(2, ((width - left - right) / Math.max(1, bins.length)) * 0.7);
+  bins.forEach((b, i) => {
+    svg.append(s('rect', { x: X(ts[i]) - barW / 2, y: Y(b.hours ?? 0, hours), width: barW, height: Y(0, hours) - Y(b.hours ?? 0, hours), fill: '#e3e9f1' }));
+  });
+  for (const t of kTicks) {
+    svg.append(s('line', { x1: left, x2: width - right, y1: Y(t, kMax), y2: Y(t, kMax), stroke: GRID }),
+      text(left - 6, Y(t, kMax) + 4, number(t), { 'text-anchor': 'end', fill: MUTED, 'font-size': 11 }));
+  }
+  for (const t of niceTicks(t0, t1, 6)) svg.append(text(X(t), height - bottom + 16, number(t), { 'text-anchor': 'middle', fill: MUTED, 'font-size': 11 }));
+  svg.append(text((left + width - right) / 2, height - 10, `outdoor temperature (${tempLabel}); grey bars: hours per year`, { 'text-anchor': 'middle', fill: MUTED, 'font-size': 12 }));
+  const line = (key, max, color, dash) => {
+    const d = bins.map((b, i) => `${i ? 'L' : 'M'}${X(ts[i]).toFixed(1)},${Y(b[key] ?? 0, max).toFixed(1)}`).join(' ');
+    svg.append(s('path', { d, fill: 'none', stroke: color, 'stroke-width': 2.5, 'stroke-dasharray': dash || undefined }));
+  };
+  line('load_kw', kMax, PALETTE[4], '');
+  line('capacity_kw', kMax, PALETTE[0], '6 3');
+  line('cop', copMax * 1.1, PALETTE[2], '2 3');
+  svg.append(text(left, 16, 'kW: load (solid red), capacity (dashed blue); COP (dotted green, right scale)', { fill: MUTED, 'font-size': 12 }));
+  for (const t of niceTicks(0, copMax * 1.1, 4)) {
+    svg.append(text(width - right + 6, Y(t, copMax * 1.1) + 4, number(t), { fill: PALETTE[2], 'font-size': 11 }));
+  }
+  return svg;
+}
+
+/** Ranges p10–p90 with p50 per option: rows [{label, p10, p50, p90, note}]. */
+export function rangeChart(rows, { money, title }) {
+  const width = 640;
+  const labelW = 210;
+  const rowH = 34;
+  const top = 16;
+  const height = top + rows.length * rowH + 30;
+  const max = Math.max(1, ...rows.map((r) => r.p90));
+  const min = Math.min(...rows.map((r) => r.p10));
+  const ticks = niceTicks(Math.max(0, min * 0.9), max, 4);
+  const lo = ticks[0];
+  const hi = ticks.at(-1);
+  const X = (v) => labelW + ((v - lo) / (hi - lo || 1)) * (width - labelW - 70);
+  const svg = frame(width, height, title);
+  for (const t of ticks) svg.append(s('line', { x1: X(t), x2: X(t), y1: top, y2: height - 24, stroke: GRID }),
+    text(X(t), height - 8, money(t), { 'text-anchor': 'middle', fill: MUTED, 'font-size': 11 }));
+  rows.forEach((r, i) => {
+    const y = top + i * rowH + rowH / 2;
+    svg.append(text(labelW - 8, y + 5, r.label.length > 30 ? `${r.label.slice(0, 29)}…` : r.label, { 'text-anchor': 'end' }),
+      s('line', { x1: X(r.p10), x2: X(r.p90), y1: y, y2: y, stroke: PALETTE[i % PALETTE.length], 'stroke-width': 8, 'stroke-linecap': 'round' }),
+      s('line', { x1: X(r.p50), x2: X(r.p50), y1: y - 10, y2: y + 10, stroke: INK, 'stroke-width': 2.5 }),
+      text(X(r.p90) + 10, y + 5, r.note ?? '', { 'font-size': 12, fill: MUTED }));
+  });
+  return svg;
+}

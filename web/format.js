@@ -1,0 +1,114 @@
+// Locale formatting and parsing through Intl.NumberFormat: money in the
+// scenario's currency, quantities, dates, and numbers typed with the locale's
+// decimal separator (a decimal comma is accepted where the locale uses one).
+
+const cache = new Map();
+function nf(locale, options) {
+  const key = `${locale}|${JSON.stringify(options)}`;
+  let format = cache.get(key);
+  if (!format) {
+    format = new Intl.NumberFormat(locale, options);
+    cache.set(key, format);
+  }
+  return format;
+}
+
+/** True when `code` is a currency Intl can format (ISO 4217, three capital letters). */
+export function isCurrency(code) {
+  if (!/^[A-Z]{3}$/.test(code ?? '')) return false;
+  try {
+    nf('en', { style: 'currency', currency: code });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** True when `locale` is a well-formed BCP 47 tag Intl accepts. */
+export function isLocale(locale) {
+  try {
+    return Intl.NumberFormat.supportedLocalesOf([locale]).length > 0;
+  } catch {
+    return false;
+  }
+}
+
+/** The locale's decimal and group separators. */
+export function separators(locale) {
+  const parts = nf(locale, { useGrouping: true }).formatToParts(12345.6);
+  return {
+    decimal: parts.find((p) => p.type === 'decimal')?.value ?? '.',
+    group: parts.find((p) => p.type === 'group')?.value ?? ',',
+  };
+}
+
+const PLAIN = /^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i;
+
+/**
+ * Parses a number typed in `locale`: null for an empty field, NaN when it is not a number.
+ * Where the locale uses a decimal comma, "1,40" is 1.4 and "1.400" is 1400; a point is also
+ * accepted as the decimal separator when it cannot be a group separator ("1.4").
+ */
+export function parseNumber(text, locale) {
+  let t = String(text ?? '').trim().replace(/[\s\u00a0\u202f'’]/g, '').replace(/^\u2212/, '-');
+  if (!t) return null;
+  const { decimal } = separators(locale);
+  if (decimal === ',') {
+    if (t.includes(',')) {
+      if ((t.match(/,/g) ?? []).length > 1) return NaN;
+      t = t.replaceAll('.', '').replace(',', '.');
+    } else if (/^[-+]?\d{1,3}(\.\d{3})+$/.test(t)) {
+      t = t.replaceAll('.', '');
+    }
+  } else if (t.includes(',')) {
+    if (!/^[-+]?\d{1,3}(,\d{3})+(\.\d*)?$/.test(t)) return NaN;
+    t = t.replaceAll(',', '');
+  }
+  return PLAIN.test(t) ? Number(t) : NaN;
+}
+
+/** A number for an input field: the locale's decimal separator, no grouping, up to 6 significant digits. */
+export function formatInput(value, locale) {
+  if (typeof value !== 'number' || !Number.isFinite(value)) return '';
+  return nf(locale, { useGrouping: false, maximumSignificantDigits: 6 }).format(value);
+}
+
+/** The formatter of one view: money in `currency`, quantities in `locale`. */
+export function createFormat({ locale, currency }) {
+  const money = (value, digits) => (Number.isFinite(value)
+    ? nf(locale, { style: 'currency', currency, minimumFractionDigits: digits, maximumFractionDigits: digits }).format(value)
+    : '—');
+  return {
+    locale,
+    currency,
+    /** Yearly amounts: whole currency units. */
+    money: (value) => money(value, 0),
+    /** Prices and costs per unit: two decimals, or four below 0.1. */
+    price: (value) => money(value, Math.abs(value) < 0.1 && value !== 0 ? 4 : 2),
+    /** A quantity with `digits` significant digits (default 4), grouped, no exponent. */
+    number: (value, digits = 4) => {
+      if (!Number.isFinite(value)) return '—';
+      const abs = Math.abs(value);
+      if (abs >= 10 ** digits) return nf(locale, { maximumFractionDigits: 0 }).format(value);
+      return nf(locale, { maximumSignificantDigits: digits }).format(value);
+    },
+    fixed: (value, decimals) => (Number.isFinite(value)
+      ? nf(locale, { minimumFractionDigits: decimals, maximumFractionDigits: decimals }).format(value) : '—'),
+    percent: (fraction, decimals = 0) => (Number.isFinite(fraction)
+      ? nf(locale, { style: 'percent', maximumFractionDigits: decimals }).format(fraction) : '—'),
+    date: (iso) => {
+      if (!iso) return '';
+      const [y, m, d] = iso.split('-').map(Number);
+      if (!y || !m || !d) return iso;
+      return new Intl.DateTimeFormat(locale, { dateStyle: 'long', timeZone: 'UTC' }).format(Date.UTC(y, m - 1, d));
+    },
+    currencySymbol: () => nf(locale, { style: 'currency', currency }).formatToParts(0)
+      .find((p) => p.type === 'currency')?.value ?? currency,
+  };
+}
+
+/** Short month names of the locale, January first. */
+export function monthNames(locale) {
+  const format = new Intl.DateTimeFormat(locale, { month: 'short', timeZone: 'UTC' });
+  return Array.from({ length: 12 }, (_, m) => format.format(Date.UTC(2025, m, 15)));
+}

@@ -1,0 +1,87 @@
+// The quote sheet: a print-only page (@media print, A4 or US Letter) with the
+// customer and site, date, assumptions, the results table, the annual-cost
+// chart, the cautions and a disclaimer. Printed or saved as PDF by the browser.
+import { h } from './dom.js';
+import { costBars } from './charts.js';
+import { fuelName } from './views/fuels.js';
+import { KIND_NAMES } from './views/systems.js';
+import { displayValues, rankedOptions } from './views/verdict.js';
+import { ENERGY_KWH, unitLabel } from './units.js';
+
+const DISCLAIMER = 'This sheet compares running costs and emissions from the figures entered on the day. It is an estimate, '
+  + 'not an offer to supply fuel or a guarantee of savings, and not an engineering design. Actual costs depend on weather, '
+  + 'prices, the installation and how the house is used.';
+
+function assumptions(ws, result, ctx) {
+  const { format } = ctx;
+  const items = [];
+  const d = ws.demand;
+  if (result?.demand && Number.isFinite(result.demand.annual_useful_heat_kwh)) {
+    const unit = ws.settings.energy_unit;
+    items.push(['Heat the house needs', `${format.number(result.demand.annual_useful_heat_kwh / ENERGY_KWH[unit])} ${unitLabel(unit)} a year (${
+      d.method === 'direct' ? 'given' : d.method === 'heat-loss' ? 'from the heat loss of the house' : 'from past bills'})`]);
+  }
+  if (result?.climate && Number.isFinite(result.climate.annual_hdd)) {
+    items.push(['Climate', `${format.number(result.climate.annual_hdd)} heating degree-days (${unitLabel(result.climate.unit ?? ws.climate.unit)}·d)`]);
+  }
+  for (const entry of ws.fuels) {
+    const charges = (entry.fixed_charges ?? []).map((c) => (c.amount_per_month !== undefined
+      ? `${format.price(c.amount_per_month)} a month` : `${format.price(c.amount_per_year)} a year`)).join(', ');
+    items.push([fuelName(entry, ctx.catalog), `${format.price(entry.price?.amount)} per ${unitLabel(entry.price?.per ?? '')}${charges ? `; fixed ${charges}` : ''}`]);
+  }
+  for (const sys of ws.systems) {
+    const eff = sys.system?.efficiency;
+    items.push([sys.label || sys.id, `${KIND_NAMES[sys.system?.kind] ?? sys.system?.kind}${eff?.value !== undefined ? `, ${format.number(eff.value)} ${eff.rating}` : ''}`]);
+  }
+  items.push(['Emissions', `CO2e with IPCC ${ws.settings.gwp ?? 'AR5'} warming potentials; electricity ${
+    ws.settings.electricity_co2e_kg_per_kwh ?? result?.settings?.electricity_co2e_kg_per_kwh ?? '—'} kg CO2e/kWh`]);
+  return h('dl', { class: 'assumptions' }, items.flatMap(([k, v]) => [h('dt', { text: k }), h('dd', { text: v })]));
+}
+
+function resultsTable(ws, result, ctx) {
+  const { format } = ctx;
+  const energyUnit = unitLabel(ws.settings.energy_unit);
+  const massUnit = ws.settings.units === 'us' ? 'lb' : 'kg';
+  const list = rankedOptions(result, 'annual');
+  const econ = list.some((o) => Number.isFinite(o.life_cycle_cost));
+  const head = ['#', 'Option', 'Per year', `Per ${energyUnit}`, 'Fuel used', `CO2e ${massUnit}/yr`, ...(econ ? ['Payback', 'Life-cycle cost'] : [])];
+  return h('table', { class: 'print-table' },
+    h('thead', {}, h('tr', {}, head.map((t) => h('th', { scope: 'col', text: t })))),
+    h('tbody', {}, list.map((o, i) => {
+      const v = displayValues(o, ws);
+      return h('tr', {}, h('td', { text: String(i + 1) }), h('td', { text: o.label ?? o.id }), h('td', { text: format.money(v.annual_cost) }),
+        h('td', { text: format.price(v.cost_per_useful) }), h('td', { text: `${format.number(v.fuel_quantity)} ${unitLabel(o.fuel_quantity?.unit ?? '')}` }),
+        h('td', { text: format.number(v.co2e, 3) }),
+        ...(econ ? [h('td', { text: Number.isFinite(o.simple_payback_years) ? `${format.number(o.simple_payback_years, 3)} yr` : (o.simple_payback_reason ?? '—') }),
+          h('td', { text: format.money(o.life_cycle_cost) })] : []));
+    })));
+}
+
+/** Rebuilds the quote sheet into `sheet` from the workspace and the latest result. */
+export function renderQuoteSheet(sheet, ctx, result) {
+  const ws = ctx.store.state;
+  const { format } = ctx;
+  const q = ws.quote;
+  const parts = [
+    h('header', { class: 'sheet-header' },
+      h('div', {}, h('p', { class: 'brand', text: 'Fuelwright' }), h('h1', { text: ws.title || 'Heating cost comparison' })),
+      h('dl', { class: 'who' },
+        h('dt', { text: 'Customer' }), h('dd', { id: 'sheet-customer', text: q.customer || '—' }),
+        h('dt', { text: 'Site' }), h('dd', { id: 'sheet-site', text: q.site || '—' }),
+        h('dt', { text: 'Date' }), h('dd', { text: q.date ? format.date(q.date) : '—' }),
+        h('dt', { text: 'Prepared by' }), h('dd', { text: q.prepared_by || '—' }))),
+  ];
+  if (result?.options?.length && !(result.errors ?? []).length) {
+    parts.push(h('section', {}, h('h2', { text: 'Results' }), resultsTable(ws, result, ctx)));
+    const rows = rankedOptions(result, 'annual').map((o) => ({ id: o.id, label: o.label ?? o.id, energy: o.energy_cost, fixed: o.fixed_cost }));
+    parts.push(h('section', { class: 'sheet-chart' }, h('h2', { text: 'Cost per year' }), costBars(rows, { money: format.money, title: 'Annual cost: energy and fixed charges' })));
+  } else {
+    parts.push(h('p', { text: 'The comparison is not complete: see the workspace for the entries that need attention.' }));
+  }
+  parts.push(h('section', {}, h('h2', { text: 'Assumptions' }), assumptions(ws, result, ctx)));
+  if (q.notes) parts.push(h('section', {}, h('h2', { text: 'Notes' }), h('p', { class: 'notes', text: q.notes })));
+  parts.push(h('section', { class: 'sheet-cautions', id: 'sheet-cautions' }, h('h2', { text: 'Please read' }),
+    h('ul', {}, (result?.cautions ?? []).map((c) => h('li', { text: c })))));
+  parts.push(h('p', { class: 'disclaimer', text: DISCLAIMER }));
+  sheet.replaceChildren(...parts);
+}

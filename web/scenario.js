@@ -1,0 +1,474 @@
+// Scenario building: the workspace the page edits <-> the scenario document the
+// core evaluates (fuelwright.scenario/1, data/schema/scenario.schema.json).
+//
+// The workspace keeps local fuel prices once per fuel (`fuels`) and the heating
+// systems that burn them (`systems`); each system becomes one scenario option
+// carrying its fuel's price. It also keeps the fields of every demand method and
+// climate form, so switching the method picker loses nothing; only the chosen
+// method's fields are sent. Every entered quantity keeps its own unit.
+
+export const SCENARIO_SCHEMA = 'fuelwright.scenario/1';
+export const WORKSPACE_VERSION = 1;
+
+/** Option fields that belong to the fuel and its price (kept in `fuels`). */
+const FUEL_FIELDS = ['fuel', 'price', 'fixed_charges', 'heating_value', 'wood_species', 'moisture_pct', 'bag_mass',
+  'face_cord_fraction'];
+/** Option fields that belong to the system (kept in `systems`). */
+const SYSTEM_FIELDS = ['id', 'label', 'system', 'existing', 'installed_cost', 'incentives', 'annual_maintenance',
+  'life_years'];
+const ECONOMIC_FIELDS = ['existing', 'installed_cost', 'incentives', 'annual_maintenance', 'life_years'];
+export const HEAT_PUMP_KINDS = ['air-source-heat-pump', 'ground-source-heat-pump'];
+export const SYSTEM_KINDS = ['furnace', 'boiler', 'stove', 'electric-resistance', 'air-source-heat-pump',
+  'ground-source-heat-pump'];
+export const RATINGS = ['AFUE', 'thermal', 'seasonal-gcv', 'seasonal-ncv', 'COP', 'SCOP', 'HSPF', 'HSPF2'];
+export const DEMAND_METHODS = ['direct', 'heat-loss', 'bills'];
+export const CLIMATE_MODES = ['none', 'monthly_mean', 'monthly_hdd', 'annual_hdd'];
+
+const clone = (value) => (value === undefined ? undefined : structuredClone(value));
+const isQuantity = (q) => q && typeof q === 'object' && typeof q.value === 'number' && Number.isFinite(q.value) && q.unit;
+const isNumber = (v) => typeof v === 'number' && Number.isFinite(v);
+const isText = (v) => typeof v === 'string' && v.trim() !== '';
+
+/** Today as YYYY-MM-DD in local time. */
+export function today() {
+  const d = new Date();
+  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
+}
+
+/** An empty workspace in the given unit system. */
+export function blankWorkspace({ units = 'us', currency = 'USD' } = {}) {
+  const us = units === 'us';
+  return {
+    version: WORKSPACE_VERSION,
+    title: '',
+    description: '',
+    quote: { customer: '', site: '', date: today(), prepared_by: '', notes: '' },
+    settings: { units, currency, gwp: 'AR5', energy_unit: us ? 'MMBtu' : 'kWh', paper: us ? 'letter' : 'a4' },
+    demand: {
+      method: 'direct',
+      annual_useful_heat: { unit: us ? 'MMBtu' : 'kWh' },
+      ua_mode: 'ua',
+      ua: { unit: us ? 'Btu/h/degF' : 'W/K' },
+      design_heat_loss: { unit: us ? 'Btu/h' : 'kW' },
+      indoor: { value: us ? 68 : 20, unit: us ? 'degF' : 'degC' },
+      design_outdoor: { unit: us ? 'degF' : 'degC' },
+      gains_mode: 'balance_point',
+      balance_point: { unit: us ? 'degF' : 'degC' },
+      internal_gains: { unit: us ? 'Btu/h' : 'W' },
+      hot_water: { unit: us ? 'MMBtu' : 'kWh' },
+      bills: [],
+      bills_option: '',
+    },
+    climate: {
+      mode: 'none',
+      unit: us ? 'degF' : 'degC',
+      monthly_mean: Array(12).fill(null),
+      monthly_hdd: Array(12).fill(null),
+      base: us ? { value: 65, unit: 'degF' } : { value: 18.3, unit: 'degC' },
+      design_temperature: { unit: us ? 'degF' : 'degC' },
+      daily_range: { unit: us ? 'degF' : 'degC' },
+      leap_year: false,
+    },
+    fuels: [],
+    systems: [],
+    economics: { enabled: false, analysis_years: 15, discount_rate: 0.05, escalation_default: 0.02, basis: 'real' },
+    uncertainty: { enabled: false, draws: 2000, seed: 1 },
+  };
+}
+
+/** The id a fuel entry's fuel goes by (catalog id or custom fuel id). */
+export const fuelId = (entry) => (typeof entry?.fuel === 'string' ? entry.fuel : entry?.fuel?.id ?? '');
+
+let keyCounter = 0;
+/** A fuel-entry key not used in the workspace. */
+export function newFuelKey(ws) {
+  const used = new Set(ws.fuels.map((f) => f.key));
+  let key;
+  do key = `fuel-${(++keyCounter).toString(36)}`; while (used.has(key));
+  return key;
+}
+
+/** An option id not used in the workspace, from a base like "furnace-natural-gas". */
+export function uniqueSystemId(ws, base, except = null) {
+  const clean = (base || 'option').toLowerCase().replace(/[^a-z0-9_.-]+/g, '-').replace(/^[^a-z0-9]+/, '').slice(0, 56) || 'option';
+  const used = new Set(ws.systems.filter((s) => s !== except).map((s) => s.id));
+  if (!used.has(clean)) return clean;
+  for (let n = 2; ; n++) if (!used.has(`${clean}-${n}`)) return `${clean}-${n}`;
+}
+
+function quantity(q) {
+  return isQuantity(q) ? { value: q.value, unit: q.unit } : undefined;
+}
+
+function put(target, key, value) {
+  if (value !== undefined && value !== null && value !== '') target[key] = value;
+}
+
+function demandOf(d) {
+  const out = { method: d.method };
+  if (d.method === 'direct') {
+    put(out, 'annual_useful_heat', quantity(d.annual_useful_heat) ?? clone(d.annual_useful_heat));
+    put(out, 'balance_point', quantity(d.balance_point));
+  } else if (d.method === 'heat-loss') {
+    if (d.ua_mode === 'design') {
+      put(out, 'design_heat_loss', quantity(d.design_heat_loss));
+      put(out, 'indoor', quantity(d.indoor));
+      put(out, 'design_outdoor', quantity(d.design_outdoor));
+    } else {
+      put(out, 'ua', quantity(d.ua));
+      put(out, 'indoor', quantity(d.indoor));
+    }
+    if (d.gains_mode === 'internal_gains') put(out, 'internal_gains', quantity(d.internal_gains));
+    else put(out, 'balance_point', quantity(d.balance_point));
+    if (isNumber(d.degree_day_correction)) out.degree_day_correction = d.degree_day_correction;
+    put(out, 'hot_water', quantity(d.hot_water));
+  } else if (d.method === 'bills') {
+    out.bills = (d.bills ?? []).map((b) => {
+      const bill = {};
+      put(bill, 'start', b.start);
+      put(bill, 'end', b.end);
+      if (isNumber(b.quantity)) bill.quantity = b.quantity;
+      put(bill, 'unit', b.unit);
+      return bill;
+    });
+    if (d.bills_fuel !== undefined || d.bills_system !== undefined) {
+      put(out, 'fuel', clone(d.bills_fuel));
+      put(out, 'system', clone(d.bills_system));
+    } else {
+      put(out, 'option', d.bills_option);
+    }
+    put(out, 'balance_point', quantity(d.balance_point));
+  }
+  for (const [key, value] of Object.entries(d.extra ?? {})) if (!(key in out)) out[key] = clone(value);
+  return out;
+}
+
+const twelve = (list) => (Array.isArray(list) && list.length === 12 && list.every(isNumber) ? [...list] : undefined);
+
+function climateOf(c) {
+  const out = {};
+  if (c.mode === 'monthly_mean') {
+    out.monthly_mean = twelve(c.monthly_mean) ?? (c.monthly_mean ?? []).map((v) => (isNumber(v) ? v : null));
+    out.unit = c.unit;
+    if (twelve(c.monthly_sd)) out.monthly_sd = twelve(c.monthly_sd);
+    put(out, 'daily_range', quantity(c.daily_range));
+  } else if (c.mode === 'monthly_hdd') {
+    out.monthly_hdd = twelve(c.monthly_hdd) ?? (c.monthly_hdd ?? []).map((v) => (isNumber(v) ? v : null));
+    out.unit = c.unit;
+  } else if (c.mode === 'annual_hdd') {
+    if (isNumber(c.annual_hdd)) out.annual_hdd = c.annual_hdd;
+    out.unit = c.unit;
+    put(out, 'design_temperature', quantity(c.design_temperature));
+  }
+  put(out, 'base', quantity(c.base));
+  if (c.leap_year) out.leap_year = true;
+  for (const [key, value] of Object.entries(c.extra ?? {})) if (!(key in out)) out[key] = clone(value);
+  return out;
+}
+
+function systemOf(sys) {
+  const out = { kind: sys.kind };
+  put(out, 'catalog', sys.catalog || undefined);
+  if (isNumber(sys.efficiency?.value)) out.efficiency = { value: sys.efficiency.value, rating: sys.efficiency.rating };
+  if (isNumber(sys.distribution_loss)) out.distribution_loss = sys.distribution_loss;
+  if (isNumber(sys.age_derating)) out.age_derating = sys.age_derating;
+  if (HEAT_PUMP_KINDS.includes(sys.kind)) {
+    const ratings = (sys.ratings ?? []).filter((r) => r && (isQuantity(r.outdoor) || isQuantity(r.capacity) || isNumber(r.cop)))
+      .map((r) => {
+        const point = {};
+        put(point, 'outdoor', quantity(r.outdoor));
+        put(point, 'capacity', quantity(r.capacity));
+        if (isNumber(r.cop)) point.cop = r.cop;
+        return point;
+      });
+    if (ratings.length) out.ratings = ratings;
+    put(out, 'cutoff', quantity(sys.cutoff));
+    if (isNumber(sys.cd)) out.cd = sys.cd;
+    put(out, 'backup', sys.backup || undefined);
+    if (sys.changeover_mode === 'optimal') out.changeover = 'optimal';
+    else put(out, 'changeover', quantity(sys.changeover));
+    if (!ratings.length) put(out, 'capacity', quantity(sys.capacity));
+  }
+  for (const [key, value] of Object.entries(sys.extra ?? {})) if (!(key in out)) out[key] = clone(value);
+  return out;
+}
+
+function fixedChargeOf(charge) {
+  const out = {};
+  put(out, 'label', isText(charge.label) ? charge.label : undefined);
+  if (isNumber(charge.amount_per_month)) out.amount_per_month = charge.amount_per_month;
+  else if (isNumber(charge.amount_per_year)) out.amount_per_year = charge.amount_per_year;
+  return out;
+}
+
+function customFuelOf(fuel) {
+  const out = {};
+  for (const [key, value] of Object.entries(fuel)) {
+    if (key === 'kind') continue;
+    if (value === '' || value === null || value === undefined) continue;
+    if (typeof value === 'number' && !Number.isFinite(value)) continue;
+    out[key] = clone(value);
+  }
+  // exactly one composition, the one picked
+  const kind = fuel.kind ?? (fuel.formula ? 'formula' : fuel.mixture ? 'mixture' : 'ultimate');
+  const drop = {
+    formula: ['mixture', 'fractions', 'normalise', 'ultimate', 'moisture', 'basis'],
+    mixture: ['formula', 'phase', 'dhf_kj_per_mol', 'hhv_kj_per_mol', 'ultimate', 'moisture', 'basis'],
+    ultimate: ['formula', 'phase', 'dhf_kj_per_mol', 'hhv_kj_per_mol', 'mixture', 'fractions', 'normalise'],
+  }[kind] ?? [];
+  for (const key of drop) delete out[key];
+  if (out.normalise === false) delete out.normalise;
+  return out;
+}
+
+/** Builds the scenario document of a workspace (what is exported, evaluated and saved). */
+export function toScenario(ws) {
+  const doc = { schema: SCENARIO_SCHEMA };
+  put(doc, 'title', isText(ws.title) ? ws.title : undefined);
+  put(doc, 'description', isText(ws.description) ? ws.description : undefined);
+  const quote = {};
+  for (const key of ['customer', 'site', 'date', 'prepared_by', 'notes']) {
+    if (isText(ws.quote?.[key])) quote[key] = ws.quote[key];
+  }
+  if (Object.keys(quote).length) doc.quote = quote;
+  const settings = { units: ws.settings.units, currency: ws.settings.currency };
+  put(settings, 'gwp', ws.settings.gwp);
+  if (isNumber(ws.settings.electricity_co2e_kg_per_kwh)) settings.electricity_co2e_kg_per_kwh = ws.settings.electricity_co2e_kg_per_kwh;
+  doc.settings = settings;
+  doc.demand = demandOf(ws.demand);
+  if (ws.climate && ws.climate.mode !== 'none') doc.climate = climateOf(ws.climate);
+
+  const fuels = new Map(ws.fuels.map((f) => [f.key, f]));
+  doc.options = ws.systems.map((sys) => {
+    const entry = fuels.get(sys.fuel_key);
+    const option = { id: sys.id };
+    put(option, 'label', isText(sys.label) ? sys.label : undefined);
+    if (entry) {
+      option.fuel = typeof entry.fuel === 'string' ? entry.fuel : customFuelOf(entry.fuel);
+      option.price = { amount: entry.price?.amount, per: entry.price?.per };
+      if (!isNumber(option.price.amount)) delete option.price.amount;
+      const charges = (entry.fixed_charges ?? []).map(fixedChargeOf).filter((c) => 'amount_per_month' in c || 'amount_per_year' in c);
+      if (charges.length) option.fixed_charges = charges;
+      if (isNumber(entry.heating_value?.value)) {
+        option.heating_value = { value: entry.heating_value.value, unit: entry.heating_value.unit };
+        put(option.heating_value, 'basis', entry.heating_value.basis);
+      }
+      const fid = fuelId(entry);
+      if (fid === 'cordwood') {
+        put(option, 'wood_species', entry.wood_species || undefined);
+        if (isNumber(entry.face_cord_fraction)) option.face_cord_fraction = entry.face_cord_fraction;
+      }
+      if (fid === 'cordwood' || fid === 'wood-pellets') {
+        if (isNumber(entry.moisture_pct)) option.moisture_pct = entry.moisture_pct;
+      }
+      if (fid === 'wood-pellets' && option.price.per === 'bag') put(option, 'bag_mass', quantity(entry.bag_mass));
+    }
+    option.system = systemOf(sys.system ?? {});
+    if (ws.economics?.enabled) {
+      if (sys.existing) option.existing = true;
+      for (const key of ECONOMIC_FIELDS.slice(1)) if (isNumber(sys[key])) option[key] = sys[key];
+    }
+    for (const [key, value] of Object.entries(sys.extra ?? {})) if (!(key in option)) option[key] = clone(value);
+    return option;
+  });
+
+  if (ws.economics?.enabled) {
+    const e = ws.economics;
+    const economics = {};
+    if (isNumber(e.analysis_years)) economics.analysis_years = e.analysis_years;
+    if (isNumber(e.discount_rate)) economics.discount_rate = e.discount_rate;
+    const escalation = {};
+    if (isNumber(e.escalation_default)) escalation.default = e.escalation_default;
+    for (const entry of ws.fuels) {
+      const id = fuelId(entry);
+      if (id && isNumber(entry.escalation) && !(id in escalation)) escalation[id] = entry.escalation;
+    }
+    if (Object.keys(escalation).length) economics.escalation = escalation;
+    put(economics, 'basis', e.basis);
+    doc.economics = economics;
+  }
+  if (ws.uncertainty?.enabled) {
+    const u = ws.uncertainty;
+    const uncertainty = {};
+    if (isNumber(u.draws)) uncertainty.draws = u.draws;
+    if (isNumber(u.seed)) uncertainty.seed = u.seed;
+    const spread = {};
+    for (const entry of ws.fuels) {
+      const id = fuelId(entry);
+      if (id && isNumber(entry.spread) && !(id in spread)) spread[id] = entry.spread;
+    }
+    if (Object.keys(spread).length) uncertainty.spread = spread;
+    doc.uncertainty = uncertainty;
+  }
+  return doc;
+}
+
+/**
+ * The workspace path of the field a scenario path (an error's `path`) points at,
+ * e.g. "/options/1/price/amount" -> "/fuels/0/price/amount".
+ */
+export function workspacePath(path, ws) {
+  const parts = path.split('/');
+  if (parts[1] === 'options' && /^\d+$/.test(parts[2] ?? '')) {
+    const index = Number(parts[2]);
+    const sys = ws.systems[index];
+    if (!sys) return '/systems';
+    const field = parts[3];
+    if (field === undefined) return `/systems/${index}`;
+    if (FUEL_FIELDS.includes(field)) {
+      const fi = ws.fuels.findIndex((f) => f.key === sys.fuel_key);
+      if (fi < 0) return `/systems/${index}/fuel_key`;
+      return [`/fuels/${fi}`, ...parts.slice(3)].join('/');
+    }
+    if (field === 'system' && parts[4] === 'changeover') return `/systems/${index}/system/changeover`;
+    return [`/systems/${index}`, ...parts.slice(3)].join('/');
+  }
+  if (parts[1] === 'economics' && parts[2] === 'escalation') {
+    if (parts[3] === 'default' || parts[3] === undefined) return '/economics/escalation_default';
+    const fi = ws.fuels.findIndex((f) => fuelId(f) === parts[3]);
+    return fi >= 0 ? `/fuels/${fi}/escalation` : '/economics';
+  }
+  if (parts[1] === 'uncertainty' && parts[2] === 'spread') {
+    const fi = ws.fuels.findIndex((f) => fuelId(f) === parts[3]);
+    return fi >= 0 ? `/fuels/${fi}/spread` : '/uncertainty';
+  }
+  if (parts[1] === 'demand' && parts[2] === 'option') return '/demand/bills_option';
+  return path;
+}
+
+function splitOption(option) {
+  const fuelPart = {};
+  const systemPart = {};
+  const extra = {};
+  for (const [key, value] of Object.entries(option)) {
+    if (FUEL_FIELDS.includes(key)) fuelPart[key] = clone(value);
+    else if (SYSTEM_FIELDS.includes(key)) systemPart[key] = clone(value);
+    else extra[key] = clone(value);
+  }
+  return { fuelPart, systemPart, extra };
+}
+
+function systemFromScenario(sys = {}) {
+  const known = ['kind', 'catalog', 'efficiency', 'distribution_loss', 'age_derating', 'ratings', 'cutoff', 'cd',
+    'backup', 'changeover', 'capacity'];
+  const out = { kind: sys.kind ?? 'furnace', catalog: sys.catalog ?? '', efficiency: clone(sys.efficiency) ?? { rating: '' } };
+  for (const key of ['distribution_loss', 'age_derating', 'cutoff', 'cd', 'backup', 'capacity']) {
+    if (sys[key] !== undefined) out[key] = clone(sys[key]);
+  }
+  out.ratings = clone(sys.ratings) ?? [];
+  if (sys.changeover === 'optimal') out.changeover_mode = 'optimal';
+  else if (sys.changeover !== undefined) {
+    out.changeover_mode = 'temperature';
+    out.changeover = clone(sys.changeover);
+  }
+  const extra = Object.fromEntries(Object.entries(sys).filter(([key]) => !known.includes(key)));
+  if (Object.keys(extra).length) out.extra = clone(extra);
+  return out;
+}
+
+/** Builds a workspace from a scenario document (an imported file or an example). */
+export function fromScenario(doc) {
+  if (!doc || typeof doc !== 'object' || doc.schema !== SCENARIO_SCHEMA) {
+    throw new Error(`not a Fuelwright scenario: "schema" must be "${SCENARIO_SCHEMA}"`);
+  }
+  if (!Array.isArray(doc.options)) throw new Error('the scenario has no "options" list');
+  const settings = doc.settings ?? {};
+  const ws = blankWorkspace({ units: settings.units === 'metric' ? 'metric' : 'us', currency: settings.currency ?? 'USD' });
+  ws.title = doc.title ?? '';
+  ws.description = doc.description ?? '';
+  ws.quote = { ...ws.quote, date: '', ...(doc.quote ?? {}) };
+  ws.settings.gwp = settings.gwp ?? ws.settings.gwp;
+  if (settings.electricity_co2e_kg_per_kwh !== undefined) ws.settings.electricity_co2e_kg_per_kwh = settings.electricity_co2e_kg_per_kwh;
+
+  const d = doc.demand ?? { method: 'direct' };
+  const wd = ws.demand;
+  wd.method = d.method ?? 'direct';
+  const demandKnown = ['method', 'annual_useful_heat', 'balance_point', 'ua', 'design_heat_loss', 'indoor', 'design_outdoor',
+    'internal_gains', 'degree_day_correction', 'hot_water', 'bills', 'option', 'fuel', 'system'];
+  for (const key of ['annual_useful_heat', 'balance_point', 'ua', 'design_heat_loss', 'indoor', 'design_outdoor',
+    'internal_gains', 'hot_water']) {
+    if (d[key] !== undefined) wd[key] = clone(d[key]);
+  }
+  if (d.design_heat_loss !== undefined && d.ua === undefined) wd.ua_mode = 'design';
+  if (d.internal_gains !== undefined && d.balance_point === undefined) wd.gains_mode = 'internal_gains';
+  if (d.degree_day_correction !== undefined) wd.degree_day_correction = d.degree_day_correction;
+  if (Array.isArray(d.bills)) wd.bills = clone(d.bills);
+  if (d.option !== undefined) wd.bills_option = d.option;
+  if (d.fuel !== undefined) wd.bills_fuel = clone(d.fuel);
+  if (d.system !== undefined) wd.bills_system = clone(d.system);
+  const demandExtra = Object.fromEntries(Object.entries(d).filter(([key]) => !demandKnown.includes(key)));
+  if (Object.keys(demandExtra).length) wd.extra = clone(demandExtra);
+
+  if (doc.climate && typeof doc.climate === 'object') {
+    const c = doc.climate;
+    const wc = ws.climate;
+    wc.mode = c.monthly_mean ? 'monthly_mean' : c.monthly_hdd ? 'monthly_hdd' : c.annual_hdd !== undefined ? 'annual_hdd' : 'monthly_mean';
+    if (c.unit) wc.unit = c.unit;
+    if (c.monthly_mean) wc.monthly_mean = clone(c.monthly_mean);
+    if (c.monthly_hdd) wc.monthly_hdd = clone(c.monthly_hdd);
+    if (c.monthly_sd) wc.monthly_sd = clone(c.monthly_sd);
+    if (c.annual_hdd !== undefined) wc.annual_hdd = c.annual_hdd;
+    for (const key of ['base', 'design_temperature', 'daily_range']) if (c[key] !== undefined) wc[key] = clone(c[key]);
+    wc.leap_year = Boolean(c.leap_year);
+    const climateKnown = ['monthly_mean', 'monthly_hdd', 'monthly_sd', 'annual_hdd', 'unit', 'base', 'design_temperature',
+      'daily_range', 'leap_year'];
+    const extra = Object.fromEntries(Object.entries(c).filter(([key]) => !climateKnown.includes(key)));
+    if (Object.keys(extra).length) wc.extra = clone(extra);
+  }
+
+  const byFuel = new Map();
+  for (const option of doc.options) {
+    const { fuelPart, systemPart, extra } = splitOption(option);
+    const signature = JSON.stringify(FUEL_FIELDS.map((key) => fuelPart[key] ?? null));
+    let entry = byFuel.get(signature);
+    if (!entry) {
+      entry = {
+        key: newFuelKey(ws),
+        fuel: typeof fuelPart.fuel === 'object' && fuelPart.fuel
+          ? { kind: fuelPart.fuel.formula !== undefined ? 'formula' : fuelPart.fuel.mixture !== undefined ? 'mixture' : 'ultimate', ...fuelPart.fuel }
+          : fuelPart.fuel ?? '',
+        price: fuelPart.price ?? { per: '' },
+        fixed_charges: fuelPart.fixed_charges ?? [],
+      };
+      for (const key of ['heating_value', 'wood_species', 'moisture_pct', 'bag_mass', 'face_cord_fraction']) {
+        if (fuelPart[key] !== undefined) entry[key] = fuelPart[key];
+      }
+      byFuel.set(signature, entry);
+      ws.fuels.push(entry);
+    }
+    const sys = {
+      id: systemPart.id ?? uniqueSystemId(ws, 'option'),
+      label: systemPart.label ?? '',
+      fuel_key: entry.key,
+      system: systemFromScenario(systemPart.system),
+    };
+    for (const key of ECONOMIC_FIELDS) if (systemPart[key] !== undefined) sys[key] = systemPart[key];
+    if (Object.keys(extra).length) sys.extra = extra;
+    ws.systems.push(sys);
+  }
+
+  if (doc.economics && typeof doc.economics === 'object') {
+    const e = doc.economics;
+    ws.economics = {
+      enabled: true,
+      analysis_years: e.analysis_years,
+      discount_rate: e.discount_rate,
+      escalation_default: e.escalation?.default,
+      basis: e.basis ?? 'real',
+    };
+    for (const [id, rate] of Object.entries(e.escalation ?? {})) {
+      if (id === 'default') continue;
+      for (const entry of ws.fuels) if (fuelId(entry) === id) entry.escalation = rate;
+    }
+  } else if (doc.options.some((o) => ECONOMIC_FIELDS.some((key) => o[key] !== undefined))) {
+    ws.economics.enabled = true;
+  }
+  if (doc.uncertainty && typeof doc.uncertainty === 'object') {
+    const u = doc.uncertainty;
+    ws.uncertainty = { enabled: true, draws: u.draws, seed: u.seed };
+    for (const [id, spread] of Object.entries(u.spread ?? {})) {
+      for (const entry of ws.fuels) if (fuelId(entry) === id) entry.spread = spread;
+    }
+  }
+  return ws;
+}

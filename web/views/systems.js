@@ -1,0 +1,132 @@
+// Panel 3, heating systems: the existing system and the candidates, each with
+// its fuel, kind, catalog record and nameplate rating; heat-pump data-sheet
+// points and dual-fuel changeover; installed costs when the life-cycle view is on.
+import { h } from '../dom.js';
+import { checkField, numberField, radioField, selectField, textField } from '../fields.js';
+import { HEAT_PUMP_KINDS, RATINGS, SYSTEM_KINDS, fuelId } from '../scenario.js';
+import { fuelName } from './fuels.js';
+
+const TEMPS = ['degF', 'degC'];
+const CAPACITY = ['Btu/h', 'kW', 'W'];
+export const KIND_NAMES = {
+  furnace: 'Furnace', boiler: 'Boiler', stove: 'Stove', 'electric-resistance': 'Electric resistance',
+  'air-source-heat-pump': 'Air-source heat pump', 'ground-source-heat-pump': 'Ground-source heat pump',
+};
+const RATING_NAMES = {
+  AFUE: 'AFUE %', thermal: 'thermal %', 'seasonal-gcv': 'seasonal % (gross)', 'seasonal-ncv': 'seasonal % (net)',
+  COP: 'COP', SCOP: 'SCOP', HSPF: 'HSPF', HSPF2: 'HSPF2',
+};
+
+function heatPumpFields(ctx, ws, base, sys, index) {
+  const rows = (sys.ratings ?? []).map((point, i) => {
+    const p = `${base}/system/ratings/${i}`;
+    return h('div', { class: 'row-card' },
+      h('div', { class: 'grid three' },
+        numberField(ctx, { label: `Point ${i + 1}: outdoor`, path: `${p}/outdoor/value`, value: point.outdoor?.value,
+          unit: { path: `${p}/outdoor/unit`, value: point.outdoor?.unit ?? 'degF', choices: TEMPS } }),
+        numberField(ctx, { label: 'Capacity', path: `${p}/capacity/value`, value: point.capacity?.value,
+          unit: { path: `${p}/capacity/unit`, value: point.capacity?.unit ?? 'Btu/h', choices: CAPACITY } }),
+        numberField(ctx, { label: 'COP', path: `${p}/cop`, value: point.cop })),
+      h('button', { type: 'button', class: 'quiet', dataset: { action: 'remove-rating', system: String(index), index: String(i) }, text: `Remove point ${i + 1}` }));
+  });
+  const others = ws.systems.filter((s, j) => j !== index).map((s) => [s.id, `${s.label || s.id}`]);
+  const nodes = [
+    h('p', { class: 'hint', text: 'Data-sheet points, e.g. at 47, 17 and 5 °F. With them the heat pump is worked out over temperature bins.' }),
+    h('div', { class: 'rows' }, rows),
+    h('button', { type: 'button', class: 'secondary', dataset: { action: 'add-rating', system: String(index) }, text: 'Add a data-sheet point' }),
+  ];
+  if (!(sys.ratings ?? []).length) {
+    nodes.push(numberField(ctx, { label: 'Capacity at 47 °F (optional)', path: `${base}/system/capacity/value`, value: sys.capacity?.value,
+      unit: { path: `${base}/system/capacity/unit`, value: sys.capacity?.unit ?? 'Btu/h', choices: CAPACITY } }));
+  }
+  nodes.push(h('div', { class: 'grid two' },
+    numberField(ctx, { label: 'Cut-off temperature (optional)', path: `${base}/system/cutoff/value`, value: sys.cutoff?.value,
+      unit: { path: `${base}/system/cutoff/unit`, value: sys.cutoff?.unit ?? (ws.settings.units === 'us' ? 'degF' : 'degC'), choices: TEMPS } }),
+    numberField(ctx, { label: 'Cycling coefficient Cd (optional)', path: `${base}/system/cd`, value: sys.cd })));
+  nodes.push(selectField(ctx, { label: 'Backup heat', path: `${base}/system/backup`, value: sys.backup ?? '', structural: true,
+    choices: [['', 'None'], ['electric-resistance', 'Electric resistance strips'], ...others.map(([id, label]) => [id, `${label} (dual fuel)`])] }));
+  if (sys.backup && sys.backup !== 'electric-resistance') {
+    nodes.push(radioField(ctx, { legend: 'Change over to the backup', path: `${base}/system/changeover_mode`, value: sys.changeover_mode ?? 'temperature',
+      choices: [['temperature', 'Below a set temperature'], ['optimal', 'When it is cheaper (optimal)']] }));
+    if ((sys.changeover_mode ?? 'temperature') === 'temperature') {
+      nodes.push(numberField(ctx, { label: 'Changeover temperature', path: `${base}/system/changeover/value`, value: sys.changeover?.value,
+        unit: { path: `${base}/system/changeover/unit`, value: sys.changeover?.unit ?? 'degF', choices: TEMPS } }));
+    }
+  }
+  return h('details', { class: 'more', open: (sys.ratings ?? []).length > 0 || Boolean(sys.backup) },
+    h('summary', { text: 'Heat-pump data sheet and backup' }), nodes);
+}
+
+function economicFields(ctx, ws, base, sys) {
+  const currency = ws.settings.currency;
+  return h('div', { class: 'economics' },
+    checkField(ctx, { label: 'This is the system in the house now', path: `${base}/existing`, checked: sys.existing, structural: true }),
+    h('div', { class: 'grid two' },
+      sys.existing ? null : numberField(ctx, { label: 'Installed cost', path: `${base}/installed_cost`, value: sys.installed_cost, unit: currency }),
+      sys.existing ? null : numberField(ctx, { label: 'Incentives and rebates', path: `${base}/incentives`, value: sys.incentives, unit: currency }),
+      numberField(ctx, { label: 'Maintenance per year', path: `${base}/annual_maintenance`, value: sys.annual_maintenance, unit: currency }),
+      numberField(ctx, { label: 'Expected life', path: `${base}/life_years`, value: sys.life_years, unit: 'years' })));
+}
+
+function systemCard(ctx, ws, sys, index) {
+  const { catalog } = ctx;
+  const base = `/systems/${index}`;
+  const entry = ws.fuels.find((f) => f.key === sys.fuel_key);
+  const fid = fuelId(entry);
+  const kind = sys.system?.kind ?? 'furnace';
+  const models = catalog.systems.filter((m) => m.kind === kind && (!fid || typeof entry?.fuel === 'object' || m.fuels.includes(fid)));
+  const model = catalog.systemsById.get(sys.system?.catalog);
+  const ratings = model?.ratings ?? RATINGS;
+  const typical = model?.typical;
+  const nodes = [
+    h('div', { class: 'card-head' },
+      h('h3', { text: sys.label || sys.id }),
+      sys.existing && ws.economics?.enabled ? h('span', { class: 'badge existing', text: 'existing' }) : null),
+    h('div', { class: 'grid two' },
+      textField(ctx, { label: 'Name on the quote', path: `${base}/label`, value: sys.label, maxlength: 120 }),
+      selectField(ctx, { label: 'Fuel', path: `${base}/fuel_key`, value: sys.fuel_key ?? '', structural: true,
+        choices: [['', 'Choose a fuel…'], ...ws.fuels.map((f) => [f.key, fuelName(f, catalog)])] }),
+      selectField(ctx, { label: 'Kind', path: `${base}/system/kind`, value: kind, structural: true,
+        choices: SYSTEM_KINDS.map((k) => [k, KIND_NAMES[k]]) }),
+      selectField(ctx, { label: 'Catalog type', path: `${base}/system/catalog`, value: sys.system?.catalog ?? '', structural: true,
+        choices: [['', 'None (rating below)'], ...models.map((m) => [m.id, `${KIND_NAMES[m.kind]}, ${m.variant}`])] })),
+    h('div', { class: 'grid two' },
+      numberField(ctx, { label: 'Rated efficiency', path: `${base}/system/efficiency/value`, value: sys.system?.efficiency?.value,
+        placeholder: typical ? String(typical.value) : undefined,
+        unit: { path: `${base}/system/efficiency/rating`, value: sys.system?.efficiency?.rating || typical?.rating || ratings[0],
+          choices: ratings.map((r) => [r, RATING_NAMES[r] ?? r]) },
+        hint: typical ? `Typical ${typical.value} ${typical.rating}, minimum ${model.minimum?.value} ${model.minimum?.rating}.` : undefined }),
+      h('div', { class: 'grid two tight' },
+        numberField(ctx, { label: 'Duct or pipe loss', path: `${base}/system/distribution_loss`, value: sys.system?.distribution_loss, scale: 100, unit: '%' }),
+        numberField(ctx, { label: 'Loss with age', path: `${base}/system/age_derating`, value: sys.system?.age_derating, scale: 100, unit: '%' }))),
+  ];
+  if (HEAT_PUMP_KINDS.includes(kind)) nodes.push(heatPumpFields(ctx, ws, base, sys.system ?? {}, index));
+  if (ws.economics?.enabled) nodes.push(economicFields(ctx, ws, base, sys));
+  nodes.push(h('div', { class: 'card-actions' },
+    h('button', { type: 'button', class: 'quiet', dataset: { action: 'duplicate-system', index: String(index) }, text: 'Duplicate' }),
+    h('button', { type: 'button', class: 'quiet danger', dataset: { action: 'remove-system', index: String(index) }, text: 'Remove' })));
+  return h('article', { class: 'card system-card', dataset: { field: base, systemId: sys.id } }, nodes);
+}
+
+/** Renders the systems panel. */
+export function renderSystems(container, ctx) {
+  const ws = ctx.store.state;
+  const e = ws.economics;
+  const cards = ws.systems.map((sys, i) => systemCard(ctx, ws, sys, i));
+  const add = h('div', { class: 'add-row' },
+    h('label', { for: 'add-system-kind', text: 'Add a system' }),
+    h('div', { class: 'with-unit' },
+      h('select', { id: 'add-system-kind' }, SYSTEM_KINDS.map((k) => h('option', { value: k, text: KIND_NAMES[k] }))),
+      h('button', { type: 'button', class: 'primary', dataset: { action: 'add-system' }, text: 'Add' })));
+  const economics = h('fieldset', { class: 'group' }, h('legend', { text: 'Costs over the years' }),
+    checkField(ctx, { label: 'Compare installed costs, payback and life-cycle cost', path: '/economics/enabled', checked: e.enabled, structural: true }),
+    e.enabled ? h('div', { class: 'grid two' },
+      numberField(ctx, { label: 'Years to compare', path: '/economics/analysis_years', value: e.analysis_years, unit: 'years' }),
+      numberField(ctx, { label: 'Discount rate', path: '/economics/discount_rate', value: e.discount_rate, scale: 100, unit: '%' }),
+      numberField(ctx, { label: 'Energy prices rise by', path: '/economics/escalation_default', value: e.escalation_default, scale: 100, unit: '% a year' }),
+      selectField(ctx, { label: 'Money in', path: '/economics/basis', value: e.basis ?? 'real',
+        choices: [['real', 'today\'s money (real)'], ['nominal', 'future money (nominal)']] })) : null);
+  container.replaceChildren(
+    ws.fuels.length ? null : h('p', { class: 'notice', text: 'Add a fuel with its local price first (Fuels tab).' }),
+    h('div', { class: 'cards' }, cards), add, economics);
+}
