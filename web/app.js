@@ -504,20 +504,15 @@ function fileStem(ws) {
 }
 
 async function importFile(file) {
-  const msg = $('#import-msg');
   try {
     const doc = JSON.parse(await file.text());
     const ws = fromScenario(doc);
     await openWorkspace(ws);
-    msg.textContent = `Imported “${file.name}”.`;
-    msg.className = 'field-msg ok';
-    msg.hidden = false;
+    quotes.importMessage = { ok: true, text: `Imported “${file.name}”.` };
   } catch (failure) {
-    const again = $('#import-msg');
-    again.textContent = `Could not import “${file.name}”: ${failure.message}`;
-    again.className = 'field-msg';
-    again.hidden = false;
+    quotes.importMessage = { ok: false, text: `Could not import “${file.name}”: ${failure.message}` };
   }
+  paintQuotes();
 }
 
 // ---------------------------------------------------------------------------
@@ -583,6 +578,10 @@ const ACTIONS = {
   'delete-quote': async (d) => {
     const record = await storage.get(d.id);
     if (!record) return;
+    if (d.id === quotes.currentId) {
+      clearTimeout(saveTimer);
+      saveTimer = 0;
+    }
     await storage.delete(d.id);
     quotes.records = quotes.records.filter((r) => r.id !== d.id);
     quotes.undo = record;
@@ -608,7 +607,7 @@ const ACTIONS = {
 };
 
 function onClick(event) {
-  const tabButton = event.target.closest('[data-tab]');
+  const tabButton = event.target.closest('button[data-tab]');
   if (tabButton) {
     setTab(tabButton.dataset.tab);
     if (tabButton.closest('.summary-bar')) $('#tab-verdict').focus();

@@ -37,7 +37,8 @@ export function renderQuotes(container, ctx, state) {
         h('button', { type: 'button', class: 'secondary', dataset: { action: 'export-json' }, text: 'Export this quote (JSON)' }),
         h('label', { class: 'button secondary', for: 'import-file', text: 'Import a quote file' }),
         h('input', { id: 'import-file', type: 'file', accept: '.json,application/json', class: 'visually-hidden' })),
-      h('p', { class: 'field-msg', id: 'import-msg', role: 'status', hidden: true })),
+      h('p', { class: state.importMessage?.ok ? 'field-msg ok' : 'field-msg', id: 'import-msg', role: 'status',
+        hidden: !state.importMessage, text: state.importMessage?.text ?? '' })),
     h('p', { class: 'hint', id: 'storage-kind', text: `Saved automatically on this device (${state.storageKind}).` }));
   const input = container.querySelector('#quote-search');
   input.addEventListener('input', () => ctx.onSearch(input.value));

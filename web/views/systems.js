@@ -126,7 +126,7 @@ export function renderSystems(container, ctx) {
       numberField(ctx, { label: 'Energy prices rise by', path: '/economics/escalation_default', value: e.escalation_default, scale: 100, unit: '% a year' }),
       selectField(ctx, { label: 'Money in', path: '/economics/basis', value: e.basis ?? 'real',
         choices: [['real', 'today\'s money (real)'], ['nominal', 'future money (nominal)']] })) : null);
-  container.replaceChildren(
+  container.replaceChildren(...[
     ws.fuels.length ? null : h('p', { class: 'notice', text: 'Add a fuel with its local price first (Fuels tab).' }),
-    h('div', { class: 'cards' }, cards), add, economics);
+    h('div', { class: 'cards' }, cards), add, economics].filter(Boolean));
 }

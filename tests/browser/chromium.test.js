@@ -1,0 +1,375 @@
+// The assembled site in headless Chromium (playwright-core driving the
+// system's /usr/bin/chromium) with touch at tablet viewports, portrait
+// 820x1180 and landscape 1180x820: the demo verdict, a scenario typed in and
+// checked against the native CLI, unit / currency / locale switches, saved
+// quotes, export and import, inline core errors, the print layout, user text
+// shown literally, and an offline reload from the service worker.
+import assert from 'node:assert/strict';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { after, before, describe, test } from 'node:test';
+
+import { chromium } from 'playwright-core';
+
+import { siteDir } from '../node/helpers.js';
+import { serve } from './server.js';
+import { TYPED, cliEvaluate, close, money, typedScenario } from './scenario-fixture.js';
+
+const TIMEOUT = 30_000;
+const CHROMIUM = process.env.FUELWRIGHT_CHROMIUM ?? '/usr/bin/chromium';
+const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+  '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+const ARTIFACTS = resolve(process.env.FUELWRIGHT_ARTIFACTS ?? join(siteDir, '..', 'test-artifacts'));
+const MMBTU_KWH = 293.07107017222222;
+const LB_KG = 0.45359237;
+
+let server;
+let profile;
+let context;
+let page;
+const consoleErrors = [];
+const dialogs = [];
+
+before(async () => {
+  mkdirSync(ARTIFACTS, { recursive: true });
+  server = await serve(siteDir);
+  profile = mkdtempSync(join(tmpdir(), 'fuelwright-chromium-'));
+  context = await chromium.launchPersistentContext(profile, {
+    executablePath: CHROMIUM, headless: true, args: ARGS, viewport: { width: 820, height: 1180 },
+    hasTouch: true, isMobile: true, deviceScaleFactor: 1, acceptDownloads: true, timeout: TIMEOUT,
+  });
+  context.setDefaultTimeout(TIMEOUT);
+  page = context.pages()[0] ?? await context.newPage();
+  page.on('console', (message) => { if (message.type() === 'error') consoleErrors.push(message.text()); });
+  page.on('pageerror', (error) => consoleErrors.push(String(error)));
+  page.on('dialog', (dialog) => { dialogs.push(dialog.message()); dialog.dismiss(); });
+}, { timeout: TIMEOUT });
+
+after(async () => {
+  await context?.close();
+  await server?.close();
+  if (profile) rmSync(profile, { recursive: true, force: true });
+}, { timeout: TIMEOUT });
+
+/** Waits until the verdict shows the result of the latest edit. */
+async function settled(state = 'done') {
+  await page.waitForFunction((want) => {
+    const body = document.querySelector('#verdict-body');
+    return body && body.dataset.state === want && document.querySelector('#progress').hidden;
+  }, state);
+  await page.waitForTimeout(250);  // past the debounce of any later keystroke
+  await page.waitForFunction((want) => document.querySelector('#verdict-body').dataset.state === want, state);
+}
+
+async function tab(name) {
+  await page.tap(`#tab-${name}`);
+}
+
+/** The verdict row of an option: annual cost, cost per useful unit, fuel and CO2e (data-value, text). */
+async function row(id) {
+  return page.evaluate((optionId) => {
+    const tr = document.querySelector(`#verdict-table tr[data-option="${optionId}"]`);
+    if (!tr) return null;
+    const cell = (key) => {
+      const b = tr.querySelector(`button.num[data-key="${key}"]`);
+      return { value: Number(b?.dataset.value), text: b?.textContent };
+    };
+    return { annual: cell('annual_cost'), perUseful: cell('cost_per_useful'), fuel: cell('fuel_quantity'), co2e: cell('co2e'),
+      header: [...document.querySelectorAll('#verdict-table thead th')].map((th) => th.textContent) };
+  }, id);
+}
+
+async function typeInto(selector, text) {
+  await page.tap(selector);
+  await page.fill(selector, '');
+  await page.type(selector, text);
+}
+
+describe('Chromium, tablet portrait 820x1180 with touch', () => {
+  test('shows the demo verdict on first start, equal to the CLI', { timeout: TIMEOUT }, async () => {
+    await page.goto(server.url);
+    await settled();
+    const scenario = await page.evaluate(async () => {
+      const { toScenario } = await import('./scenario.js');
+      const { demoWorkspace } = await import('./demo.js');
+      return toScenario(demoWorkspace());
+    });
+    const cli = await cliEvaluate(scenario);
+    assert.deepEqual(cli.errors, []);
+    const best = cli.options.find((o) => o.id === cli.ranking[0].id);
+    assert.equal(await page.textContent('#best-option'), best.label);
+    for (const option of cli.options) {
+      const shown = await row(option.id);
+      assert.ok(close(shown.annual.value, option.annual_cost), `${option.id} annual cost`);
+      assert.equal(shown.annual.text, money(option.annual_cost));
+    }
+    const cautions = await page.$$eval('#verdict-cautions li', (items) => items.map((li) => li.textContent));
+    assert.deepEqual(cautions, cli.cautions);
+    assert.equal(await page.locator('#chart-cost svg').count(), 1);
+    await page.waitForSelector('#chart-sweep svg');
+    assert.ok(await page.locator('#chart-sweep circle.break-even').count() >= 1, 'break-even points are marked');
+    await page.screenshot({ path: join(ARTIFACTS, 'chromium-portrait-verdict.png'), fullPage: true });
+    assert.deepEqual(consoleErrors, []);
+  });
+
+  test('a tap on a number shows its trace and sources', { timeout: TIMEOUT }, async () => {
+    await page.tap('#verdict-table tbody tr:first-child button.num[data-key="annual_cost"]');
+    await page.waitForSelector('#trace-dialog[open] #trace-steps li');
+    assert.ok(await page.locator('#trace-sources li').count() > 0);
+    await page.tap('#trace-close');
+    await page.waitForSelector('#trace-dialog:not([open])', { state: 'attached' });
+  });
+
+  test('a scenario typed in gives the CLI\'s numbers', { timeout: TIMEOUT }, async () => {
+    await tab('saved');
+    await page.tap('[data-action="new-quote"]');
+    await page.waitForSelector('#f-quote-customer');
+    await typeInto('#f-quote-customer', TYPED.customer);
+    await typeInto('#f-quote-site', TYPED.site);
+    await typeInto('#f-demand-annual-useful-heat-value', TYPED.heat);
+    await tab('fuels');
+    await page.selectOption('#add-fuel-choice', 'natural-gas');
+    await page.tap('[data-action="add-fuel"]');
+    await typeInto('#f-fuels-0-price-amount', TYPED.gasPrice);
+    await page.tap('[data-action="add-charge"]');
+    await typeInto('#f-fuels-0-fixed-charges-0-label', 'Customer charge');
+    await typeInto('#f-fuels-0-fixed-charges-0-amount-per-month', TYPED.gasCharge);
+    await page.selectOption('#add-fuel-choice', 'electricity');
+    await page.tap('[data-action="add-fuel"]');
+    await typeInto('#f-fuels-1-price-amount', TYPED.electricityPrice);
+    await tab('systems');
+    await page.selectOption('#add-system-kind', 'furnace');
+    await page.tap('[data-action="add-system"]');
+    await page.selectOption('#f-systems-0-system-catalog', 'gas-furnace-condensing');
+    await typeInto('#f-systems-0-system-efficiency-value', TYPED.furnaceAfue);
+    await page.selectOption('#add-system-kind', 'air-source-heat-pump');
+    await page.tap('[data-action="add-system"]');
+    await typeInto('#f-systems-1-system-efficiency-value', TYPED.heatPumpHspf2);
+    await tab('verdict');
+    await settled();
+
+    const expected = typedScenario();
+    const cli = await cliEvaluate(expected);
+    assert.deepEqual(cli.errors, []);
+    for (const option of cli.options) {
+      const shown = await row(option.id);
+      assert.ok(shown, `row for ${option.id}`);
+      assert.ok(close(shown.annual.value, option.annual_cost), `${option.id} annual ${shown.annual.value} vs ${option.annual_cost}`);
+      assert.equal(shown.annual.text, money(option.annual_cost));
+      assert.ok(close(shown.perUseful.value, option.cost_per_useful_mmbtu), `${option.id} per MMBtu`);
+      assert.ok(close(shown.fuel.value, option.fuel_quantity.value), `${option.id} fuel quantity`);
+      assert.ok(close(shown.co2e.value, option.co2e_kg / LB_KG), `${option.id} CO2e in lb`);
+    }
+    const order = await page.$$eval('#verdict-table tbody tr', (rows) => rows.map((r) => r.dataset.option));
+    assert.deepEqual(order, cli.ranking.map((r) => r.id));
+    assert.equal(await page.textContent('#useful-heat'), '80 MMBtu a year');
+    assert.deepEqual(consoleErrors, []);
+  });
+
+  test('switching units converts the numbers; currency and locale reformat them', { timeout: TIMEOUT }, async () => {
+    const cli = await cliEvaluate(typedScenario());
+    const gas = cli.options[0];
+    await page.tap('label[for="units-metric"]');
+    await settled();
+    let shown = await row(gas.id);
+    assert.ok(shown.header.includes('Per kWh of heat'), shown.header.join('|'));
+    assert.ok(close(shown.perUseful.value, gas.cost_per_useful_kwh), 'cost per useful kWh');
+    assert.ok(close(shown.co2e.value, gas.co2e_kg), 'CO2e in kg');
+    assert.ok(close(shown.annual.value, gas.annual_cost), 'annual cost unchanged');
+    assert.equal(await page.textContent('#useful-heat'), `${new Intl.NumberFormat('en-US', { maximumFractionDigits: 0 }).format(80 * MMBTU_KWH)} kWh a year`);
+    await tab('house');
+    assert.equal(await page.inputValue('#f-demand-annual-useful-heat-value'), '23445.7');
+    assert.equal(await page.inputValue('#f-demand-annual-useful-heat-unit'), 'kWh');
+
+    await page.selectOption('#energy-unit', 'GJ');
+    await settled();
+    shown = await row(gas.id);
+    assert.ok(close(shown.perUseful.value, gas.cost_per_useful_gj), 'cost per useful GJ');
+
+    await typeInto('#currency', 'EUR');
+    await settled();
+    shown = await row(gas.id);
+    assert.equal(shown.annual.text, money(gas.annual_cost, 'EUR'));
+    assert.ok(close(shown.annual.value, gas.annual_cost), 'no exchange rate is applied');
+
+    await page.selectOption('#locale', 'de-DE');
+    await settled();
+    shown = await row(gas.id);
+    assert.equal(shown.annual.text, money(gas.annual_cost, 'EUR', 'de-DE'));
+    await tab('fuels');
+    assert.equal(await page.inputValue('#f-fuels-0-price-amount'), '1,25');
+    await typeInto('#f-fuels-0-price-amount', '1,30');
+    await tab('verdict');
+    await settled();
+    const dearer = await cliEvaluate(typedScenario({ gasPrice: 1.3, units: 'metric', currency: 'EUR' }));
+    shown = await row(gas.id);
+    assert.ok(close(shown.annual.value, dearer.options[0].annual_cost), `typed with a decimal comma: ${shown.annual.value}`);
+
+    // back to the first settings: US units restore the entered 80 MMBtu
+    await tab('fuels');
+    await typeInto('#f-fuels-0-price-amount', '1,25');
+    await page.selectOption('#locale', 'en-US');
+    await typeInto('#currency', 'USD');
+    await page.tap('label[for="units-us"]');
+    await settled();
+    await tab('house');
+    assert.equal(await page.inputValue('#f-demand-annual-useful-heat-value'), '80');
+    assert.equal(await page.inputValue('#f-demand-annual-useful-heat-unit'), 'MMBtu');
+    assert.deepEqual(consoleErrors, []);
+  });
+
+  test('export then import gives the same scenario and verdict', { timeout: TIMEOUT }, async () => {
+    await tab('saved');
+    const [download] = await Promise.all([page.waitForEvent('download'), page.tap('[data-action="export-json"]')]);
+    const file = join(ARTIFACTS, 'exported-quote.json');
+    await download.saveAs(file);
+    const exported = JSON.parse(readFileSync(file, 'utf8'));
+    assert.deepEqual(exported, typedScenario());
+    await page.setInputFiles('#import-file', file);
+    await page.waitForSelector('#import-msg.ok');
+    await settled();
+    const [again] = await Promise.all([page.waitForEvent('download'), page.tap('[data-action="export-json"]')]);
+    const file2 = join(ARTIFACTS, 'reexported-quote.json');
+    await again.saveAs(file2);
+    assert.deepEqual(JSON.parse(readFileSync(file2, 'utf8')), exported);
+    const cli = await cliEvaluate(exported);
+    const shown = await row(cli.options[0].id);
+    assert.ok(close(shown.annual.value, cli.options[0].annual_cost));
+    const [csv] = await Promise.all([page.waitForEvent('download'), (async () => { await tab('verdict'); await page.tap('[data-action="export-csv"]'); })()]);
+    const csvFile = join(ARTIFACTS, 'results.csv');
+    await csv.saveAs(csvFile);
+    const lines = readFileSync(csvFile, 'utf8').trim().split(/\r\n/);
+    assert.equal(lines.length, 1 + cli.options.length);
+    assert.ok(lines[1].includes(String(cli.ranking[0].annual_cost)), lines[1]);
+    // a file that is not a scenario is refused with a message
+    const bad = join(ARTIFACTS, 'not-a-scenario.json');
+    writeFileSync(bad, JSON.stringify({ schema: 'something-else' }));
+    await tab('saved');
+    await page.setInputFiles('#import-file', bad);
+    await page.waitForSelector('#import-msg:not(.ok):not([hidden])');
+    assert.match(await page.textContent('#import-msg'), /not a Fuelwright scenario/);
+  });
+
+  test('saved quotes survive a reload and can be found, duplicated, deleted and restored', { timeout: TIMEOUT }, async () => {
+    await page.reload();
+    await settled();
+    await tab('house');
+    assert.equal(await page.inputValue('#f-quote-customer'), TYPED.customer);
+    await tab('saved');
+    const customers = await page.$$eval('#quote-list .q-customer', (items) => items.map((i) => i.textContent));
+    assert.ok(customers.includes(TYPED.customer), customers.join(' | '));
+    assert.ok(customers.length >= 3, 'demo, typed and imported quotes are listed');
+    await typeInto('#quote-search', 'juniper');
+    await page.waitForFunction(() => document.querySelectorAll('#quote-list li').length === 2);
+    await typeInto('#quote-search', 'no such customer');
+    await page.waitForSelector('#quote-empty');
+    await typeInto('#quote-search', new Date().getFullYear().toString());
+    assert.ok(await page.locator('#quote-list li').count() >= 2);
+    await page.fill('#quote-search', '');
+    await page.locator('#quote-search').dispatchEvent('input');
+    const before = await page.locator('#quote-list li').count();
+    await page.tap('#quote-list li:not(.current) [data-action="duplicate-quote"]');
+    await page.waitForFunction((n) => document.querySelectorAll('#quote-list li').length === n + 1, before);
+    await page.tap('#quote-list li.current [data-action="delete-quote"]');
+    await page.waitForSelector('#undo-toast');
+    assert.equal(await page.locator('#quote-list li').count(), before);
+    await page.tap('[data-action="undo-delete"]');
+    await page.waitForFunction((n) => document.querySelectorAll('#quote-list li').length === n + 1, before);
+    assert.deepEqual(consoleErrors, []);
+  });
+
+  test('user text is shown literally and never runs', { timeout: TIMEOUT }, async () => {
+    const literal = await page.$$eval('#quote-list .q-customer', (items, text) => items.some((i) => i.textContent === text), TYPED.customer);
+    assert.ok(literal);
+    assert.equal(await page.locator('#quote-list img, #quote-sheet img, main img').count(), 0);
+    assert.deepEqual(dialogs, []);
+  });
+
+  test('errors of the core appear next to the fields they point at', { timeout: TIMEOUT }, async () => {
+    await tab('saved');
+    await page.tap('[data-action="load-demo"]');
+    await settled();
+    await tab('fuels');
+    await typeInto('#f-fuels-0-price-amount', '-3');
+    await settled('errors');
+    const message = await page.textContent('[data-field="/fuels/0/price/amount"] .field-msg');
+    assert.ok(message.length > 0, 'a message next to the price');
+    assert.equal(await page.getAttribute('#f-fuels-0-price-amount', 'aria-invalid'), 'true');
+    assert.ok(await page.locator('#tab-fuels .count').count() === 1, 'the tab shows a count');
+    await typeInto('#f-fuels-0-price-amount', 'abc');
+    await page.waitForFunction(() => document.querySelector('[data-field="/fuels/0/price/amount"] .field-msg').textContent.includes('Not a number'));
+    await typeInto('#f-fuels-0-price-amount', '3.80');
+    await settled();
+
+    await tab('house');
+    await page.tap('label[for="f-demand-method-heat-loss"]');
+    await typeInto('#f-demand-ua-value', '250');
+    await typeInto('#f-demand-balance-point-value', '60');
+    await page.waitForFunction(() => ['done', 'errors'].includes(document.querySelector('#verdict-body').dataset.state)
+      && document.querySelector('#progress').hidden);
+    await page.waitForTimeout(300);
+    const state = await page.getAttribute('#verdict-body', 'data-state');
+    if (state === 'errors') {
+      const messages = await page.$$eval('#panel-house .field-msg:not([hidden])', (items) => items.map((i) => i.textContent));
+      assert.ok(messages.length > 0, 'heat-loss errors are shown next to the house fields');
+    }
+    await page.tap('label[for="f-demand-method-direct"]');
+    await settled();
+    assert.deepEqual(consoleErrors, []);
+  });
+
+  test('the print layout shows the quote sheet with the cautions', { timeout: TIMEOUT }, async () => {
+    await page.emulateMedia({ media: 'print' });
+    try {
+      const shot = join(ARTIFACTS, 'chromium-print-portrait.png');
+      await page.screenshot({ path: shot, fullPage: true });
+      assert.ok(await page.isVisible('#quote-sheet'));
+      assert.ok(await page.isHidden('#panel-verdict'));
+      const cautions = await page.$$eval('#sheet-cautions li', (items) => items.map((li) => li.textContent));
+      const cli = await cliEvaluate(await page.evaluate(async () => (await import('./scenario.js')).toScenario(
+        (await import('./demo.js')).demoWorkspace())));
+      assert.deepEqual(cautions, cli.cautions);
+      assert.ok(cautions.every((c) => c.length > 0));
+      assert.equal(await page.textContent('#sheet-customer'), 'Pat and Robin Example (invented)');
+      assert.equal(await page.locator('#quote-sheet .sheet-chart svg').count(), 1);
+    } finally {
+      await page.emulateMedia({ media: 'screen' });
+    }
+  });
+
+  test('reloads offline from the service worker', { timeout: TIMEOUT }, async () => {
+    await page.evaluate(async () => {
+      await navigator.serviceWorker.ready;
+      if (!navigator.serviceWorker.controller) {
+        await new Promise((done) => navigator.serviceWorker.addEventListener('controllerchange', done, { once: true }));
+      }
+    });
+    await context.setOffline(true);
+    try {
+      const response = await page.reload();
+      assert.equal(response.fromServiceWorker(), true);
+      await settled();
+      assert.ok(await page.locator('#verdict-table tbody tr').count() > 0);
+    } finally {
+      await context.setOffline(false);
+    }
+    assert.deepEqual(consoleErrors, []);
+  });
+});
+
+describe('Chromium, tablet landscape 1180x820', () => {
+  test('shows the inputs and the verdict side by side', { timeout: TIMEOUT }, async () => {
+    await page.setViewportSize({ width: 1180, height: 820 });
+    await tab('fuels');
+    assert.ok(await page.isVisible('#panel-fuels'));
+    assert.ok(await page.isVisible('#panel-verdict'));
+    assert.ok(await page.isHidden('#tab-verdict'));
+    await page.screenshot({ path: join(ARTIFACTS, 'chromium-landscape.png') });
+    const small = await page.$$eval('button, [role="tab"], input[type="text"], select',
+      (nodes) => nodes.filter((n) => n.offsetParent !== null).map((n) => [n.id || n.textContent.trim().slice(0, 20), n.getBoundingClientRect().height])
+        .filter(([, height]) => height < 43.5));
+    assert.deepEqual(small, [], 'touch targets are at least 44 px high');
+    assert.deepEqual(consoleErrors, []);
+  });
+});
