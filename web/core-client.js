@@ -36,6 +36,8 @@ export class CoreClient {
   units() { return this.call('units'); }
   evaluate(scenario, options) { return this.call('evaluate', scenario, options); }
   catalog() { return this.call('catalog'); }
+  /** Degree-days, bins and design temperatures of a climate (the core's climate()). */
+  climate(request) { return this.call('climate', request); }
   /** Evaluates `scenario` once per price of `prices` for the options `options` (indexes); see worker.js. */
   priceSweep(request, options) { return this.call('priceSweep', request, { timeoutMs: 60_000, ...options }); }
 

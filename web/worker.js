@@ -40,6 +40,7 @@ const EXPORTS = {
   units: { takesRequest: false },
   evaluate: { takesRequest: true },
   catalog: { takesRequest: false },
+  climate: { takesRequest: true },
   priceSweep: { composite: priceSweep },
 };
 

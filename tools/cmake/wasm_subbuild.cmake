@@ -36,12 +36,24 @@ set_tests_properties(node_wasm PROPERTIES
   LABELS wasm
   TIMEOUT 120)
 
-# The page in headless Chromium (playwright-core from node_modules).
+# The page in three engines, each its own test: headless Chromium
+# (playwright-core), WebKitGTK's WebDriver under Xvfb (selenium-webdriver) and
+# Firefox ESR through WebDriver BiDi (ws). Screenshots go to build/test-artifacts.
 set(FW_CHROMIUM "/usr/bin/chromium" CACHE FILEPATH "Chromium used by the browser tests")
-add_test(NAME browser
-  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/"
+find_program(FW_XVFB_RUN xvfb-run)
+set(FW_BROWSER_ENV "FUELWRIGHT_SITE=${FW_SITE_DIR};FUELWRIGHT_CLI=$<TARGET_FILE:fuelwright>;FUELWRIGHT_CHROMIUM=${FW_CHROMIUM};FUELWRIGHT_ARTIFACTS=${CMAKE_SOURCE_DIR}/build/test-artifacts")
+add_test(NAME browser_chromium
+  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/chromium.test.js"
   WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
-set_tests_properties(browser PROPERTIES
-  ENVIRONMENT "FUELWRIGHT_SITE=${FW_SITE_DIR};FUELWRIGHT_CLI=$<TARGET_FILE:fuelwright>;FUELWRIGHT_CHROMIUM=${FW_CHROMIUM}"
+add_test(NAME browser_webkit
+  COMMAND "${FW_XVFB_RUN}" -a -s "-screen 0 1280x1024x24"
+          "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/webkit.test.js"
+  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+add_test(NAME browser_firefox
+  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/firefox.test.js"
+  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+set_tests_properties(browser_chromium browser_webkit browser_firefox PROPERTIES
+  ENVIRONMENT "${FW_BROWSER_ENV}"
   LABELS browser
-  TIMEOUT 180)
+  TIMEOUT 240
+  RESOURCE_LOCK browser_site)
