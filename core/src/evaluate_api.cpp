@@ -5,6 +5,7 @@
 #include "fw/api.hpp"
 #include "fw/embedded_data.hpp"
 #include "fw/json_fields.hpp"
+#include "fw/appraisal.hpp"
 #include "fw/scenario.hpp"
 #include "fw/units.hpp"
 
@@ -149,21 +150,40 @@ json climate_result(const climate_info& info) {
             {"trace", info.model.trace}};
 }
 
-json evaluate(const json& document) {
+json nullable(const std::optional<double>& value) { return value ? json(*value) : json(nullptr); }
+
+/// Adds the economics fields of one option to its JSON result.
+void add_economics(json& out, const option_economics& x) {
+    const double kwh_per_mmbtu = convert(1, "MMBtu", "kWh");
+    const double kwh_per_gj = convert(1, "GJ", "kWh");
+    out["life_cycle_cost"] = x.life_cycle_cost;
+    out["net_installed_cost"] = x.net_installed_cost;
+    out["lcoh_per_kwh"] = x.lcoh_per_kwh;
+    out["lcoh_per_mmbtu"] = x.lcoh_per_kwh * kwh_per_mmbtu;
+    out["lcoh_per_gj"] = x.lcoh_per_kwh * kwh_per_gj;
+    out["annual_saving"] = nullable(x.annual_saving);
+    out["simple_payback_years"] = nullable(x.simple_payback_years);
+    if (!x.simple_payback_years && !x.payback_reason.empty()) out["simple_payback_reason"] = x.payback_reason;
+    out["discounted_payback_years"] = nullable(x.discounted_payback_years);
+    if (!x.discounted_payback_years && !x.discounted_payback_reason.empty())
+        out["discounted_payback_reason"] = x.discounted_payback_reason;
+    out["npv"] = nullable(x.npv);
+    out["co2e_saved_kg_life"] = nullable(x.co2e_saved_kg_life);
+    out["cost_per_tonne_co2e_avoided"] = nullable(x.cost_per_tonne_co2e_avoided);
+    for (const auto& line : x.trace) out["trace"].push_back(line);
+}
+
+json evaluate(const json& document, const std::function<bool(double)>& progress) {
     std::vector<issue> errors, warnings;
     const auto input = read_scenario(document, errors, warnings);
+    const auto evaluated = evaluate_scenario(input);
+    for (const auto& error : evaluated.errors) errors.push_back(error);
     json options = json::array();
-    std::vector<option_result> results;
-    for (const auto& option : input.options) {
-        try {
-            auto result = evaluate_option(input, option);
-            for (const auto& w : result.warnings) warnings.push_back({option.path, w});
-            options.push_back(option_json(result, input));
-            results.push_back(std::move(result));
-        } catch (const input_error& error) {
-            errors.push_back({error.path(), error.message()});
-        }
+    for (const auto& result : evaluated.results) {
+        for (const auto& w : result.warnings) warnings.push_back({evaluated.options[&result - evaluated.results.data()]->path, w});
+        options.push_back(option_json(result, input));
     }
+    const auto& results = evaluated.results;
     std::vector<std::size_t> order(results.size());
     for (std::size_t i = 0; i < order.size(); ++i) order[i] = i;
     std::stable_sort(order.begin(), order.end(),
@@ -180,10 +200,64 @@ json evaluate(const json& document) {
                 {"settings", settings},
                 {"demand", demand_result(input)},
                 {"options", options},
-                {"ranking", ranking},
-                {"cautions", cautions()},
-                {"errors", issues_json(errors)},
-                {"warnings", issues_json(warnings)}};
+                {"ranking", ranking}};
+    // Economics: when asked for, or when the scenario carries costs or an existing system.
+    bool wanted = input.economics.has_value() || input.uncertainty.has_value();
+    for (const auto& option : input.options) wanted = wanted || option.existing || option.installed_cost > 0;
+    if (wanted && errors.empty()) {
+        const auto economics = input.economics.value_or(economics_settings{});
+        if (!economics.given)
+            warnings.push_back({"/economics", "no economics given: " + std::to_string(economics.analysis_years) +
+                                                  " years, " + format_number(100 * economics.discount_rate) +
+                                                  " % real discount rate, no price escalation (assumptions)"});
+        const auto baseline = baseline_index(evaluated);
+        if (!baseline)
+            warnings.push_back({"/options", "no option is marked existing: savings, payback and NPV need the system in "
+                                            "the house now as the baseline"});
+        const auto appraised = appraise(input, evaluated, economics, baseline);
+        for (std::size_t i = 0; i < appraised.size(); ++i) add_economics(out["options"][i], appraised[i]);
+        std::vector<std::size_t> by_lcc(order.size());
+        for (std::size_t i = 0; i < by_lcc.size(); ++i) by_lcc[i] = i;
+        std::stable_sort(by_lcc.begin(), by_lcc.end(), [&](std::size_t a, std::size_t b) {
+            return appraised[a].life_cycle_cost < appraised[b].life_cycle_cost;
+        });
+        json lcc_ranking = json::array();
+        for (std::size_t rank = 0; rank < by_lcc.size(); ++rank)
+            lcc_ranking.push_back({{"rank", rank + 1}, {"id", results[by_lcc[rank]].id},
+                                   {"life_cycle_cost", appraised[by_lcc[rank]].life_cycle_cost}});
+        out["ranking_life_cycle"] = lcc_ranking;
+        out["economics"] = {{"analysis_years", economics.analysis_years},
+                            {"discount_rate", economics.discount_rate},
+                            {"basis", economics.basis},
+                            {"default_escalation", economics.default_escalation},
+                            {"escalation", economics.escalation},
+                            {"maintenance_escalation", economics.maintenance_escalation},
+                            {"baseline", baseline ? json(results[*baseline].id) : json(nullptr)},
+                            {"convention", "end-of-year cash flows; cost in year t = base-year cost x (1 + e)^t / (1 + d)^t "
+                                           "(NIST Handbook 135); fixed charges escalate with their fuel"}};
+        if (input.uncertainty) {
+            const auto mc = monte_carlo(input, evaluated, appraised, *input.uncertainty, progress);
+            json list = json::array();
+            for (const auto& o : mc.options)
+                list.push_back({{"id", o.id},
+                                {"p_cheapest", o.p_cheapest},
+                                {"annual_cost_p10", o.annual_cost_p10},
+                                {"annual_cost_p50", o.annual_cost_p50},
+                                {"annual_cost_p90", o.annual_cost_p90},
+                                {"life_cycle_cost_p10", o.life_cycle_cost_p10},
+                                {"life_cycle_cost_p50", o.life_cycle_cost_p50},
+                                {"life_cycle_cost_p90", o.life_cycle_cost_p90},
+                                {"life_cycle_cost_mean", o.life_cycle_cost_mean},
+                                {"life_cycle_cost_standard_error", o.life_cycle_cost_standard_error}});
+            out["uncertainty"] = {{"draws", mc.draws}, {"seed", mc.seed}, {"cancelled", mc.cancelled},
+                                  {"form", input.uncertainty->triangular ? "triangular" : "lognormal"},
+                                  {"notes", mc.notes}, {"options", list}};
+            if (mc.cancelled) warnings.push_back({"/uncertainty", "cancelled after " + std::to_string(mc.draws) + " draws"});
+        }
+    }
+    out["cautions"] = cautions();
+    out["errors"] = issues_json(errors);
+    out["warnings"] = issues_json(warnings);
     return out;
 }
 
@@ -222,8 +296,13 @@ json fuel_json(const fuel_record& fuel) {
 }  // namespace
 
 std::string evaluate_json(const std::string& scenario_json) noexcept {
+    return evaluate_json_with_progress(scenario_json, nullptr);
+}
+
+std::string evaluate_json_with_progress(const std::string& scenario_json,
+                                        const std::function<bool(double)>& progress) noexcept {
     try {
-        return evaluate(parse_request(scenario_json)).dump();
+        return evaluate(parse_request(scenario_json), progress).dump();
     } catch (const input_error& error) {
         return error_response({{error.path(), error.message()}});
     } catch (const std::exception& error) {

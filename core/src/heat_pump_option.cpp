@@ -172,6 +172,15 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
         for (const auto& charge : backup.option->fixed_charges) r.fixed_cost += charge.amount_per_year;
     r.annual_cost = r.energy_cost + r.fixed_cost;
     r.cost_per_useful_kwh = r.energy_cost / r.useful_heat_kwh;
+    {
+        double own_fixed = 0, backup_fixed = 0;
+        for (const auto& charge : option.fixed_charges) own_fixed += charge.amount_per_year;
+        if (backup.option)
+            for (const auto& charge : backup.option->fixed_charges) backup_fixed += charge.amount_per_year;
+        const double electricity_cost = result.electricity_kwh * option.price_per_unit;
+        r.cost_parts.push_back({option.fuel.id, electricity_cost, own_fixed});
+        if (backup.option) r.cost_parts.push_back({backup.option->fuel.id, r.energy_cost - electricity_cost, backup_fixed});
+    }
     auto emitted = emissions_of(option.fuel, result.electricity_kwh, input.settings);
     std::string emissions_text = emitted.text;
     if (backup.option) {

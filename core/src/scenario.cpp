@@ -241,6 +241,19 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
                                             "(at most 64 characters)");
     option.label = optional_string(item, "label", path).value_or(option.id);
     option.existing = optional_bool(item, "existing", path).value_or(false);
+    for (const auto& [key, target] : std::initializer_list<std::pair<const char*, double*>>{
+             {"installed_cost", &option.installed_cost}, {"incentives", &option.incentives},
+             {"annual_maintenance", &option.annual_maintenance}}) {
+        *target = optional_number(item, key, path).value_or(0.0);
+        if (*target < 0) throw input_error(path + "/" + key, "must be >= 0, got " + format_number(*target));
+    }
+    if (option.incentives > option.installed_cost)
+        throw input_error(path + "/incentives", "incentives (" + format_number(option.incentives) +
+                                                    ") exceed the installed cost (" + format_number(option.installed_cost) + ")");
+    option.life_years = optional_number(item, "life_years", path);
+    if (option.life_years && !(*option.life_years > 0 && *option.life_years <= 100))
+        throw input_error(path + "/life_years", "must be a service life from above 0 to 100 years, got " +
+                                                    format_number(*option.life_years));
     if (!item.contains("fuel")) throw input_error(path + "/fuel", "is required (a fuel id or a custom fuel object)");
     const auto& fuel = item.at("fuel");
     if (fuel.is_string()) option.fuel = find_fuel(fuel.get<std::string>(), path + "/fuel");
@@ -407,6 +420,97 @@ scenario_settings read_settings(const json& document, std::vector<issue>& warnin
     return settings;
 }
 
+/// A rate per year as a fraction, above -100 %.
+double read_rate(const json& obj, const std::string& key, const std::string& path, double fallback) {
+    const auto value = optional_number(obj, key, path);
+    if (!value) return fallback;
+    if (*value <= -1) throw input_error(path + "/" + key, "a rate must be above -100 % per year (-1 as a fraction), got " +
+                                                              format_number(*value));
+    if (*value > 1) throw input_error(path + "/" + key, "rates are fractions per year (0.05 for 5 %); got " + format_number(*value));
+    return *value;
+}
+
+economics_settings read_economics(const json& e, std::vector<issue>& warnings) {
+    const std::string path = "/economics";
+    require_object(e, path);
+    economics_settings out;
+    out.given = true;
+    if (const auto years = optional_number(e, "analysis_years", path)) {
+        if (*years != std::floor(*years) || *years < 1 || *years > 50)
+            throw input_error(path + "/analysis_years", "must be a whole number of years from 1 to 50, got " + format_number(*years));
+        out.analysis_years = static_cast<int>(*years);
+    }
+    out.discount_rate = read_rate(e, "discount_rate", path, out.discount_rate);
+    out.maintenance_escalation = read_rate(e, "maintenance_escalation", path, 0.0);
+    if (const auto basis = optional_string(e, "basis", path)) {
+        if (*basis != "real" && *basis != "nominal")
+            throw input_error(path + "/basis", "must be \"real\" or \"nominal\", got \"" + *basis + "\"");
+        out.basis = *basis;
+    }
+    if (const auto esc = e.find("escalation"); esc != e.end()) {
+        if (esc->is_number()) {
+            out.default_escalation = read_rate(e, "escalation", path, 0.0);
+        } else {
+            require_object(*esc, path + "/escalation");
+            for (const auto& item : esc->items()) {
+                const double rate = read_rate(*esc, item.key(), path + "/escalation", 0.0);
+                if (item.key() == "default") out.default_escalation = rate;
+                else {
+                    find_fuel(item.key(), path + "/escalation/" + item.key());
+                    out.escalation[item.key()] = rate;
+                }
+            }
+        }
+    }
+    warn_unknown_keys(e, {"analysis_years", "discount_rate", "escalation", "basis", "maintenance_escalation"}, path, warnings);
+    return out;
+}
+
+uncertainty_settings read_uncertainty(const json& u, std::vector<issue>& warnings) {
+    const std::string path = "/uncertainty";
+    require_object(u, path);
+    uncertainty_settings out;
+    if (const auto draws = optional_number(u, "draws", path)) {
+        if (*draws != std::floor(*draws) || *draws < 100 || *draws > 200000)
+            throw input_error(path + "/draws", "must be a whole number from 100 to 200000, got " + format_number(*draws));
+        out.draws = static_cast<int>(*draws);
+    }
+    if (const auto seed = optional_number(u, "seed", path)) {
+        if (*seed != std::floor(*seed) || *seed < 0 || *seed > 9007199254740991.0)
+            throw input_error(path + "/seed", "must be a whole number from 0 to 2^53 - 1, got " + format_number(*seed));
+        out.seed = static_cast<std::uint64_t>(*seed);
+    }
+    if (const auto form = optional_string(u, "form", path)) {
+        if (*form != "lognormal" && *form != "triangular")
+            throw input_error(path + "/form", "must be \"lognormal\" or \"triangular\", got \"" + *form + "\"");
+        out.triangular = *form == "triangular";
+    }
+    const auto check_spread = [&](double value, const std::string& where) {
+        if (!(value >= 0) || value > (out.triangular ? 0.95 : 2.0))
+            throw input_error(where, out.triangular ? "a triangular half-width must be a fraction from 0 to 0.95, got " + format_number(value)
+                                                    : "a spread (SD of ln price) must be from 0 to 2, got " + format_number(value));
+        return value;
+    };
+    if (const auto spread = u.find("spread"); spread != u.end()) {
+        if (spread->is_number()) {
+            out.default_spread = check_spread(spread->get<double>(), path + "/spread");
+        } else {
+            require_object(*spread, path + "/spread");
+            for (const auto& item : spread->items()) {
+                if (!item.value().is_number()) throw input_error(path + "/spread/" + item.key(), "must be a number");
+                const double value = check_spread(item.value().get<double>(), path + "/spread/" + item.key());
+                if (item.key() == "default") out.default_spread = value;
+                else {
+                    find_fuel(item.key(), path + "/spread/" + item.key());
+                    out.spread[item.key()] = value;
+                }
+            }
+        }
+    }
+    warn_unknown_keys(u, {"draws", "seed", "spread", "form"}, path, warnings);
+    return out;
+}
+
 std::string energy_text(double kwh, unit_system units) {
     if (units == unit_system::us) return fixed(convert(kwh, "kWh", "MMBtu"), 2) + " MMBtu";
     return fixed(kwh, 0) + " kWh";
@@ -443,6 +547,12 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
     });
     if (!errors.empty()) return out;
     attempt([&] { out.settings = read_settings(document, warnings); });
+    attempt([&] {
+        if (document.contains("economics")) out.economics = read_economics(document.at("economics"), warnings);
+    });
+    attempt([&] {
+        if (document.contains("uncertainty")) out.uncertainty = read_uncertainty(document.at("uncertainty"), warnings);
+    });
     attempt([&] {
         if (document.contains("climate")) out.climate = read_climate(document.at("climate"));
     });
@@ -555,6 +665,7 @@ option_result evaluate_option(const scenario& input, const scenario_option& opti
     r.energy_cost = r.fuel_quantity * r.price_per_unit;
     for (const auto& charge : option.fixed_charges) r.fixed_cost += charge.amount_per_year;
     r.annual_cost = r.energy_cost + r.fixed_cost;
+    r.cost_parts.push_back({fuel.id, r.energy_cost, r.fixed_cost});
     r.cost_per_useful_kwh = r.price_per_unit / (r.hhv_kwh_per_unit * r.seasonal_efficiency_hhv);
 
     const auto emitted = emissions_of(fuel, r.fuel_energy_hhv_kwh, input.settings);

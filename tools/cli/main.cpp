@@ -1,6 +1,7 @@
 // fuelwright: the command-line face of the core. Every command builds a JSON request, calls the
 // same entry point the WASM module calls, prints the JSON result on stdout, and exits 2 with one
 // line per error on stderr when the result carries errors.
+#include <algorithm>
 #include <cstdio>
 #include <fstream>
 #include <optional>
@@ -25,6 +26,12 @@ commands:
   heating-value --ultimate "C:50.2,H:6.1,O:43.2,N:0.1,S:0,ash:0.4" [--moisture PCT] [--basis dry|as-received|daf]
                 [--hhv-dry MJ_PER_KG]
   evaluate FILE                evaluate a scenario (FILE or - for standard input)
+  break-even FILE --a ID --b ID --vary price|efficiency|demand [--of ID] [--basis annual|life-cycle]
+                               the price (or efficiency) at which two options cost the same
+  sweep FILE [--vary price|efficiency|demand] [--of ID] [--from X] [--to X] [--points N] [--basis B]
+                               every option's cost over a range of one input
+  tornado FILE [--basis annual|life-cycle] [--change 0.2]
+                               the winner's margin for -/+20 % on each input
   climate FILE                 degree-days, hourly bins and design temperatures of a climate (or scenario) file
   catalog                      fuels with heating values per sale unit, systems, GWP sets
   convert VALUE FROM TO        e.g. convert 1 therm kWh
@@ -124,6 +131,44 @@ int file_command(const std::vector<std::string>& args, const char* name, std::st
     return finish(entry(*text));
 }
 
+/// Commands that read a scenario FILE and take --flags into the request beside it.
+int analysis_command(const std::vector<std::string>& args, const char* name,
+                     const std::vector<std::pair<std::string, bool>>& flags,  // flag, numeric
+                     std::string (*entry)(const std::string&) noexcept) {
+    if (args.empty()) return usage_error("", std::string(name) + " takes a scenario FILE (or -) and options");
+    const auto text = read_input(args[0]);
+    if (!text) return usage_error(args[0], "cannot read file \"" + args[0] + "\"");
+    json scenario;
+    try {
+        scenario = json::parse(*text);
+    } catch (const json::parse_error&) {
+        return finish(fw::evaluate_json(*text));  // reports the malformed JSON with line and column
+    }
+    json request = {{"scenario", scenario}};
+    for (std::size_t i = 1; i < args.size(); ++i) {
+        const auto found = std::find_if(flags.begin(), flags.end(), [&](const auto& f) { return f.first == args[i]; });
+        if (found == flags.end()) {
+            std::string known;
+            for (const auto& f : flags) known += (known.empty() ? "" : ", ") + f.first;
+            return usage_error(args[i], "unknown option for " + std::string(name) + "; accepted: " + known);
+        }
+        if (i + 1 >= args.size()) return usage_error(args[i], "needs a value");
+        const std::string key = found->first.substr(2);
+        const std::string& value = args[++i];
+        if (found->second) {
+            char* end = nullptr;
+            const double number = std::strtod(value.c_str(), &end);
+            const bool plain = value.find_first_of("xXnNiI") == std::string::npos;
+            if (end == value.c_str() || *end != '\0' || !plain)
+                return usage_error(found->first, found->first + " must be a finite decimal number, got \"" + value + "\"");
+            request[key] = number;
+        } else {
+            request[key] = value;
+        }
+    }
+    return finish(entry(request.dump()));
+}
+
 }  // namespace
 
 int main(int argc, char** argv) {
@@ -139,7 +184,18 @@ int main(int argc, char** argv) {
     if (command == "units") return finish(fw::units_json());
     if (command == "evaluate") return file_command(rest, "evaluate", fw::evaluate_json);
     if (command == "climate") return file_command(rest, "climate", fw::climate_json);
+    if (command == "break-even")
+        return analysis_command(rest, "break-even",
+                                {{"--a", false}, {"--b", false}, {"--vary", false}, {"--of", false}, {"--basis", false}},
+                                fw::break_even_json);
+    if (command == "sweep")
+        return analysis_command(rest, "sweep",
+                                {{"--vary", false}, {"--of", false}, {"--from", true}, {"--to", true}, {"--points", true},
+                                 {"--basis", false}},
+                                fw::sweep_json);
+    if (command == "tornado")
+        return analysis_command(rest, "tornado", {{"--basis", false}, {"--change", true}}, fw::tornado_json);
     if (command == "catalog") return finish(fw::catalog_json());
     std::cerr << usage_text;
-    return usage_error(command, "unknown command \"" + command + "\"; commands: heating-value, evaluate, climate, catalog, convert, units, help");
+    return usage_error(command, "unknown command \"" + command + "\"; commands: heating-value, evaluate, break-even, sweep, tornado, climate, catalog, convert, units, help");
 }

@@ -3,6 +3,7 @@
 // of fw/api.hpp, so no C++ exception ever crosses into JavaScript; problems
 // come back as {"errors": [{path, message}]}. The contract is in web/README.md.
 #include <emscripten/bind.h>
+#include <emscripten/val.h>
 
 #include <string>
 
@@ -16,6 +17,18 @@ std::string units() { return fw::units_json(); }
 std::string evaluate(const std::string& scenario) { return fw::evaluate_json(scenario); }
 std::string catalog() { return fw::catalog_json(); }
 std::string climate(const std::string& request) { return fw::climate_json(request); }
+std::string break_even(const std::string& request) { return fw::break_even_json(request); }
+std::string sweep(const std::string& request) { return fw::sweep_json(request); }
+std::string tornado(const std::string& request) { return fw::tornado_json(request); }
+
+/// evaluate with a JS progress callback: progress(fraction) is called about 100 times during a Monte
+/// Carlo run; returning false cancels it (undefined or anything truthy carries on).
+std::string evaluate_with_progress(const std::string& scenario, emscripten::val progress) {
+    return fw::evaluate_json_with_progress(scenario, [&progress](double fraction) {
+        const emscripten::val answer = progress(fraction);
+        return answer.isUndefined() || answer.isNull() || answer.as<bool>();
+    });
+}
 
 }  // namespace
 
@@ -26,4 +39,8 @@ EMSCRIPTEN_BINDINGS(fuelwright_core) {
     emscripten::function("evaluate", &evaluate);
     emscripten::function("catalog", &catalog);
     emscripten::function("climate", &climate);
+    emscripten::function("breakEven", &break_even);
+    emscripten::function("sweep", &sweep);
+    emscripten::function("tornado", &tornado);
+    emscripten::function("evaluateWithProgress", &evaluate_with_progress);
 }

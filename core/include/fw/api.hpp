@@ -2,6 +2,7 @@
 // text and returns JSON text, never throws, and reports problems in an
 // "errors" array of {path, message}. The CLI and the WASM binding call these.
 #pragma once
+#include <functional>
 #include <string>
 
 namespace fw {
@@ -21,6 +22,21 @@ std::string units_json() noexcept;
 /// Evaluates a scenario (data/schema/scenario.schema.json): per option the fuel used in its sale
 /// unit, annual cost, cost of useful heat, emissions and a trace; a ranking; errors[] and warnings[].
 std::string evaluate_json(const std::string& scenario_json) noexcept;
+
+/// evaluate_json with a progress callback for the Monte Carlo: called with the fraction done
+/// (0..1) about 100 times; returning false cancels (the result then says so).
+std::string evaluate_json_with_progress(const std::string& scenario_json,
+                                        const std::function<bool(double)>& progress) noexcept;
+
+/// Break-even between two options: {"scenario": {...}, "a": id, "b": id, "vary": "price"|"efficiency"|"demand",
+/// "of": option or fuel id, "basis": "annual"|"life-cycle"} -> {"break_even": {value, unit} | null, "reason", ...}.
+std::string break_even_json(const std::string& request_json) noexcept;
+
+/// Costs of every option over a range of one input: {"scenario", "vary", "of", "from", "to", "points", "basis"}.
+std::string sweep_json(const std::string& request_json) noexcept;
+
+/// Change in the winner's margin for -/+ `change` (default 0.2) on each price, efficiency and the demand.
+std::string tornado_json(const std::string& request_json) noexcept;
 
 /// A climate: monthly HDD, annual HDD, hourly bins and design temperatures in the input's unit.
 /// Request: the climate object itself, or a scenario with a "climate".

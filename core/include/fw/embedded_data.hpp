@@ -5,7 +5,7 @@
 
 namespace fw::detail {
 
-/// Contents of data/<name> (e.g. "species.json"); empty when no such file was embedded.
+/// Contents of data/<name> for the catalogs at the top of data/ (e.g. "species.json"); empty otherwise.
 std::string_view embedded_file(std::string_view name) noexcept;
 
 }  // namespace fw::detail

@@ -1,6 +1,8 @@
 // Scenarios (scenario layer): one house's heat need and the options to meet it, read from JSON,
 // evaluated per option into fuel use, cost, cost of useful heat and emissions, with a trace.
 #pragma once
+#include <cstdint>
+#include <map>
 #include <nlohmann/json.hpp>
 #include <optional>
 #include <string>
@@ -23,6 +25,34 @@ struct scenario_settings {
     double electricity_co2e_kg_per_kwh = 0;
     bool electricity_factor_given = false;
     std::string gwp = "AR5";
+};
+
+/// Scenario `economics`: rates are fractions per year on one basis (real or nominal).
+struct economics_settings {
+    int analysis_years = 15;
+    double discount_rate = 0.03;
+    double default_escalation = 0.0;
+    std::map<std::string, double> escalation;  ///< by fuel id
+    double maintenance_escalation = 0.0;
+    std::string basis = "real";
+    bool given = false;                        ///< false: defaults, stated in a warning
+    double escalation_of(const std::string& fuel_id) const {
+        const auto found = escalation.find(fuel_id);
+        return found == escalation.end() ? default_escalation : found->second;
+    }
+};
+
+/// Scenario `uncertainty`: Monte Carlo over fuel prices (and demand where the method gives an error).
+struct uncertainty_settings {
+    int draws = 10000;
+    std::uint64_t seed = 1;
+    double default_spread = 0.2;               ///< SD of ln(price factor); an assumption, stated
+    std::map<std::string, double> spread;      ///< by fuel id
+    bool triangular = false;                   ///< spread is then the half-width as a fraction
+    double spread_of(const std::string& fuel_id) const {
+        const auto found = spread.find(fuel_id);
+        return found == spread.end() ? default_spread : found->second;
+    }
 };
 
 struct fixed_charge {
@@ -56,6 +86,8 @@ struct scenario_option {
     bool changeover_optimal = false;
     std::optional<double> capacity_47_kw;
     bool existing = false;
+    double installed_cost = 0, incentives = 0, annual_maintenance = 0;  ///< [currency], [currency/year]
+    std::optional<double> life_years;
     std::string path;               ///< "/options/N"
 };
 
@@ -84,6 +116,8 @@ struct scenario {
     std::string fit_unit;                   ///< energy unit of the fit's per-day figures
     std::optional<double> demand_uncertainty_kwh;  ///< standard error of the useful heat
     std::vector<scenario_option> options;
+    std::optional<economics_settings> economics;
+    std::optional<uncertainty_settings> uncertainty;
 };
 
 /// Reads the climate object; throws input_error.
@@ -112,6 +146,13 @@ struct option_result {
     std::vector<std::string> trace;
     std::vector<source_note> sources;
     std::vector<std::string> warnings;
+    /// Energy and fixed cost by fuel (a dual-fuel option has two), for escalation and price draws.
+    struct cost_part {
+        std::string fuel_id;
+        double energy_cost;
+        double fixed_cost;
+    };
+    std::vector<cost_part> cost_parts;
     // Heat pumps on bins (present when `season` is set).
     std::optional<heat_pump_season> season;
     double seasonal_cop = 0;

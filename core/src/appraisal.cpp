@@ -1,0 +1,230 @@
+#include "fw/appraisal.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+#include <map>
+
+#include "fw/units.hpp"
+
+namespace fw {
+
+namespace {
+
+std::string fixed(double value, int decimals) {
+    char buffer[64];
+    std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
+    return buffer;
+}
+
+/// Base-year cost of an option [currency/year] in year t, each part escalating at its fuel's rate.
+double cost_in_year(const option_result& r, const scenario_option& o, const economics_settings& e, int t) {
+    double cost = o.annual_maintenance * std::pow(1 + e.maintenance_escalation, t);
+    for (const auto& part : r.cost_parts)
+        cost += (part.energy_cost + part.fixed_cost) * std::pow(1 + e.escalation_of(part.fuel_id), t);
+    return cost;
+}
+
+}  // namespace
+
+evaluation evaluate_scenario(const scenario& input) {
+    evaluation out;
+    for (const auto& option : input.options) {
+        try {
+            out.results.push_back(evaluate_option(input, option));
+            out.options.push_back(&option);
+        } catch (const input_error& error) {
+            out.errors.push_back({error.path(), error.message()});
+        }
+    }
+    return out;
+}
+
+std::optional<std::size_t> baseline_index(const evaluation& evaluated) {
+    for (std::size_t i = 0; i < evaluated.options.size(); ++i)
+        if (evaluated.options[i]->existing) return i;
+    return std::nullopt;
+}
+
+std::vector<option_economics> appraise(const scenario& input, const evaluation& evaluated,
+                                       const economics_settings& e, std::optional<std::size_t> baseline) {
+    const int n = e.analysis_years;
+    const double d = e.discount_rate;
+    const auto& currency = input.settings.currency;
+    std::vector<option_economics> out;
+    for (std::size_t i = 0; i < evaluated.results.size(); ++i) {
+        const auto& r = evaluated.results[i];
+        const auto& o = *evaluated.options[i];
+        option_economics x;
+        x.net_installed_cost = o.installed_cost - o.incentives;
+        for (const auto& part : r.cost_parts) {
+            const double factor = upw_escalating(d, e.escalation_of(part.fuel_id), n);
+            x.part_upw.push_back(factor);
+            x.energy_fixed_pv += (part.energy_cost + part.fixed_cost) * factor;
+        }
+        x.maintenance_pv = o.annual_maintenance * upw_escalating(d, e.maintenance_escalation, n);
+        if (o.life_years && o.installed_cost > 0) {
+            const double life = *o.life_years;
+            for (double t = life; t < n - 1e-9; t += life) x.replacement_pv += o.installed_cost * spw(d, t);
+            const double age_at_end = n - std::floor(n / life - 1e-12) * life;
+            x.residual_pv = o.installed_cost * std::max(0.0, 1.0 - age_at_end / life) * spw(d, n);
+        }
+        x.life_cycle_cost = x.net_installed_cost + x.replacement_pv - x.residual_pv + x.energy_fixed_pv + x.maintenance_pv;
+        const double capital_years = o.life_years.value_or(n);
+        x.lcoh_per_kwh = (x.net_installed_cost * crf(d, capital_years) + o.annual_maintenance +
+                          x.energy_fixed_pv * crf(d, n)) / r.useful_heat_kwh;
+        x.trace.push_back("life-cycle cost over " + std::to_string(n) + " years at " + fixed(100 * d, 2) + " % (" + e.basis +
+                          "): capital " + fixed(x.net_installed_cost, 0) +
+                          (x.replacement_pv > 0 ? " + replacements " + fixed(x.replacement_pv, 0) : "") +
+                          (x.residual_pv > 0 ? " - residual value " + fixed(x.residual_pv, 0) : "") +
+                          " + energy and fixed charges " + fixed(x.energy_fixed_pv, 0) + " + maintenance " +
+                          fixed(x.maintenance_pv, 0) + " = " + fixed(x.life_cycle_cost, 0) + " " + currency);
+        std::string factors;
+        for (std::size_t k = 0; k < r.cost_parts.size(); ++k)
+            factors += (factors.empty() ? "" : "; ") + r.cost_parts[k].fuel_id + " escalating " +
+                       fixed(100 * e.escalation_of(r.cost_parts[k].fuel_id), 1) + " %/yr: UPW* = " + fixed(x.part_upw[k], 4);
+        x.trace.push_back("present worth of the yearly costs, NIST Handbook 135 UPW* = (1+e)/(d-e) [1 - ((1+e)/(1+d))^N]: " + factors);
+        x.trace.push_back("levelized cost of heat = (capital x CRF(" + fixed(capital_years, 0) + " yr) + maintenance + " +
+                          "present worth of energy x CRF(" + std::to_string(n) + " yr)) / useful heat = " +
+                          fixed(x.lcoh_per_kwh, 4) + " " + currency + "/kWh (fuel levelized with its escalation)");
+        out.push_back(std::move(x));
+    }
+    if (!baseline) return out;
+    const auto& base_r = evaluated.results[*baseline];
+    const auto& base_o = *evaluated.options[*baseline];
+    for (std::size_t i = 0; i < out.size(); ++i) {
+        auto& x = out[i];
+        const auto& r = evaluated.results[i];
+        const auto& o = *evaluated.options[i];
+        x.npv = out[*baseline].life_cycle_cost - x.life_cycle_cost;
+        x.co2e_saved_kg_life = (base_r.co2e_kg - r.co2e_kg) * n;
+        if (i == *baseline) {
+            x.annual_saving = 0.0;
+            x.payback_reason = "this is the existing system";
+            x.discounted_payback_reason = x.payback_reason;
+            continue;
+        }
+        const double saving = (base_r.annual_cost + base_o.annual_maintenance) - (r.annual_cost + o.annual_maintenance);
+        x.annual_saving = saving;
+        if (saving <= 0) {
+            x.payback_reason = "no annual saving against " + base_o.id + " (it costs " + fixed(-saving, 2) + " " + currency +
+                               " more per year)";
+        } else {
+            x.simple_payback_years = std::max(0.0, x.net_installed_cost) / saving;
+        }
+        // Discounted payback from the yearly flows, each part escalating at its own rate.
+        double cumulative = 0;
+        if (x.net_installed_cost <= 0) {
+            if (saving > 0) x.discounted_payback_years = 0.0;
+        } else {
+            for (int t = 1; t <= n && !x.discounted_payback_years; ++t) {
+                const double flow = (cost_in_year(base_r, base_o, e, t) - cost_in_year(r, o, e, t)) * spw(d, t);
+                if (flow > 0 && cumulative + flow >= x.net_installed_cost)
+                    x.discounted_payback_years = (t - 1) + (x.net_installed_cost - cumulative) / flow;
+                cumulative += flow;
+            }
+        }
+        if (!x.discounted_payback_years)
+            x.discounted_payback_reason = saving <= 0 ? x.payback_reason
+                                                      : "the discounted savings do not repay the cost within the " +
+                                                            std::to_string(n) + "-year analysis period";
+        if (*x.co2e_saved_kg_life > 0) x.cost_per_tonne_co2e_avoided = -*x.npv / (*x.co2e_saved_kg_life / 1000.0);
+        x.trace.push_back("against " + base_o.id + ": annual saving " + fixed(saving, 2) + " " + currency + "; NPV of switching = " +
+                          fixed(out[*baseline].life_cycle_cost, 0) + " - " + fixed(x.life_cycle_cost, 0) + " = " +
+                          fixed(*x.npv, 0) + " " + currency);
+    }
+    return out;
+}
+
+uncertainty_result monte_carlo(const scenario& input, const evaluation& evaluated,
+                               const std::vector<option_economics>& economics, const uncertainty_settings& u,
+                               const std::function<bool(double)>& progress) {
+    uncertainty_result out;
+    out.seed = u.seed;
+    // The fuels whose price is drawn, in a fixed order.
+    std::vector<std::string> fuels;
+    for (const auto& r : evaluated.results)
+        for (const auto& part : r.cost_parts)
+            if (std::find(fuels.begin(), fuels.end(), part.fuel_id) == fuels.end()) fuels.push_back(part.fuel_id);
+    const double demand_cv = input.demand_uncertainty_kwh && input.space_heat_kwh > 0
+                                 ? *input.demand_uncertainty_kwh / input.space_heat_kwh
+                                 : 0.0;
+    for (const auto& fuel : fuels)
+        out.notes.push_back(fuel + ": " + (u.triangular ? "triangular price factor, half-width " : "lognormal price factor, median 1, SD of ln ") +
+                            format_number(u.spread_of(fuel)) +
+                            (u.spread.count(fuel) ? " (given)" : " (default, an assumption)"));
+    if (demand_cv > 0)
+        out.notes.push_back("demand: normal factor with the bills fit's relative standard error " + format_number(demand_cv));
+    const std::size_t count = evaluated.results.size();
+    std::vector<std::vector<double>> annual(count), lcc(count);
+    std::vector<int> cheapest(count, 0);
+    std::vector<double> lcc_sum(count, 0), lcc_sq(count, 0);
+    random_stream random(u.seed);
+    std::vector<double> factor(fuels.size());
+    const int report_every = std::max(1, u.draws / 100);
+    int done = 0;
+    for (; done < u.draws; ++done) {
+        if (done % report_every == 0 && progress && !progress(static_cast<double>(done) / u.draws)) {
+            out.cancelled = true;
+            break;
+        }
+        for (std::size_t f = 0; f < fuels.size(); ++f) {
+            const double s = u.spread_of(fuels[f]);
+            if (u.triangular) {
+                // Symmetric triangular on [1 - s, 1 + s] by inverse CDF.
+                const double p = random.uniform();
+                factor[f] = p < 0.5 ? 1 - s + s * std::sqrt(2 * p) : 1 + s - s * std::sqrt(2 * (1 - p));
+            } else {
+                factor[f] = std::exp(s * random.normal());
+            }
+        }
+        const double demand = demand_cv > 0 ? std::max(0.05, 1 + demand_cv * random.normal()) : 1.0;
+        std::size_t best = 0;
+        double best_lcc = INFINITY;
+        for (std::size_t i = 0; i < count; ++i) {
+            const auto& r = evaluated.results[i];
+            const auto& x = economics[i];
+            double a = 0, pv = x.net_installed_cost + x.replacement_pv - x.residual_pv + x.maintenance_pv;
+            for (std::size_t k = 0; k < r.cost_parts.size(); ++k) {
+                const auto& part = r.cost_parts[k];
+                const auto f = std::find(fuels.begin(), fuels.end(), part.fuel_id) - fuels.begin();
+                const double energy = part.energy_cost * factor[f] * demand;
+                a += energy + part.fixed_cost;
+                pv += (energy + part.fixed_cost) * x.part_upw[k];
+            }
+            annual[i].push_back(a);
+            lcc[i].push_back(pv);
+            lcc_sum[i] += pv;
+            lcc_sq[i] += pv * pv;
+            if (pv < best_lcc) {
+                best_lcc = pv;
+                best = i;
+            }
+        }
+        ++cheapest[best];
+    }
+    if (progress && !out.cancelled) progress(1.0);
+    out.draws = done;
+    for (std::size_t i = 0; i < count; ++i) {
+        option_uncertainty o;
+        o.id = evaluated.results[i].id;
+        if (done > 0) {
+            std::sort(annual[i].begin(), annual[i].end());
+            std::sort(lcc[i].begin(), lcc[i].end());
+            o.p_cheapest = static_cast<double>(cheapest[i]) / done;
+            o.annual_cost_p10 = quantile_sorted(annual[i], 0.10);
+            o.annual_cost_p50 = quantile_sorted(annual[i], 0.50);
+            o.annual_cost_p90 = quantile_sorted(annual[i], 0.90);
+            o.life_cycle_cost_p10 = quantile_sorted(lcc[i], 0.10);
+            o.life_cycle_cost_p50 = quantile_sorted(lcc[i], 0.50);
+            o.life_cycle_cost_p90 = quantile_sorted(lcc[i], 0.90);
+            o.life_cycle_cost_mean = lcc_sum[i] / done;
+            const double variance = std::max(0.0, lcc_sq[i] / done - o.life_cycle_cost_mean * o.life_cycle_cost_mean);
+            o.life_cycle_cost_standard_error = std::sqrt(variance / done);
+        }
+        out.options.push_back(o);
+    }
+    return out;
+}
+
+}  // namespace fw
