@@ -402,6 +402,8 @@ function onField(path, value, { structural }) {
     store.set(path, value);
     return;
   }
+  if (path.startsWith('/economics/') && path !== '/economics/enabled') ws.economics.emit = true;
+  if (path === '/economics/enabled' && value) ws.economics.emit = true;
   store.set(path, value, { structural });
 }
 
@@ -455,14 +457,11 @@ function switchUnits(system) {
       c.monthly_hdd = (c.monthly_hdd ?? []).map((v) => (typeof v === 'number' ? convertTemperatureDifference(v, c.unit, want) : v));
       if (Array.isArray(c.monthly_sd)) c.monthly_sd = c.monthly_sd.map((v) => (typeof v === 'number' ? convertTemperatureDifference(v, c.unit, want) : v));
       if (typeof c.annual_hdd === 'number') c.annual_hdd = convertTemperatureDifference(c.annual_hdd, c.unit, want);
+      if (typeof c.daily_range === 'number') c.daily_range = convertTemperatureDifference(c.daily_range, c.unit, want);
       c.unit = want;
     }
     c.base = convertUnitOnly(convertQuantity(c.base, system), system);
     c.design_temperature = convertUnitOnly(convertQuantity(c.design_temperature, system), system);
-    if (c.daily_range?.unit && c.daily_range.unit !== want) {
-      c.daily_range = typeof c.daily_range.value === 'number'
-        ? { value: convertTemperatureDifference(c.daily_range.value, c.daily_range.unit, want), unit: want } : { unit: want };
-    }
     for (const sys of ws.systems) {
       const s = sys.system;
       for (const point of s.ratings ?? []) {

@@ -66,7 +66,6 @@ export function blankWorkspace({ units = 'us', currency = 'USD' } = {}) {
       monthly_hdd: Array(12).fill(null),
       base: us ? { value: 65, unit: 'degF' } : { value: 18.3, unit: 'degC' },
       design_temperature: { unit: us ? 'degF' : 'degC' },
-      daily_range: { unit: us ? 'degF' : 'degC' },
       leap_year: false,
     },
     fuels: [],
@@ -151,7 +150,7 @@ function climateOf(c) {
     out.monthly_mean = twelve(c.monthly_mean) ?? (c.monthly_mean ?? []).map((v) => (isNumber(v) ? v : null));
     out.unit = c.unit;
     if (twelve(c.monthly_sd)) out.monthly_sd = twelve(c.monthly_sd);
-    put(out, 'daily_range', quantity(c.daily_range));
+    if (isNumber(c.daily_range)) out.daily_range = c.daily_range;
   } else if (c.mode === 'monthly_hdd') {
     out.monthly_hdd = twelve(c.monthly_hdd) ?? (c.monthly_hdd ?? []).map((v) => (isNumber(v) ? v : null));
     out.unit = c.unit;
@@ -272,7 +271,7 @@ export function toScenario(ws) {
     return option;
   });
 
-  if (ws.economics?.enabled) {
+  if (ws.economics?.enabled && ws.economics.emit !== false) {
     const e = ws.economics;
     const economics = {};
     if (isNumber(e.analysis_years)) economics.analysis_years = e.analysis_years;
@@ -377,7 +376,7 @@ export function fromScenario(doc) {
   ws.title = doc.title ?? '';
   ws.description = doc.description ?? '';
   ws.quote = { ...ws.quote, date: '', ...(doc.quote ?? {}) };
-  ws.settings.gwp = settings.gwp ?? ws.settings.gwp;
+  ws.settings.gwp = settings.gwp;
   if (settings.electricity_co2e_kg_per_kwh !== undefined) ws.settings.electricity_co2e_kg_per_kwh = settings.electricity_co2e_kg_per_kwh;
 
   const d = doc.demand ?? { method: 'direct' };
@@ -409,6 +408,7 @@ export function fromScenario(doc) {
     if (c.monthly_sd) wc.monthly_sd = clone(c.monthly_sd);
     if (c.annual_hdd !== undefined) wc.annual_hdd = c.annual_hdd;
     for (const key of ['base', 'design_temperature', 'daily_range']) if (c[key] !== undefined) wc[key] = clone(c[key]);
+    if (wc.daily_range && typeof wc.daily_range === 'object') wc.daily_range = wc.daily_range.value;
     wc.leap_year = Boolean(c.leap_year);
     const climateKnown = ['monthly_mean', 'monthly_hdd', 'monthly_sd', 'annual_hdd', 'unit', 'base', 'design_temperature',
       'daily_range', 'leap_year'];
@@ -461,7 +461,9 @@ export function fromScenario(doc) {
       for (const entry of ws.fuels) if (fuelId(entry) === id) entry.escalation = rate;
     }
   } else if (doc.options.some((o) => ECONOMIC_FIELDS.some((key) => o[key] !== undefined))) {
+    // per-option costs without study settings: keep them, add no settings of our own
     ws.economics.enabled = true;
+    ws.economics.emit = false;
   }
   if (doc.uncertainty && typeof doc.uncertainty === 'object') {
     const u = doc.uncertainty;

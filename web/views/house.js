@@ -99,7 +99,8 @@ function climateFields(ctx, ws) {
   }
   nodes.push(h('div', { class: 'grid two' },
     quantityField(ctx, 'Degree-day base temperature', '/climate/base', c.base, TEMPS),
-    c.mode === 'monthly_mean' ? quantityField(ctx, 'Mean daily range (optional)', '/climate/daily_range', c.daily_range, TEMPS) : null));
+    c.mode === 'monthly_mean' ? numberField(ctx, { label: 'Mean daily range (optional)', path: '/climate/daily_range', value: c.daily_range,
+      unit: c.unit === 'degC' ? '°C' : '°F' }) : null));
   nodes.push(checkField(ctx, { label: 'Leap year (366 days)', path: '/climate/leap_year', checked: c.leap_year }));
   return nodes;
 }
