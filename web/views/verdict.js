@@ -211,7 +211,8 @@ function binsSection(result, ws, ctx) {
       isNum(o.seasonal_cop) ? `Seasonal COP ${ctx.format.number(o.seasonal_cop, 3)}.` : '',
       isNum(o.backup_share) ? `Backup supplies ${ctx.format.percent(o.backup_share)} of the heat.` : '',
       isNum(o.hours_below_balance_point) ? `${ctx.format.number(o.hours_below_balance_point)} hours a year below the balance point.` : '',
-      o.changeover !== undefined ? `Changeover: ${typeof o.changeover === 'object' ? `${ctx.format.number(o.changeover.value, 3)} ${unitLabel(o.changeover.unit)}` : o.changeover}.` : '',
+      o.changeover !== undefined && o.changeover !== null
+        ? `Changeover: ${typeof o.changeover === 'object' ? `${ctx.format.number(o.changeover.value, 3)} ${unitLabel(o.changeover.unit ?? '')}` : o.changeover}.` : '',
     ].filter(Boolean).join(' ') })));
 }
 
