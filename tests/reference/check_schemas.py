@@ -197,6 +197,8 @@ BAD = {
     "empty options": lambda d: d.update(options=[]),
     "31 options": lambda d: d.update(options=[dict(option(d), id=f"o{i}") for i in range(31)]),
     "missing demand": lambda d: d.pop("demand"),
+    "discount rate below -100 %": lambda d: d.update(economics={"discount_rate": -1.5}),
+    "too few Monte Carlo draws": lambda d: d.update(uncertainty={"draws": 10}),
     "heat-loss demand without UA or design load": lambda d: d.update(demand={"method": "heat-loss"}),
     "bills demand without bills": lambda d: d.update(demand={"method": "bills", "option": "gas"}),
     "climate with 11 monthly means": lambda d: d.update(climate={"monthly_mean": [0] * 11, "unit": "degC"}),
@@ -269,7 +271,10 @@ GOOD = {
         demand={"method": "bills", "option": "a",
                 "bills": [{"start": "2025-01-01", "end": "2025-01-31", "quantity": 98.5, "unit": "therm"}]},
         climate={"annual_hdd": 5000, "unit": "degF", "design_temperature": {"value": 5, "unit": "degF"}}),
-    "free economics and uncertainty objects": lambda d: d.update(economics={"years": 15}, uncertainty={}),
+    "economics and uncertainty": lambda d: d.update(
+        economics={"analysis_years": 15, "discount_rate": 0.05, "escalation": {"default": 0.02, "propane": 0.03},
+                   "basis": "real"},
+        uncertainty={"draws": 10000, "seed": 1, "spread": {"natural-gas": 0.25}}),
     "heat pump with data-sheet points": lambda d: option(d).update(
         fuel="electricity", price={"amount": 0.16, "per": "kWh"},
         system={"kind": "air-source-heat-pump", "backup": "electric-resistance", "cd": 0.25,
