@@ -131,6 +131,7 @@ scenario with_value(const scenario& input, const variable& v, double x) {
         for (auto i : v.options) {
             auto& option = out.options[i];
             option.price_per_unit = v.current != 0 ? option.price_per_unit * factor : x;
+            for (auto& tier : option.tiers) tier.amount = v.current != 0 ? tier.amount * factor : x;
         }
     } else if (v.kind == "efficiency") {
         out.options[v.options.front()].system.efficiency_value = x;

@@ -46,8 +46,8 @@ season_cost run(const scenario& input, const scenario_option& option, const std:
     else out.electricity_kwh += backup_heat;
     // Hot water: served at the season's overall COP (with resistance backup counted as COP 1).
     if (input.hot_water_kwh > 0) out.electricity_kwh += input.hot_water_kwh / out.season.seasonal_cop_with_resistance();
-    out.energy_cost = out.electricity_kwh * option.price_per_unit;
-    if (backup.option) out.energy_cost += out.backup_fuel_kwh / backup.hhv_kwh_per_unit * backup.option->price_per_unit;
+    out.energy_cost = priced_cost(option, out.electricity_kwh);
+    if (backup.option) out.energy_cost += priced_cost(*backup.option, out.backup_fuel_kwh / backup.hhv_kwh_per_unit);
     return out;
 }
 
@@ -177,7 +177,7 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
         for (const auto& charge : option.fixed_charges) own_fixed += charge.amount_per_year;
         if (backup.option)
             for (const auto& charge : backup.option->fixed_charges) backup_fixed += charge.amount_per_year;
-        const double electricity_cost = result.electricity_kwh * option.price_per_unit;
+        const double electricity_cost = priced_cost(option, result.electricity_kwh);
         r.cost_parts.push_back({option.fuel.id, electricity_cost, own_fixed});
         if (backup.option) r.cost_parts.push_back({backup.option->fuel.id, r.energy_cost - electricity_cost, backup_fixed});
     }

@@ -263,11 +263,35 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
     if (!item.contains("price")) throw input_error(path + "/price", "is required ({\"amount\": ..., \"per\": unit})");
     const auto& price = item.at("price");
     require_object(price, path + "/price");
-    option.price_per_unit = required_number(price, "amount", path + "/price");
+    option.price_per_unit = price.contains("tiers") && !price.contains("amount") ? 0.0 : required_number(price, "amount", path + "/price");
     if (option.price_per_unit < 0)
         throw input_error(path + "/price/amount", "must be >= 0, got " + format_number(option.price_per_unit));
     option.price_unit = required_string(price, "per", path + "/price");
-    warn_unknown_keys(price, {"amount", "per"}, path + "/price", warnings);
+    if (const auto tiers = price.find("tiers"); tiers != price.end()) {
+        if (!tiers->is_array() || tiers->empty()) throw input_error(path + "/price/tiers", "must be a non-empty array of {from, to, amount}");
+        double previous = 0;
+        for (std::size_t i = 0; i < tiers->size(); ++i) {
+            const std::string tier_path = path + "/price/tiers/" + std::to_string(i);
+            const auto& tier = (*tiers)[i];
+            require_object(tier, tier_path);
+            price_tier entry;
+            entry.from = required_number(tier, "from", tier_path);
+            entry.to = tier.contains("to") && !tier.at("to").is_null() ? required_number(tier, "to", tier_path) : INFINITY;
+            entry.amount = required_number(tier, "amount", tier_path);
+            if (entry.amount < 0) throw input_error(tier_path + "/amount", "must be >= 0, got " + format_number(entry.amount));
+            if (entry.from != previous)
+                throw input_error(tier_path + "/from", "blocks must follow each other from 0 without gaps or overlaps; expected " +
+                                                           format_number(previous) + ", got " + format_number(entry.from));
+            if (!(entry.to > entry.from)) throw input_error(tier_path + "/to", "must be above from");
+            if (std::isinf(entry.to) && i + 1 < tiers->size()) throw input_error(tier_path + "/to", "only the last block may be open-ended");
+            previous = entry.to;
+            option.tiers.push_back(entry);
+        }
+        if (!std::isinf(option.tiers.back().to))
+            option.tiers.back().to = INFINITY;  // use beyond the last block is billed at its rate
+        if (!price.contains("amount")) option.price_per_unit = option.tiers.front().amount;
+    }
+    warn_unknown_keys(price, {"amount", "per", "tiers"}, path + "/price", warnings);
 
     if (const auto bag = item.find("bag_mass"); bag != item.end()) {
         require_object(*bag, path + "/bag_mass");
@@ -613,6 +637,14 @@ emissions emissions_of(const fuel_record& fuel, double fuel_kwh_hhv, const scena
     return out;
 }
 
+double priced_cost(const scenario_option& option, double quantity) {
+    if (option.tiers.empty()) return quantity * option.price_per_unit;
+    double cost = 0;
+    for (const auto& tier : option.tiers)
+        if (quantity > tier.from) cost += (std::min(quantity, tier.to) - tier.from) * tier.amount;
+    return cost;
+}
+
 option_result evaluate_option(const scenario& input, const scenario_option& option) {
     if (option.system.kind == system_kind::air_source_heat_pump && input.climate)
         return evaluate_heat_pump_option(input, option);
@@ -662,7 +694,7 @@ option_result evaluate_option(const scenario& input, const scenario_option& opti
 
     r.fuel_energy_hhv_kwh = r.useful_heat_kwh / r.seasonal_efficiency_hhv;
     r.fuel_quantity = r.fuel_energy_hhv_kwh / r.hhv_kwh_per_unit;
-    r.energy_cost = r.fuel_quantity * r.price_per_unit;
+    r.energy_cost = priced_cost(option, r.fuel_quantity);
     for (const auto& charge : option.fixed_charges) r.fixed_cost += charge.amount_per_year;
     r.annual_cost = r.energy_cost + r.fixed_cost;
     r.cost_parts.push_back({fuel.id, r.energy_cost, r.fixed_cost});
@@ -691,8 +723,20 @@ option_result evaluate_option(const scenario& input, const scenario_option& opti
                                      : format_number(r.hhv_kwh_per_unit) + " kWh/" + r.fuel_unit;
     r.trace.push_back(energy_text(r.fuel_energy_hhv_kwh, units) + " / " + per_unit + " = " +
                       fixed(r.fuel_quantity, 1) + " " + r.fuel_unit);
-    r.trace.push_back(fixed(r.fuel_quantity, 1) + " " + r.fuel_unit + " x " + format_number(r.price_per_unit) + " " +
-                      currency + "/" + r.fuel_unit + " = " + fixed(r.energy_cost, 2) + " " + currency + " energy");
+    if (option.tiers.empty()) {
+        r.trace.push_back(fixed(r.fuel_quantity, 1) + " " + r.fuel_unit + " x " + format_number(r.price_per_unit) + " " +
+                          currency + "/" + r.fuel_unit + " = " + fixed(r.energy_cost, 2) + " " + currency + " energy");
+    } else {
+        std::string blocks;
+        for (const auto& tier : option.tiers)
+            if (r.fuel_quantity > tier.from)
+                blocks += (blocks.empty() ? "" : " + ") + fixed(std::min(r.fuel_quantity, tier.to) - tier.from, 1) + " x " +
+                          format_number(tier.amount);
+        r.trace.push_back(fixed(r.fuel_quantity, 1) + " " + r.fuel_unit + " in blocks: " + blocks + " = " +
+                          fixed(r.energy_cost, 2) + " " + currency + " energy (average " +
+                          format_number(r.energy_cost / r.fuel_quantity) + " " + currency + "/" + r.fuel_unit + ")");
+        r.price_per_unit = r.energy_cost / r.fuel_quantity;
+    }
     for (const auto& charge : option.fixed_charges)
         r.trace.push_back(charge.label + ": " + charge.text + " = " + fixed(charge.amount_per_year, 2) + " " + currency);
     r.trace.push_back("annual cost " + fixed(r.energy_cost, 2) + " + " + fixed(r.fixed_cost, 2) + " fixed = " +

@@ -11,7 +11,8 @@ import { cliJson, loadCore } from './helpers.js';
 
 const root = resolve(import.meta.dirname ?? new URL('.', import.meta.url).pathname, '../..');
 const examplesDir = join(root, 'data/examples');
-const examples = (await readdir(examplesDir)).filter((name) => name.endsWith('.json')).sort();
+// Scenario examples only: supplier-*.json are price files (fuelwright.prices/1).
+const examples = (await readdir(examplesDir)).filter((name) => name.endsWith('.json') && !name.startsWith('supplier-')).sort();
 
 let core;
 before(async () => {

@@ -104,7 +104,8 @@ scenario = validators["scenario"]
 
 # ---------------------------------------------------------------------------
 # Examples
-examples = sorted((DATA / "examples").glob("*.json"))
+PRICE_FILES = {"supplier-prices.json"}  # supplier price files, checked against their own schema below
+examples = sorted(p for p in (DATA / "examples").glob("*.json") if p.name not in PRICE_FILES)
 check(len(examples) >= 5, f"examples  at least five scenarios in data/examples/ (found {len(examples)})")
 for path in examples:
     label = f"example data/examples/{path.name}"
@@ -118,6 +119,25 @@ for path in examples:
     text = (str(document.get("title", "")) + " " + str(document.get("description", ""))).lower()
     check(bool(document.get("title")) and bool(document.get("description")) and "invented" in text,
           label + " has a title and a description saying it is invented")
+
+# ---------------------------------------------------------------------------
+# Supplier price files: the sample is valid; every bad fixture the schema can judge is rejected.
+Draft202012Validator.check_schema(load(DATA / "schema" / "supplier-prices.schema.json"))
+prices_schema = Draft202012Validator(load(DATA / "schema" / "supplier-prices.schema.json"))
+for name in sorted(PRICE_FILES):
+    errors = errors_of(prices_schema, load(DATA / "examples" / name))
+    check(not errors, f"prices  data/examples/{name} is a valid price file", "\n      ".join(errors[:8]))
+FIXTURES = DATA.parent / "tests" / "fixtures" / "prices"
+expected = load(FIXTURES / "expected.json")
+for case in expected["cases"]:
+    if case["schema_rejects"] is None:
+        continue
+    errors = errors_of(prices_schema, load(FIXTURES / case["file"]))
+    if case["schema_rejects"]:
+        check(bool(errors), f"prices  schema rejects {case['file']}")
+    else:
+        # Beyond a JSON Schema (tier order, units per fuel, dates): the schema accepts it, check-prices does not.
+        check(not errors, f"prices  schema accepts domain-rule case {case['file']}", "\n      ".join(errors[:4]))
 
 # ---------------------------------------------------------------------------
 # Catalogs

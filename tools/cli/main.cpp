@@ -3,6 +3,7 @@
 // line per error on stderr when the result carries errors.
 #include <algorithm>
 #include <cstdio>
+#include <ctime>
 #include <fstream>
 #include <optional>
 #include <iostream>
@@ -32,6 +33,8 @@ commands:
                                every option's cost over a range of one input
   tornado FILE [--basis annual|life-cycle] [--change 0.2]
                                the winner's margin for -/+20 % on each input
+  check-prices FILE [--today YYYY-MM-DD]
+                               check a supplier price file before publishing it (exit 0 when clean, 2 otherwise)
   climate FILE                 degree-days, hourly bins and design temperatures of a climate (or scenario) file
   catalog                      fuels with heating values per sale unit, systems, GWP sets
   convert VALUE FROM TO        e.g. convert 1 therm kWh
@@ -169,6 +172,28 @@ int analysis_command(const std::vector<std::string>& args, const char* name,
     return finish(entry(request.dump()));
 }
 
+/// Today's date (UTC) as YYYY-MM-DD.
+std::string today_utc() {
+    const std::time_t now = std::time(nullptr);
+    std::tm parts{};
+    gmtime_r(&now, &parts);
+    char buffer[16];
+    std::strftime(buffer, sizeof buffer, "%Y-%m-%d", &parts);
+    return buffer;
+}
+
+int check_prices_command(const std::vector<std::string>& args) {
+    if (args.empty()) return usage_error("", "check-prices takes a price FILE (or -)");
+    std::string today = today_utc();
+    for (std::size_t i = 1; i < args.size(); ++i) {
+        if (args[i] == "--today" && i + 1 < args.size()) today = args[++i];
+        else return usage_error(args[i], "unknown option for check-prices; accepted: --today YYYY-MM-DD");
+    }
+    const auto text = read_input(args[0]);
+    if (!text) return usage_error(args[0], "cannot read file \"" + args[0] + "\"");
+    return finish(fw::check_prices_json(*text, today));
+}
+
 }  // namespace
 
 int main(int argc, char** argv) {
@@ -184,6 +209,7 @@ int main(int argc, char** argv) {
     if (command == "units") return finish(fw::units_json());
     if (command == "evaluate") return file_command(rest, "evaluate", fw::evaluate_json);
     if (command == "climate") return file_command(rest, "climate", fw::climate_json);
+    if (command == "check-prices") return check_prices_command(rest);
     if (command == "break-even")
         return analysis_command(rest, "break-even",
                                 {{"--a", false}, {"--b", false}, {"--vary", false}, {"--of", false}, {"--basis", false}},
@@ -197,5 +223,5 @@ int main(int argc, char** argv) {
         return analysis_command(rest, "tornado", {{"--basis", false}, {"--change", true}}, fw::tornado_json);
     if (command == "catalog") return finish(fw::catalog_json());
     std::cerr << usage_text;
-    return usage_error(command, "unknown command \"" + command + "\"; commands: heating-value, evaluate, break-even, sweep, tornado, climate, catalog, convert, units, help");
+    return usage_error(command, "unknown command \"" + command + "\"; commands: heating-value, evaluate, break-even, sweep, tornado, check-prices, climate, catalog, convert, units, help");
 }

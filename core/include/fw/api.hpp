@@ -42,6 +42,10 @@ std::string tornado_json(const std::string& request_json) noexcept;
 /// Request: the climate object itself, or a scenario with a "climate".
 std::string climate_json(const std::string& request_json) noexcept;
 
+/// Checks a supplier price file (data/schema/supplier-prices.schema.json) and its domain rules;
+/// `today` is "YYYY-MM-DD" (or empty to skip the expiry check).
+std::string check_prices_json(const std::string& price_file_text, const std::string& today) noexcept;
+
 /// The fuel and system catalogs with heating values per sale unit, GWP sets and defaults.
 std::string catalog_json() noexcept;
 

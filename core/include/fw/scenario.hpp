@@ -61,13 +61,20 @@ struct fixed_charge {
     std::string text;            ///< as entered, for the trace
 };
 
+/// One block of a tiered (block-rate) price: `amount` per unit for the annual quantity from `from` to `to`.
+struct price_tier {
+    double from = 0, to = 0;  ///< [price unit per year]; to = infinity for the last block
+    double amount = 0;        ///< [currency per price unit]
+};
+
 /// One option as parsed and resolved: the fuel record, the priced unit, the system.
 struct scenario_option {
     std::string id;
     std::string label;
     fuel_record fuel;
     std::string price_unit;
-    double price_per_unit = 0;      ///< [currency per price_unit]
+    double price_per_unit = 0;      ///< [currency per price_unit]; with tiers, the first block's
+    std::vector<price_tier> tiers;  ///< block rates on the annual quantity (empty: one price)
     std::vector<fixed_charge> fixed_charges;
     system_request system;
     std::optional<std::string> system_catalog;
@@ -167,6 +174,9 @@ struct option_result {
 /// Reads a scenario; problems go to `errors` (every one found, each with its JSON pointer), and
 /// options with errors are left out of the returned scenario.
 scenario read_scenario(const nlohmann::json& document, std::vector<issue>& errors, std::vector<issue>& warnings);
+
+/// [currency/year] Cost of `quantity` price units a year at the option's price or block rates.
+double priced_cost(const scenario_option& option, double quantity);
 
 /// Evaluates one option of a scenario; throws input_error for an impossible combination.
 option_result evaluate_option(const scenario& input, const scenario_option& option);
