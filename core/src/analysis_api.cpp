@@ -350,6 +350,7 @@ std::string guarded(const std::string& text, Body body) noexcept {
     try {
         std::vector<issue> warnings;
         json out = body(parse_request(text), warnings);
+        require_finite_output(out);
         out["errors"] = json::array();
         out["warnings"] = issues_json(warnings);
         return out.dump();

@@ -202,6 +202,7 @@ std::string guarded(const std::string& request_text, Body body) noexcept {
     try {
         std::vector<issue> warnings;
         json out = body(parse_request(request_text), warnings);
+        require_finite_output(out);
         if (!out.contains("errors")) out["errors"] = json::array();
         out["warnings"] = issues_json(warnings);
         return out.dump();
@@ -235,6 +236,7 @@ std::string convert_json(const std::string& request_json) noexcept {
         find_unit(*from, "/from");
         find_unit(*to, "/to");
         const double result = convert(*value, *from, *to, "/value");
+        if (!std::isfinite(result)) throw input_error("/value", "the converted value is too large to represent");
         return json{{"value", result}, {"unit", *to}}.dump();
     } catch (const input_error& error) {
         return error_response({{error.path(), error.message()}});

@@ -302,7 +302,9 @@ std::string evaluate_json(const std::string& scenario_json) noexcept {
 std::string evaluate_json_with_progress(const std::string& scenario_json,
                                         const std::function<bool(double)>& progress) noexcept {
     try {
-        return evaluate(parse_request(scenario_json), progress).dump();
+        const auto out = evaluate(parse_request(scenario_json), progress);
+        require_finite_output(out);
+        return out.dump();
     } catch (const input_error& error) {
         return error_response({{error.path(), error.message()}});
     } catch (const std::exception& error) {
@@ -318,6 +320,7 @@ std::string climate_json(const std::string& request_json) noexcept {
         require_object(request, "");
         const auto& climate = request.contains("climate") ? request.at("climate") : request;
         auto out = climate_result(read_climate(climate));
+        require_finite_output(out);
         out["errors"] = json::array();
         out["warnings"] = json::array();
         return out.dump();

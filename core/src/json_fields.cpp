@@ -7,6 +7,9 @@
 namespace fw::json_fields {
 
 nlohmann::json parse_request(const std::string& text) {
+    if (text.size() > max_request_bytes)
+        throw input_error("", "the request is " + std::to_string(text.size()) + " bytes; at most " +
+                                  std::to_string(max_request_bytes) + " are accepted");
     try {
         return nlohmann::json::parse(text);
     } catch (const nlohmann::json::parse_error& error) {
@@ -16,6 +19,18 @@ nlohmann::json parse_request(const std::string& text) {
         throw input_error("", "malformed JSON: " + what);
     }
 }
+
+static void check_finite(const nlohmann::json& value, const std::string& path) {
+    if (value.is_number_float() && !std::isfinite(value.get<double>()))
+        throw input_error(path, "internal error: a result came out as " + format_number(value.get<double>()) +
+                                    "; please report the scenario");
+    if (value.is_object())
+        for (const auto& item : value.items()) check_finite(item.value(), path + "/" + item.key());
+    if (value.is_array())
+        for (std::size_t i = 0; i < value.size(); ++i) check_finite(value[i], path + "/" + std::to_string(i));
+}
+
+void require_finite_output(const nlohmann::json& value) { check_finite(value, ""); }
 
 void require_object(const nlohmann::json& value, const std::string& path) {
     if (!value.is_object()) throw input_error(path, "must be a JSON object, got " + std::string(value.type_name()));

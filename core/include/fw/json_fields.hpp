@@ -32,6 +32,13 @@ double parse_number_text(const std::string& text, const std::string& path, const
 void warn_unknown_keys(const nlohmann::json& obj, const std::vector<std::string>& known, const std::string& path,
                        std::vector<issue>& warnings);
 
+/// Largest request accepted [bytes]: a scenario with every option, bill and bin is far smaller.
+inline constexpr std::size_t max_request_bytes = 4u << 20;
+
+/// Throws input_error naming the first NaN or infinite number in `value` (a JSON pointer), so that
+/// no result ever carries one (nlohmann would write it as null, silently).
+void require_finite_output(const nlohmann::json& value);
+
 /// JSON array of {path, message}.
 nlohmann::json issues_json(const std::vector<issue>& items);
 
