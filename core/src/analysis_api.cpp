@@ -353,7 +353,7 @@ std::string guarded(const std::string& text, Body body) noexcept {
         require_finite_output(out);
         out["errors"] = json::array();
         out["warnings"] = issues_json(warnings);
-        return out.dump();
+        return dump_text(out);
     } catch (const input_error& error) {
         return error_response({{error.path(), error.message()}});
     } catch (const std::exception& error) {

@@ -205,7 +205,7 @@ std::string guarded(const std::string& request_text, Body body) noexcept {
         require_finite_output(out);
         if (!out.contains("errors")) out["errors"] = json::array();
         out["warnings"] = issues_json(warnings);
-        return out.dump();
+        return dump_text(out);
     } catch (const input_error& error) {
         return error_response({{error.path(), error.message()}});
     } catch (const std::exception& error) {
@@ -237,7 +237,7 @@ std::string convert_json(const std::string& request_json) noexcept {
         find_unit(*to, "/to");
         const double result = convert(*value, *from, *to, "/value");
         if (!std::isfinite(result)) throw input_error("/value", "the converted value is too large to represent");
-        return json{{"value", result}, {"unit", *to}}.dump();
+        return dump_text(json{{"value", result}, {"unit", *to}});
     } catch (const input_error& error) {
         return error_response({{error.path(), error.message()}});
     } catch (const std::exception& error) {
@@ -251,7 +251,7 @@ std::string units_json() noexcept {
         for (const auto& unit : unit_table())
             out[std::string(dimension_name(unit.kind))].push_back(
                 {{"name", unit.name}, {"definition", unit.definition}});
-        return out.dump();
+        return dump_text(out);
     } catch (...) {
         return error_response({{"", "internal error"}});
     }

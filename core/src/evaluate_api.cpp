@@ -304,7 +304,7 @@ std::string evaluate_json_with_progress(const std::string& scenario_json,
     try {
         const auto out = evaluate(parse_request(scenario_json), progress);
         require_finite_output(out);
-        return out.dump();
+        return dump_text(out);
     } catch (const input_error& error) {
         return error_response({{error.path(), error.message()}});
     } catch (const std::exception& error) {
@@ -323,7 +323,7 @@ std::string climate_json(const std::string& request_json) noexcept {
         require_finite_output(out);
         out["errors"] = json::array();
         out["warnings"] = json::array();
-        return out.dump();
+        return dump_text(out);
     } catch (const input_error& error) {
         return error_response({{error.path(), error.message()}});
     } catch (const std::exception& error) {
@@ -353,7 +353,7 @@ std::string catalog_json() noexcept {
             const auto& set = find_gwp_set(id);
             gwp[id] = {{"CH4", set.ch4}, {"N2O", set.n2o}, {"source", set.source}};
         }
-        return json{{"fuels", fuels},
+        return dump_text(json{{"fuels", fuels},
                     {"systems", systems},
                     {"gwp_sets", gwp},
                     {"default_gwp_set", default_gwp_set()},
@@ -362,8 +362,7 @@ std::string catalog_json() noexcept {
                     {"demo_climates", json::parse(detail::embedded_file("demo-climates.json")).at("climates")},
                     {"cautions", cautions()},
                     {"errors", json::array()},
-                    {"warnings", json::array()}}
-            .dump();
+                    {"warnings", json::array()}});
     } catch (const std::exception& error) {
         return error_response({{"", std::string("internal error: ") + error.what()}});
     }

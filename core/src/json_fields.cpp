@@ -88,8 +88,12 @@ nlohmann::json issues_json(const std::vector<issue>& items) {
     return list;
 }
 
+std::string dump_text(const nlohmann::json& value) {
+    return value.dump(-1, ' ', false, nlohmann::json::error_handler_t::replace);
+}
+
 std::string error_response(const std::vector<issue>& errors) {
-    return nlohmann::json{{"errors", issues_json(errors)}, {"warnings", nlohmann::json::array()}}.dump();
+    return dump_text(nlohmann::json{{"errors", issues_json(errors)}, {"warnings", nlohmann::json::array()}});
 }
 
 }  // namespace fw::json_fields

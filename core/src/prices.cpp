@@ -235,7 +235,7 @@ std::string check_prices_json(const std::string& text, const std::string& today)
     out["valid"] = c.errors.empty();
     out["errors"] = issues_json(c.errors);
     out["warnings"] = issues_json(c.warnings);
-    return out.dump();
+    return dump_text(out);
 }
 
 }  // namespace fw

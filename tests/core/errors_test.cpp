@@ -116,6 +116,21 @@ TEST(errors, request_shape) {
               "invalid literal; last read: '\"phase\" g'; expected ':'");
 }
 
+TEST(errors, text_that_is_not_utf8_comes_back_as_an_error_not_a_crash) {
+    // Found by the formula, mixture, evaluate and price-file fuzzers: a message quoting invalid
+    // UTF-8 used to throw while the result was written. Bytes 0x86 and 0xC5 are not UTF-8 here.
+    const std::string formula = "{\"formula\": \"CH\x86\x86" "C4\"}";
+    const auto result = json::parse(fw::heating_value_json(formula));
+    ASSERT_EQ(result.at("errors").size(), 1u);
+    EXPECT_EQ(result.at("errors")[0].at("message").get<std::string>().rfind("malformed JSON: ", 0), 0u);
+    const auto mixture = json::parse(fw::heating_value_json(json{{"mixture", "CH4:0.98,H2O:0.02"}}.dump()));
+    EXPECT_TRUE(mixture.at("errors").empty());
+    const auto prices = json::parse(fw::check_prices_json("{\"schema\": \"fuelwright.prices/\xc5\"}", "2026-12-01"));
+    EXPECT_FALSE(prices.at("valid").get<bool>());
+    const auto scenario = json::parse(fw::evaluate_json("{\"schema\": \"x\xc5" "y\"}"));
+    EXPECT_FALSE(scenario.at("errors").empty());
+}
+
 TEST(errors, unknown_fields_are_warned_not_silently_dropped) {
     const auto result = json::parse(fw::heating_value_json(R"({"formula":"CH4","phaze":"gas"})"));
     EXPECT_TRUE(result.at("errors").empty());

@@ -39,6 +39,9 @@ inline constexpr std::size_t max_request_bytes = 4u << 20;
 /// no result ever carries one (nlohmann would write it as null, silently).
 void require_finite_output(const nlohmann::json& value);
 
+/// JSON text of a result; bytes of user text that are not UTF-8 are written as U+FFFD, never thrown.
+std::string dump_text(const nlohmann::json& value);
+
 /// JSON array of {path, message}.
 nlohmann::json issues_json(const std::vector<issue>& items);
 
