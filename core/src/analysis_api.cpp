@@ -85,6 +85,19 @@ std::vector<double> costs(const analysis_context& context, const scenario& input
     return out;
 }
 
+/// Annual or life-cycle cost of option k alone [currency].
+double option_cost(const analysis_context& context, const scenario& input, std::size_t k) {
+    evaluation one;
+    try {
+        one.results.push_back(evaluate_option(input, input.options[k]));
+    } catch (const input_error& error) {
+        throw input_error("/scenario" + error.path(), error.message());
+    }
+    one.options.push_back(&input.options[k]);
+    if (context.cost_basis == basis::annual) return one.results.front().annual_cost;
+    return appraise(input, one, context.economics, std::nullopt).front().life_cycle_cost;
+}
+
 variable read_variable(const analysis_context& context, const json& request, std::size_t default_option) {
     const auto& input = context.input;
     variable v;
@@ -263,11 +276,32 @@ json sweep(const json& request, std::vector<issue>& warnings) {
     const auto n = static_cast<int>(points);
     json xs = json::array();
     std::vector<json> series(context.input.options.size(), json::array());
+    std::vector<double> grid;
     for (int i = 0; i < n; ++i) {
-        const double x = from + (to - from) * i / (n - 1);
-        xs.push_back(x);
-        const auto c = costs(context, with_value(context.input, v, x));
-        for (std::size_t k = 0; k < c.size(); ++k) series[k].push_back(c[k]);
+        grid.push_back(from + (to - from) * i / (n - 1));
+        xs.push_back(grid.back());
+    }
+    // Most costs are exactly linear in a price (and in 1/efficiency): check each option at four
+    // points and fill the line in; evaluate the others (bins, changeovers) at every point.
+    const bool reciprocal = v.kind == "efficiency";
+    const auto coordinate = [&](double x) { return reciprocal ? 1.0 / x : x; };
+    std::vector<scenario> probes;
+    const int checks[] = {0, (n - 1) / 3, 2 * (n - 1) / 3, n - 1};
+    for (int i : checks) probes.push_back(with_value(context.input, v, grid[i]));
+    for (std::size_t k = 0; k < context.input.options.size(); ++k) {
+        double c[4];
+        for (int j = 0; j < 4; ++j) c[j] = option_cost(context, probes[j], k);
+        const double u0 = coordinate(grid[checks[0]]), u3 = coordinate(grid[checks[3]]);
+        const double slope = (c[3] - c[0]) / (u3 - u0);
+        const double scale = std::max({std::fabs(c[0]), std::fabs(c[3]), 1e-9});
+        bool linear = true;
+        for (int j = 1; j < 3; ++j)
+            linear = linear && std::fabs(c[0] + slope * (coordinate(grid[checks[j]]) - u0) - c[j]) <= 1e-10 * scale;
+        for (int i = 0; i < n; ++i) {
+            const double value = linear ? c[0] + slope * (coordinate(grid[i]) - u0)
+                                        : option_cost(context, with_value(context.input, v, grid[i]), k);
+            series[k].push_back(value);
+        }
     }
     json list = json::array();
     for (std::size_t k = 0; k < series.size(); ++k)

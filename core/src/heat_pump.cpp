@@ -13,9 +13,9 @@ double f_to_c(double f) { return (f - 32.0) * 5.0 / 9.0; }
 
 }  // namespace
 
-heat_pump_point interpolate(const std::vector<heat_pump_point>& points, double t_c, bool& extrapolated) {
-    auto sorted = points;
-    std::sort(sorted.begin(), sorted.end(), [](const auto& a, const auto& b) { return a.outdoor_c < b.outdoor_c; });
+namespace {
+
+heat_pump_point interpolate_sorted(const std::vector<heat_pump_point>& sorted, double t_c, bool& extrapolated) {
     extrapolated = t_c < sorted.front().outdoor_c || t_c > sorted.back().outdoor_c;
     std::size_t i = 0;
     while (i + 2 < sorted.size() && t_c > sorted[i + 1].outdoor_c) ++i;
@@ -26,9 +26,22 @@ heat_pump_point interpolate(const std::vector<heat_pump_point>& points, double t
             std::max(1.0, a.cop + f * (b.cop - a.cop))};
 }
 
+std::vector<heat_pump_point> sorted_points(const std::vector<heat_pump_point>& points) {
+    auto sorted = points;
+    std::sort(sorted.begin(), sorted.end(), [](const auto& a, const auto& b) { return a.outdoor_c < b.outdoor_c; });
+    return sorted;
+}
+
+}  // namespace
+
+heat_pump_point interpolate(const std::vector<heat_pump_point>& points, double t_c, bool& extrapolated) {
+    return interpolate_sorted(sorted_points(points), t_c, extrapolated);
+}
+
 heat_pump_season run_bins(const std::vector<temperature_bin>& bins, double ua_kw_per_k, double balance_point_c,
                           const heat_pump_inputs& inputs) {
     heat_pump_season season;
+    const auto sorted = sorted_points(inputs.points);
     bool first_cop = true;
     double coldest_c = inputs.points.front().outdoor_c;
     for (const auto& p : inputs.points) coldest_c = std::min(coldest_c, p.outdoor_c);
@@ -36,7 +49,7 @@ heat_pump_season run_bins(const std::vector<temperature_bin>& bins, double ua_kw
         heat_pump_bin out{bin.t_c, bin.hours, 0, 0, 0, 0, 0, 0, false, false};
         const double load = bin.t_c < balance_point_c ? ua_kw_per_k * (balance_point_c - bin.t_c) : 0.0;
         bool extrapolated = false;
-        const auto rated = interpolate(inputs.points, bin.t_c, extrapolated);
+        const auto rated = interpolate_sorted(sorted, bin.t_c, extrapolated);
         out.load_kw = load;
         out.capacity_kw = rated.capacity_kw;
         out.cop = rated.cop;

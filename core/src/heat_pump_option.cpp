@@ -139,18 +139,45 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
 
     std::optional<double> changeover = option.changeover_c;
     if (option.changeover_optimal) {
-        double best_cost = INFINITY;
-        for (const auto& bin : climate.bins) {
-            if (bin.t_c > balance_c) break;
-            const double candidate = bin.t_c;
-            const double cost = run(input, option, points, ua_kw, balance_c, candidate, backup, losses).energy_cost;
-            if (cost < best_cost - 1e-9) {
-                best_cost = cost;
-                changeover = candidate;
+        // A changeover at c locks the heat pump out in the bins below c. Without block rates the
+        // energy cost is a sum over bins, so one season with the heat pump on and one with it off
+        // give every candidate's cost by prefix sums; with block rates each candidate is run in full.
+        const bool additive = option.tiers.empty() && backup.option->tiers.empty() && input.hot_water_kwh == 0;
+        std::vector<double> candidates;
+        for (const auto& bin : climate.bins)
+            if (bin.t_c <= balance_c) candidates.push_back(bin.t_c);
+        std::vector<double> cost_of(candidates.size(), 0.0);
+        double no_lockout = 0;
+        if (additive) {
+            const auto on = run(input, option, points, ua_kw, balance_c, std::nullopt, backup, losses);
+            const auto off = run(input, option, points, ua_kw, balance_c, INFINITY, backup, losses);
+            const double fuel_price = backup.option->price_per_unit / backup.hhv_kwh_per_unit / backup.efficiency * losses;
+            const auto bin_cost = [&](const heat_pump_bin& bin) {
+                return bin.heat_pump_kwh * losses * option.price_per_unit + bin.backup_heat_kwh * fuel_price;
+            };
+            double above = 0;
+            for (const auto& bin : on.season.bins) above += bin_cost(bin);
+            no_lockout = above;
+            double below = 0;
+            std::size_t next = 0;
+            for (std::size_t j = 0; j < on.season.bins.size() && next < candidates.size(); ++j) {
+                // Candidate c: bins colder than c run on the backup alone.
+                while (next < candidates.size() && candidates[next] <= on.season.bins[j].t_c) cost_of[next++] = below + above;
+                below += bin_cost(off.season.bins[j]);
+                above -= bin_cost(on.season.bins[j]);
             }
+        } else {
+            for (std::size_t k = 0; k < candidates.size(); ++k)
+                cost_of[k] = run(input, option, points, ua_kw, balance_c, candidates[k], backup, losses).energy_cost;
+            no_lockout = run(input, option, points, ua_kw, balance_c, std::nullopt, backup, losses).energy_cost;
         }
-        const double no_lockout = run(input, option, points, ua_kw, balance_c, std::nullopt, backup, losses).energy_cost;
-        if (no_lockout <= best_cost) changeover.reset();
+        double best_cost = INFINITY;
+        for (std::size_t k = 0; k < candidates.size(); ++k)
+            if (k == 0 || cost_of[k] < best_cost - 1e-9 * std::max(1.0, std::fabs(best_cost))) {
+                best_cost = cost_of[k];
+                changeover = candidates[k];
+            }
+        if (no_lockout <= best_cost * (1 + 1e-12)) changeover.reset();
     }
     const auto result = run(input, option, points, ua_kw, balance_c, changeover, backup, losses);
     const auto& season = result.season;

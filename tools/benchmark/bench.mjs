@@ -1,0 +1,94 @@
+// WASM-in-Node and page measurements for tools/bench: the heavy scenario in the WASM module,
+// cold page load to the first verdict against a blank page, the gzip size of what the page
+// transfers, and a price edit to the repainted verdict (headless Chromium, playwright-core).
+import { readFile, readdir, stat, mkdtemp, rm, writeFile } from 'node:fs/promises';
+import { gzipSync } from 'node:zlib';
+import { join, dirname } from 'node:path';
+import { tmpdir } from 'node:os';
+import { fileURLToPath } from 'node:url';
+import { chromium } from 'playwright-core';
+import { serve } from '../../tests/browser/server.js';
+
+const root = join(dirname(fileURLToPath(import.meta.url)), '../..');
+const site = join(root, 'build/site');
+const repeats = Number(process.env.FW_BENCH_REPEATS ?? 9);
+const median = (xs) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+
+async function wasmHeavy() {
+  const { default: create } = await import(join(site, 'fuelwright_core.mjs'));
+  const core = await create({ wasmBinary: await readFile(join(site, 'fuelwright_core.wasm')) });
+  const text = await readFile(join(root, 'tools/benchmark/heavy-scenario.json'), 'utf8');
+  const sweep = JSON.stringify({ scenario: JSON.parse(text), vary: 'price', of: 'gas', from: 0.5, to: 2.0, points: 100 });
+  const runs = [];
+  for (let i = 0; i < repeats; i++) {
+    const t0 = performance.now();
+    const a = JSON.parse(core.evaluate(text));
+    const b = JSON.parse(core.sweep(sweep));
+    runs.push(performance.now() - t0);
+    if (a.errors.length || b.errors.length) throw new Error('the heavy scenario did not evaluate cleanly');
+  }
+  return median(runs);
+}
+
+/** Sum of gzip sizes of every file the site ships (what a first visit transfers at most). */
+async function transferGzip(dir) {
+  let total = 0;
+  for (const name of await readdir(dir)) {
+    const path = join(dir, name);
+    const info = await stat(path);
+    if (info.isDirectory()) continue;  // data/ is fetched only on demand
+    total += gzipSync(await readFile(path), { level: 9 }).length;
+  }
+  return total;
+}
+
+async function pageTimes() {
+  const server = await serve(site);
+  await writeFile(join(site, 'bench-blank.html'), '<!doctype html><title>blank</title><p>blank</p>');
+  const args = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+    '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+  const loads = [], blanks = [], edits = [];
+  try {
+    for (let i = 0; i < Math.max(3, Math.floor(repeats / 2)); i++) {
+      const profile = await mkdtemp(join(tmpdir(), 'fw-bench-'));
+      const context = await chromium.launchPersistentContext(profile, { executablePath: '/usr/bin/chromium', headless: true, args,
+        viewport: { width: 820, height: 1180 } });
+      const page = context.pages()[0] ?? await context.newPage();
+      let t0 = performance.now();
+      await page.goto(`${server.url}bench-blank.html`);
+      await page.waitForSelector('p');
+      blanks.push(performance.now() - t0);
+      t0 = performance.now();
+      await page.goto(server.url);
+      await page.waitForFunction(() => document.querySelector('#verdict-body')?.dataset.state === 'done', null, { timeout: 30000 });
+      loads.push(performance.now() - t0);
+      // A price edit to the repainted verdict: from the input event to the verdict's next 'done'.
+      const input = await page.$('#f-fuels-0-price-amount');
+      if (input) {
+        edits.push(await page.evaluate(() => new Promise((resolve) => {
+          const field = document.querySelector('#f-fuels-0-price-amount');
+          const body = document.querySelector('#verdict-body');
+          const start = performance.now();
+          const observer = new MutationObserver(() => {
+            if (body.dataset.state === 'done' && performance.now() > start) {
+              observer.disconnect();
+              requestAnimationFrame(() => resolve(performance.now() - start));
+            }
+          });
+          observer.observe(body, { attributes: true, subtree: true, childList: true });
+          field.value = String(Number(field.value.replace(',', '.')) * 1.1).replace('.', field.value.includes(',') ? ',' : '.');
+          field.dispatchEvent(new Event('input', { bubbles: true }));
+        })));
+      }
+      await context.close();
+      await rm(profile, { recursive: true, force: true });
+    }
+  } finally {
+    await rm(join(site, 'bench-blank.html'), { force: true });
+    await server.close();
+  }
+  return { load_ms: median(loads), blank_ms: median(blanks), edit_repaint_ms: edits.length ? median(edits) : null };
+}
+
+const out = { wasm_heavy_ms: await wasmHeavy(), transfer_gzip_bytes: await transferGzip(site), ...(await pageTimes()) };
+process.stdout.write(JSON.stringify(out) + '\n');
