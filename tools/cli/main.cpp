@@ -57,7 +57,7 @@ int finish(const std::string& result_text) {
 
 int usage_error(const std::string& path, const std::string& message) {
     json out = {{"errors", json::array({{{"path", path}, {"message", message}}})}, {"warnings", json::array()}};
-    return finish(out.dump());
+    return finish(out.dump(-1, ' ', false, json::error_handler_t::replace));
 }
 
 struct flag_spec {
@@ -105,7 +105,7 @@ int heating_value_command(const std::vector<std::string>& args) {
             request[spec->key] = value;
         }
     }
-    return finish(fw::heating_value_json(request.dump()));
+    return finish(fw::heating_value_json(request.dump(-1, ' ', false, json::error_handler_t::replace)));
 }
 
 int convert_command(const std::vector<std::string>& args) {
@@ -169,7 +169,7 @@ int analysis_command(const std::vector<std::string>& args, const char* name,
             request[key] = value;
         }
     }
-    return finish(entry(request.dump()));
+    return finish(entry(request.dump(-1, ' ', false, json::error_handler_t::replace)));
 }
 
 /// Today's date (UTC) as YYYY-MM-DD.
