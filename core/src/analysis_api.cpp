@@ -17,12 +17,6 @@ using namespace json_fields;
 
 namespace {
 
-std::string fixed(double value, int decimals) {
-    char buffer[64];
-    std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
-    return buffer;
-}
-
 enum class basis { annual, life_cycle };
 
 /// What is varied: one option's price, one fuel's price in every option, one option's efficiency, or demand.
@@ -258,7 +252,7 @@ json break_even(const json& request, std::vector<issue>& warnings) {
     out["cheaper_below"] = cheaper_below;
     const auto label = [&](const std::string& id) { return context.input.options[option_index(context.input, id, "")].label; };
     out["statement"] = label(cheaper_above) + " is cheaper " + (context.cost_basis == basis::annual ? "per year" : "over its life") +
-                       " while " + v.label + " is above " + fixed(x, v.kind == "demand" ? 0 : 3) + " " + v.unit +
+                       " while " + v.label + " is above " + format_fixed(x, v.kind == "demand" ? 0 : 3) + " " + v.unit +
                        "; below it, " + label(cheaper_below) + " is";
     return out;
 }
@@ -379,32 +373,14 @@ json tornado(const json& request, std::vector<issue>& warnings) {
             {"inputs", sorted}};
 }
 
-template <typename Body>
-std::string guarded(const std::string& text, Body body) noexcept {
-    try {
-        std::vector<issue> warnings;
-        json out = body(parse_request(text), warnings);
-        require_finite_output(out);
-        out["errors"] = json::array();
-        out["warnings"] = issues_json(warnings);
-        return dump_text(out);
-    } catch (const input_error& error) {
-        return error_response({{error.path(), error.message()}});
-    } catch (const std::exception& error) {
-        return error_response({{"", std::string("internal error: ") + error.what()}});
-    } catch (...) {
-        return error_response({{"", "internal error"}});
-    }
-}
-
 }  // namespace
 
 bool input_has_bins(const scenario& input, const scenario_option& option) {
     return input.climate.has_value() && option.system.kind == system_kind::air_source_heat_pump;
 }
 
-std::string break_even_json(const std::string& request_json) noexcept { return guarded(request_json, break_even); }
-std::string sweep_json(const std::string& request_json) noexcept { return guarded(request_json, sweep); }
-std::string tornado_json(const std::string& request_json) noexcept { return guarded(request_json, tornado); }
+std::string break_even_json(const std::string& request_json) noexcept { return guarded_entry(request_json, break_even); }
+std::string sweep_json(const std::string& request_json) noexcept { return guarded_entry(request_json, sweep); }
+std::string tornado_json(const std::string& request_json) noexcept { return guarded_entry(request_json, tornado); }
 
 }  // namespace fw

@@ -196,29 +196,10 @@ json heating_value(const json& request, std::vector<issue>& warnings) {
     return out;
 }
 
-/// Runs `body`, turning input errors and anything unexpected into the errors[] shape.
-template <typename Body>
-std::string guarded(const std::string& request_text, Body body) noexcept {
-    try {
-        std::vector<issue> warnings;
-        json out = body(parse_request(request_text), warnings);
-        require_finite_output(out);
-        if (!out.contains("errors")) out["errors"] = json::array();
-        out["warnings"] = issues_json(warnings);
-        return dump_text(out);
-    } catch (const input_error& error) {
-        return error_response({{error.path(), error.message()}});
-    } catch (const std::exception& error) {
-        return error_response({{"", std::string("internal error: ") + error.what()}});
-    } catch (...) {
-        return error_response({{"", "internal error"}});
-    }
-}
-
 }  // namespace
 
 std::string heating_value_json(const std::string& request_json) noexcept {
-    return guarded(request_json, [](const json& request, std::vector<issue>& warnings) {
+    return guarded_entry(request_json, [](const json& request, std::vector<issue>& warnings) {
         return heating_value(request, warnings);
     });
 }

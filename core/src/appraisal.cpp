@@ -11,12 +11,6 @@ namespace fw {
 
 namespace {
 
-std::string fixed(double value, int decimals) {
-    char buffer[64];
-    std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
-    return buffer;
-}
-
 /// Base-year cost of an option [currency/year] in year t, each part escalating at its fuel's rate.
 double cost_in_year(const option_result& r, const scenario_option& o, const economics_settings& e, int t) {
     double cost = o.annual_maintenance * std::pow(1 + e.maintenance_escalation, t);
@@ -73,20 +67,20 @@ std::vector<option_economics> appraise(const scenario& input, const evaluation& 
         const double capital_years = o.life_years.value_or(n);
         x.lcoh_per_kwh = (x.net_installed_cost * crf(d, capital_years) + o.annual_maintenance +
                           x.energy_fixed_pv * crf(d, n)) / r.useful_heat_kwh;
-        x.trace.push_back("life-cycle cost over " + std::to_string(n) + " years at " + fixed(100 * d, 2) + " % (" + e.basis +
-                          "): capital " + fixed(x.net_installed_cost, 0) +
-                          (x.replacement_pv > 0 ? " + replacements " + fixed(x.replacement_pv, 0) : "") +
-                          (x.residual_pv > 0 ? " - residual value " + fixed(x.residual_pv, 0) : "") +
-                          " + energy and fixed charges " + fixed(x.energy_fixed_pv, 0) + " + maintenance " +
-                          fixed(x.maintenance_pv, 0) + " = " + fixed(x.life_cycle_cost, 0) + " " + currency);
+        x.trace.push_back("life-cycle cost over " + std::to_string(n) + " years at " + format_fixed(100 * d, 2) + " % (" + e.basis +
+                          "): capital " + format_fixed(x.net_installed_cost, 0) +
+                          (x.replacement_pv > 0 ? " + replacements " + format_fixed(x.replacement_pv, 0) : "") +
+                          (x.residual_pv > 0 ? " - residual value " + format_fixed(x.residual_pv, 0) : "") +
+                          " + energy and fixed charges " + format_fixed(x.energy_fixed_pv, 0) + " + maintenance " +
+                          format_fixed(x.maintenance_pv, 0) + " = " + format_fixed(x.life_cycle_cost, 0) + " " + currency);
         std::string factors;
         for (std::size_t k = 0; k < r.cost_parts.size(); ++k)
             factors += (factors.empty() ? "" : "; ") + r.cost_parts[k].fuel_id + " escalating " +
-                       fixed(100 * e.escalation_of(r.cost_parts[k].fuel_id), 1) + " %/yr: UPW* = " + fixed(x.part_upw[k], 4);
+                       format_fixed(100 * e.escalation_of(r.cost_parts[k].fuel_id), 1) + " %/yr: UPW* = " + format_fixed(x.part_upw[k], 4);
         x.trace.push_back("present worth of the yearly costs, NIST Handbook 135 UPW* = (1+e)/(d-e) [1 - ((1+e)/(1+d))^N]: " + factors);
-        x.trace.push_back("levelized cost of heat = (capital x CRF(" + fixed(capital_years, 0) + " yr) + maintenance + " +
+        x.trace.push_back("levelized cost of heat = (capital x CRF(" + format_fixed(capital_years, 0) + " yr) + maintenance + " +
                           "present worth of energy x CRF(" + std::to_string(n) + " yr)) / useful heat = " +
-                          fixed(x.lcoh_per_kwh, 4) + " " + currency + "/kWh (fuel levelized with its escalation)");
+                          format_fixed(x.lcoh_per_kwh, 4) + " " + currency + "/kWh (fuel levelized with its escalation)");
         out.push_back(std::move(x));
     }
     if (!baseline) return out;
@@ -107,7 +101,7 @@ std::vector<option_economics> appraise(const scenario& input, const evaluation& 
         const double saving = (base_r.annual_cost + base_o.annual_maintenance) - (r.annual_cost + o.annual_maintenance);
         x.annual_saving = saving;
         if (saving <= 0) {
-            x.payback_reason = "no annual saving against " + base_o.id + " (it costs " + fixed(-saving, 2) + " " + currency +
+            x.payback_reason = "no annual saving against " + base_o.id + " (it costs " + format_fixed(-saving, 2) + " " + currency +
                                " more per year)";
         } else {
             x.simple_payback_years = std::max(0.0, x.net_installed_cost) / saving;
@@ -129,9 +123,9 @@ std::vector<option_economics> appraise(const scenario& input, const evaluation& 
                                                       : "the discounted savings do not repay the cost within the " +
                                                             std::to_string(n) + "-year analysis period";
         if (*x.co2e_saved_kg_life > 0) x.cost_per_tonne_co2e_avoided = -*x.npv / (*x.co2e_saved_kg_life / 1000.0);
-        x.trace.push_back("against " + base_o.id + ": annual saving " + fixed(saving, 2) + " " + currency + "; NPV of switching = " +
-                          fixed(out[*baseline].life_cycle_cost, 0) + " - " + fixed(x.life_cycle_cost, 0) + " = " +
-                          fixed(*x.npv, 0) + " " + currency);
+        x.trace.push_back("against " + base_o.id + ": annual saving " + format_fixed(saving, 2) + " " + currency + "; NPV of switching = " +
+                          format_fixed(out[*baseline].life_cycle_cost, 0) + " - " + format_fixed(x.life_cycle_cost, 0) + " = " +
+                          format_fixed(*x.npv, 0) + " " + currency);
     }
     return out;
 }

@@ -10,12 +10,6 @@ namespace fw {
 
 namespace {
 
-std::string fixed(double value, int decimals) {
-    char buffer[64];
-    std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
-    return buffer;
-}
-
 struct backup_system {
     const scenario_option* option = nullptr;  ///< nullptr: electric resistance
     double efficiency = 1.0;                  ///< HHV basis
@@ -65,7 +59,7 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
     const auto& climate = *input.climate;
     const bool f = climate.fahrenheit;
     const auto temp_text = [&](double c) {
-        return f ? fixed(convert(c, "degC", "degF"), 1) + " degF" : fixed(c, 1) + " degC";
+        return f ? format_fixed(convert(c, "degC", "degF"), 1) + " degF" : format_fixed(c, 1) + " degC";
     };
     const auto& currency = input.settings.currency;
     if (option.fuel.category != fuel_category::electricity)
@@ -103,16 +97,16 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
                              "data sheet's capacities and COPs for a real prediction");
         if (!option.capacity_47_kw)
             r.warnings.push_back("no capacity given: taken as the design load at " + temp_text(design_c) + " (" +
-                                 fixed(capacity, 2) + " kW at 47 degF); equipment sizing needs a Manual J or EN 12831 "
+                                 format_fixed(capacity, 2) + " kW at 47 degF); equipment sizing needs a Manual J or EN 12831 "
                                  "load calculation by a professional");
-        sheet_trace.push_back("default curve scaled to seasonal COP " + fixed(rated.rated_hhv_basis, 2) +
-                              ": COP at 47 degF " + fixed(points[0].cop, 2) + ", capacity " + fixed(capacity, 2) + " kW");
+        sheet_trace.push_back("default curve scaled to seasonal COP " + format_fixed(rated.rated_hhv_basis, 2) +
+                              ": COP at 47 degF " + format_fixed(points[0].cop, 2) + ", capacity " + format_fixed(capacity, 2) + " kW");
     } else {
         std::string line = "data sheet:";
         auto sorted = points;
         std::sort(sorted.begin(), sorted.end(), [](auto& a, auto& b) { return a.outdoor_c > b.outdoor_c; });
         for (const auto& p : sorted)
-            line += " " + temp_text(p.outdoor_c) + " " + fixed(p.capacity_kw, 2) + " kW COP " + fixed(p.cop, 2) + ";";
+            line += " " + temp_text(p.outdoor_c) + " " + format_fixed(p.capacity_kw, 2) + " kW COP " + format_fixed(p.cop, 2) + ";";
         line.pop_back();
         sheet_trace.push_back(line);
     }
@@ -231,21 +225,21 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
     if (season.extrapolated_hours > 0) {
         double coldest = points.front().outdoor_c;
         for (const auto& p : points) coldest = std::min(coldest, p.outdoor_c);
-        r.warnings.push_back(fixed(season.extrapolated_hours, 0) + " heating hours are colder than the data sheet's coldest "
+        r.warnings.push_back(format_fixed(season.extrapolated_hours, 0) + " heating hours are colder than the data sheet's coldest "
                              "point (" + temp_text(coldest) + "); capacity and COP there are extrapolated linearly");
     }
 
     // Trace.
     const bool us = input.settings.units == unit_system::us;
     const auto energy_text = [&](double kwh) {
-        return us ? fixed(convert(kwh, "kWh", "MMBtu"), 2) + " MMBtu" : fixed(kwh, 0) + " kWh";
+        return us ? format_fixed(convert(kwh, "kWh", "MMBtu"), 2) + " MMBtu" : format_fixed(kwh, 0) + " kWh";
     };
     r.trace.push_back("useful heat " + energy_text(r.useful_heat_kwh) + " (" + input.demand_method + " demand)" +
                       (input.hot_water_kwh > 0 ? ", of which hot water " + energy_text(input.hot_water_kwh) : ""));
     for (const auto& line : sheet_trace) r.trace.push_back(line);
     r.trace.push_back("temperature bins: " + std::to_string(climate.bins.size()) + " bins, " +
-                      fixed(season.hours_below_balance_point, 0) + " h below the balance point " + temp_text(balance_c) +
-                      "; load line " + fixed(ua_kw * 1000, 1) + " W/K x (balance point - outdoor)");
+                      format_fixed(season.hours_below_balance_point, 0) + " h below the balance point " + temp_text(balance_c) +
+                      "; load line " + format_fixed(ua_kw * 1000, 1) + " W/K x (balance point - outdoor)");
     r.trace.push_back("each bin: capacity and COP interpolated; part load X = min(1, load/capacity), PLF = 1 - " +
                       format_number(option.cd) + " (1 - X)" + (option.cd_given ? "" : " (C_D default 0.25, DOE App. M)") +
                       (option.cutoff_c ? "; off below " + temp_text(*option.cutoff_c) : "") +
@@ -253,19 +247,19 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
                                         (option.changeover_optimal ? " (lowest cost at these prices)" : "")
                                   : ""));
     r.trace.push_back("season: heat pump delivers " + energy_text(season.heat_pump_heat_kwh) + " using " +
-                      fixed(season.heat_pump_kwh, 0) + " kWh (COP " + fixed(season.heat_pump_cop(), 2) +
-                      "); backup " + energy_text(season.backup_heat_kwh) + " (" + fixed(100 * r.backup_share, 1) + " % of the load)");
-    if (losses != 1.0) r.trace.push_back("age derating and distribution loss: energies x " + fixed(losses, 4));
+                      format_fixed(season.heat_pump_kwh, 0) + " kWh (COP " + format_fixed(season.heat_pump_cop(), 2) +
+                      "); backup " + energy_text(season.backup_heat_kwh) + " (" + format_fixed(100 * r.backup_share, 1) + " % of the load)");
+    if (losses != 1.0) r.trace.push_back("age derating and distribution loss: energies x " + format_fixed(losses, 4));
     if (backup.option)
         r.trace.push_back("backup " + backup.option->id + ": " + energy_text(season.backup_heat_kwh * losses) + " / " +
-                          fixed(backup.efficiency, 3) + " = " + fixed(r.backup_fuel_quantity, 1) + " " + r.backup_fuel_unit +
+                          format_fixed(backup.efficiency, 3) + " = " + format_fixed(r.backup_fuel_quantity, 1) + " " + r.backup_fuel_unit +
                           " x " + format_number(backup.option->price_per_unit) + " " + currency);
     else
-        r.trace.push_back("resistance backup " + fixed(r.backup_kwh, 0) + " kWh; seasonal COP with backup " +
-                          fixed(r.seasonal_cop, 2));
-    r.trace.push_back(fixed(result.electricity_kwh, 0) + " kWh x " + format_number(option.price_per_unit) + " " + currency +
-                      "/kWh" + (backup.option ? " + backup fuel" : "") + " = " + fixed(r.energy_cost, 2) + " " + currency +
-                      " energy; fixed " + fixed(r.fixed_cost, 2) + "; annual " + fixed(r.annual_cost, 2) + " " + currency);
+        r.trace.push_back("resistance backup " + format_fixed(r.backup_kwh, 0) + " kWh; seasonal COP with backup " +
+                          format_fixed(r.seasonal_cop, 2));
+    r.trace.push_back(format_fixed(result.electricity_kwh, 0) + " kWh x " + format_number(option.price_per_unit) + " " + currency +
+                      "/kWh" + (backup.option ? " + backup fuel" : "") + " = " + format_fixed(r.energy_cost, 2) + " " + currency +
+                      " energy; fixed " + format_fixed(r.fixed_cost, 2) + "; annual " + format_fixed(r.annual_cost, 2) + " " + currency);
     r.trace.push_back("emissions " + emissions_text);
     r.sources = option.fuel.sources;
     r.sources.push_back({"emission factors", option.fuel.id, option.fuel.emissions.source});

@@ -29,12 +29,6 @@ bool is_currency_code(const std::string& code) {
     return code.size() == 3 && std::all_of(code.begin(), code.end(), [](char c) { return c >= 'A' && c <= 'Z'; });
 }
 
-std::string fixed(double value, int decimals) {
-    char buffer[64];
-    std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
-    return buffer;
-}
-
 /// Reads "Btu/therm" style text: energy unit / sale unit.
 std::pair<std::string, std::string> energy_per_unit(const std::string& text, const std::string& path) {
     const auto slash = text.find('/');
@@ -333,7 +327,7 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
                 throw input_error(charge_path + (monthly ? "/amount_per_month" : "/amount_per_year"),
                                   "must be >= 0, got " + format_number(amount));
             entry.amount_per_year = monthly ? *monthly * 12 : *yearly;
-            entry.text = monthly ? fixed(*monthly, 2) + " per month x 12" : fixed(*yearly, 2) + " per year";
+            entry.text = monthly ? format_fixed(*monthly, 2) + " per month x 12" : format_fixed(*yearly, 2) + " per year";
             option.fixed_charges.push_back(entry);
         }
     }
@@ -536,8 +530,8 @@ uncertainty_settings read_uncertainty(const json& u, std::vector<issue>& warning
 }
 
 std::string energy_text(double kwh, unit_system units) {
-    if (units == unit_system::us) return fixed(convert(kwh, "kWh", "MMBtu"), 2) + " MMBtu";
-    return fixed(kwh, 0) + " kWh";
+    if (units == unit_system::us) return format_fixed(convert(kwh, "kWh", "MMBtu"), 2) + " MMBtu";
+    return format_fixed(kwh, 0) + " kWh";
 }
 
 }  // namespace
@@ -614,12 +608,12 @@ emissions emissions_of(const fuel_record& fuel, double fuel_kwh_hhv, const scena
     if (fuel.emissions.per_kwh_setting) {
         out.co2_fossil_kg = fuel_kwh_hhv * settings.electricity_co2e_kg_per_kwh;
         out.co2e_kg = out.co2_fossil_kg;
-        out.text = fixed(fuel_kwh_hhv, 0) + " kWh x " + format_number(settings.electricity_co2e_kg_per_kwh) +
+        out.text = format_fixed(fuel_kwh_hhv, 0) + " kWh x " + format_number(settings.electricity_co2e_kg_per_kwh) +
                    " kg CO2e/kWh (" +
                    (settings.electricity_factor_given ? std::string("scenario setting")
                                                       : "default: " + default_electricity_emissions().source + ", " +
                                                             std::to_string(default_electricity_emissions().year)) +
-                   ") = " + fixed(out.co2e_kg, 0) + " kg CO2e";
+                   ") = " + format_fixed(out.co2e_kg, 0) + " kg CO2e";
         return out;
     }
     const auto& gwp = find_gwp_set(settings.gwp);
@@ -629,11 +623,11 @@ emissions emissions_of(const fuel_record& fuel, double fuel_kwh_hhv, const scena
     out.ch4_kg = mmbtu * fuel.emissions.ch4_kg_per_mmbtu;
     out.n2o_kg = mmbtu * fuel.emissions.n2o_kg_per_mmbtu;
     out.co2e_kg = out.co2_fossil_kg + out.ch4_kg * gwp.ch4 + out.n2o_kg * gwp.n2o;
-    out.text = fixed(mmbtu, 2) + " MMBtu x (" + format_number(fuel.emissions.co2_kg_per_mmbtu) + " kg CO2" +
+    out.text = format_fixed(mmbtu, 2) + " MMBtu x (" + format_number(fuel.emissions.co2_kg_per_mmbtu) + " kg CO2" +
                (fuel.emissions.biogenic ? " biogenic, not counted in CO2e" : "") + " + " +
                format_number(fuel.emissions.ch4_kg_per_mmbtu) + " kg CH4 x " + format_number(gwp.ch4) + " + " +
                format_number(fuel.emissions.n2o_kg_per_mmbtu) + " kg N2O x " + format_number(gwp.n2o) + ", GWP " +
-               gwp.id + ") per MMBtu = " + fixed(out.co2e_kg, 0) + " kg CO2e";
+               gwp.id + ") per MMBtu = " + format_fixed(out.co2e_kg, 0) + " kg CO2e";
     return out;
 }
 
@@ -682,7 +676,7 @@ option_result evaluate_option(const scenario& input, const scenario_option& opti
         hv.hhv_j *= *moisture_scale;
         hv.lhv_j *= *moisture_scale;
         hv_text += "; at " + format_number(*option.moisture_pct) + " % moisture instead of " +
-                   format_number(*fuel.moisture_pct) + " %: x " + fixed(*moisture_scale, 4) + " (wet basis)";
+                   format_number(*fuel.moisture_pct) + " %: x " + format_fixed(*moisture_scale, 4) + " (wet basis)";
     }
     if (option.heating_value_override_j) {
         hv.hhv_j = *option.heating_value_override_j;
@@ -713,8 +707,8 @@ option_result evaluate_option(const scenario& input, const scenario_option& opti
     r.trace.push_back("useful heat " + energy_text(r.useful_heat_kwh, units) + " (" + input.demand_method + " demand)");
     for (const auto& line : efficiency.trace) r.trace.push_back(line);
     const bool electric = fuel.category == fuel_category::electricity;
-    const std::string divisor = electric || is_heat_pump(option.system.kind) ? "COP " + fixed(r.seasonal_efficiency_hhv, 3)
-                                                                              : fixed(r.seasonal_efficiency_hhv, 4);
+    const std::string divisor = electric || is_heat_pump(option.system.kind) ? "COP " + format_fixed(r.seasonal_efficiency_hhv, 3)
+                                                                              : format_fixed(r.seasonal_efficiency_hhv, 4);
     r.trace.push_back(energy_text(r.useful_heat_kwh, units) + " useful / " + divisor + " = " +
                       energy_text(r.fuel_energy_hhv_kwh, units) + " " + fuel.name + (electric ? "" : " (HHV)"));
     r.trace.push_back("heating value: " + hv_text);
@@ -722,28 +716,28 @@ option_result evaluate_option(const scenario& input, const scenario_option& opti
                                      ? format_number(convert(r.hhv_kwh_per_unit, "kWh", "MMBtu")) + " MMBtu/" + r.fuel_unit
                                      : format_number(r.hhv_kwh_per_unit) + " kWh/" + r.fuel_unit;
     r.trace.push_back(energy_text(r.fuel_energy_hhv_kwh, units) + " / " + per_unit + " = " +
-                      fixed(r.fuel_quantity, 1) + " " + r.fuel_unit);
+                      format_fixed(r.fuel_quantity, 1) + " " + r.fuel_unit);
     if (option.tiers.empty()) {
-        r.trace.push_back(fixed(r.fuel_quantity, 1) + " " + r.fuel_unit + " x " + format_number(r.price_per_unit) + " " +
-                          currency + "/" + r.fuel_unit + " = " + fixed(r.energy_cost, 2) + " " + currency + " energy");
+        r.trace.push_back(format_fixed(r.fuel_quantity, 1) + " " + r.fuel_unit + " x " + format_number(r.price_per_unit) + " " +
+                          currency + "/" + r.fuel_unit + " = " + format_fixed(r.energy_cost, 2) + " " + currency + " energy");
     } else {
         std::string blocks;
         for (const auto& tier : option.tiers)
             if (r.fuel_quantity > tier.from)
-                blocks += (blocks.empty() ? "" : " + ") + fixed(std::min(r.fuel_quantity, tier.to) - tier.from, 1) + " x " +
+                blocks += (blocks.empty() ? "" : " + ") + format_fixed(std::min(r.fuel_quantity, tier.to) - tier.from, 1) + " x " +
                           format_number(tier.amount);
-        r.trace.push_back(fixed(r.fuel_quantity, 1) + " " + r.fuel_unit + " in blocks: " + blocks + " = " +
-                          fixed(r.energy_cost, 2) + " " + currency + " energy (average " +
+        r.trace.push_back(format_fixed(r.fuel_quantity, 1) + " " + r.fuel_unit + " in blocks: " + blocks + " = " +
+                          format_fixed(r.energy_cost, 2) + " " + currency + " energy (average " +
                           format_number(r.energy_cost / r.fuel_quantity) + " " + currency + "/" + r.fuel_unit + ")");
         r.price_per_unit = r.energy_cost / r.fuel_quantity;
     }
     for (const auto& charge : option.fixed_charges)
-        r.trace.push_back(charge.label + ": " + charge.text + " = " + fixed(charge.amount_per_year, 2) + " " + currency);
-    r.trace.push_back("annual cost " + fixed(r.energy_cost, 2) + " + " + fixed(r.fixed_cost, 2) + " fixed = " +
-                      fixed(r.annual_cost, 2) + " " + currency);
+        r.trace.push_back(charge.label + ": " + charge.text + " = " + format_fixed(charge.amount_per_year, 2) + " " + currency);
+    r.trace.push_back("annual cost " + format_fixed(r.energy_cost, 2) + " + " + format_fixed(r.fixed_cost, 2) + " fixed = " +
+                      format_fixed(r.annual_cost, 2) + " " + currency);
     r.trace.push_back("cost of useful heat " + format_number(r.price_per_unit) + " / (" +
                       format_number(r.hhv_kwh_per_unit) + " kWh/" + r.fuel_unit + " x " +
-                      format_number(r.seasonal_efficiency_hhv) + ") = " + fixed(r.cost_per_useful_kwh, 4) + " " +
+                      format_number(r.seasonal_efficiency_hhv) + ") = " + format_fixed(r.cost_per_useful_kwh, 4) + " " +
                       currency + "/kWh useful (energy price only, fixed charges excluded)");
     r.trace.push_back("emissions " + emissions_line);
 

@@ -15,12 +15,6 @@ using namespace json_fields;
 
 namespace {
 
-std::string fixed(double value, int decimals) {
-    char buffer[64];
-    std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
-    return buffer;
-}
-
 /// [degC] from a {value, unit} temperature.
 double temperature_c(const json& obj, const std::string& path) {
     require_object(obj, path);
@@ -82,7 +76,7 @@ climate_info read_climate(const json& climate) {
     bool range_given = false;
     if (const auto range = optional_number(climate, "daily_range", path)) {
         if (*range < 0 || *range > 40 / k)
-            throw input_error(path + "/daily_range", "must be a daily temperature range from 0 to " + fixed(40 / k, 0) +
+            throw input_error(path + "/daily_range", "must be a daily temperature range from 0 to " + format_fixed(40 / k, 0) +
                                                          " " + *unit + ", got " + format_number(*range));
         range_k = *range * k;
         range_given = true;
@@ -105,7 +99,7 @@ climate_info read_climate(const json& climate) {
             for (std::size_t m = 0; m < 12; ++m) {
                 if (!(values[m] > 0) || values[m] * k > 25)
                     throw input_error(path + "/monthly_sd/" + std::to_string(m),
-                                      "the standard deviation of daily means must be > 0 and at most " + fixed(25 / k, 0) +
+                                      "the standard deviation of daily means must be > 0 and at most " + format_fixed(25 / k, 0) +
                                           " " + *unit + ", got " + format_number(values[m]));
                 values[m] *= k;
             }
@@ -132,7 +126,7 @@ climate_info read_climate(const json& climate) {
         throw input_error(path, "give monthly_mean (12 values), monthly_hdd (12 values), or annual_hdd with design_temperature");
     }
     info.model.trace.push_back(range_given ? "daily range " + format_number(range_k / k) + " " + *unit + " as given"
-                                           : "daily range " + fixed(range_k / k, 0) + " " + *unit +
+                                           : "daily range " + format_fixed(range_k / k, 0) + " " + *unit +
                                                  " assumed (typical of inland mid-latitude sites; give daily_range)");
     info.bins = hourly_bins(info.model, info.fahrenheit ? 2 * k : 1.0);
     info.design_99_c = design_temperature(info.model, 0.01);
@@ -146,11 +140,11 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
     const auto& method = out.demand_method;
     const bool us = out.settings.units == unit_system::us;
     const auto energy_text = [&](double kwh) {
-        return us ? fixed(convert(kwh, "kWh", "MMBtu"), 2) + " MMBtu" : fixed(kwh, 0) + " kWh";
+        return us ? format_fixed(convert(kwh, "kWh", "MMBtu"), 2) + " MMBtu" : format_fixed(kwh, 0) + " kWh";
     };
     const auto temp_text = [&](double c) {
         const bool f = out.climate ? out.climate->fahrenheit : us;
-        return f ? fixed(convert(c, "degC", "degF"), 1) + " degF" : fixed(c, 1) + " degC";
+        return f ? format_fixed(convert(c, "degC", "degF"), 1) + " degF" : format_fixed(c, 1) + " degC";
     };
     const auto need_climate = [&](const char* what) {
         if (!out.climate) throw input_error("/climate", std::string("is required for ") + what);
@@ -166,7 +160,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             throw input_error("/demand/annual_useful_heat/value", "must be > 0, got " + format_number(heat.at("value").get<double>()));
         out.space_heat_kwh = kwh;
         out.demand_trace.push_back("annual useful heat given directly: " + format_number(heat.at("value").get<double>()) +
-                                   " " + heat.at("unit").get<std::string>() + " = " + fixed(kwh, 1) + " kWh");
+                                   " " + heat.at("unit").get<std::string>() + " = " + format_fixed(kwh, 1) + " kWh");
         warn_unknown_keys(demand, {"method", "annual_useful_heat", "balance_point", "hot_water"}, "/demand", warnings);
     } else if (method == "heat-loss") {
         need_climate("the heat-loss method (degree-days come from it)");
@@ -183,7 +177,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
                 throw input_error("/demand/ua/unit", "must be W/K or Btu/h/degF, got \"" + unit + "\"");
             ua = unit == "W/K" ? *number : *number * constants::joule_per_btu / 3600.0 * 9.0 / 5.0;
             if (ua <= 0) throw input_error("/demand/ua/value", "must be > 0, got " + format_number(*number));
-            out.demand_trace.push_back("UA " + format_number(*number) + " " + unit + " = " + fixed(ua, 1) + " W/K");
+            out.demand_trace.push_back("UA " + format_number(*number) + " " + unit + " = " + format_fixed(ua, 1) + " W/K");
         } else if (demand.contains("design_heat_loss")) {
             const double watts = quantity(demand.at("design_heat_loss"), "/demand/design_heat_loss", dimension::power, "W");
             if (watts <= 0) throw input_error("/demand/design_heat_loss/value", "must be > 0");
@@ -195,8 +189,8 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
                 throw input_error("/demand/design_outdoor", "the design outdoor temperature must be at least 5 K below indoor (" +
                                                                 temp_text(*indoor_c) + "), got " + temp_text(outdoor_c));
             ua = watts / (*indoor_c - outdoor_c);
-            out.demand_trace.push_back("UA = design heat loss " + fixed(watts, 0) + " W / (" + temp_text(*indoor_c) + " - " +
-                                       temp_text(outdoor_c) + ") = " + fixed(ua, 1) + " W/K" +
+            out.demand_trace.push_back("UA = design heat loss " + format_fixed(watts, 0) + " W / (" + temp_text(*indoor_c) + " - " +
+                                       temp_text(outdoor_c) + ") = " + format_fixed(ua, 1) + " W/K" +
                                        (demand.contains("design_outdoor") ? "" : " (design outdoor temperature from the climate, 99 %)"));
         } else {
             throw input_error("/demand/ua", "give ua {value, unit} or design_heat_loss with indoor and design_outdoor");
@@ -209,7 +203,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             const double gains = quantity(demand.at("internal_gains"), "/demand/internal_gains", dimension::power, "W");
             if (gains < 0) throw input_error("/demand/internal_gains/value", "must be >= 0");
             out.balance_point_c = *indoor_c - gains / ua;
-            out.demand_trace.push_back("balance point = indoor " + temp_text(*indoor_c) + " - gains " + fixed(gains, 0) +
+            out.demand_trace.push_back("balance point = indoor " + temp_text(*indoor_c) + " - gains " + format_fixed(gains, 0) +
                                        " W / UA = " + temp_text(*out.balance_point_c));
         } else {
             out.balance_point_c = out.climate->base_c;
@@ -220,15 +214,15 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         const auto monthly = monthly_hdd(out.climate->model, *out.balance_point_c);
         const double hdd = std::accumulate(monthly.begin(), monthly.end(), 0.0);
         double space = ua * hdd * 24.0 / 1000.0;
-        out.demand_trace.push_back("annual space heat = UA x HDD x 24 h = " + fixed(ua, 1) + " W/K x " + fixed(hdd, 0) +
-                                   " K day (base " + temp_text(*out.balance_point_c) + ") x 24 h = " + fixed(space, 0) + " kWh");
+        out.demand_trace.push_back("annual space heat = UA x HDD x 24 h = " + format_fixed(ua, 1) + " W/K x " + format_fixed(hdd, 0) +
+                                   " K day (base " + temp_text(*out.balance_point_c) + ") x 24 h = " + format_fixed(space, 0) + " kWh");
         if (const auto cd = optional_number(demand, "degree_day_correction", "/demand")) {
             if (*cd <= 0 || *cd > 1.2)
                 throw input_error("/demand/degree_day_correction", "C_D must be from above 0 to 1.2, got " + format_number(*cd));
             space *= *cd;
             out.demand_trace.push_back("x C_D " + format_number(*cd) +
                                        " (degree-day correction factor as entered; ASHRAE Handbook—Fundamentals (1985-1993 "
-                                       "editions) gives 0.6-0.8 for a 65 degF base, from memory) = " + fixed(space, 0) + " kWh");
+                                       "editions) gives 0.6-0.8 for a 65 degF base, from memory) = " + format_fixed(space, 0) + " kWh");
         }
         out.space_heat_kwh = space;
         warn_unknown_keys(demand, {"method", "ua", "design_heat_loss", "indoor", "design_outdoor", "balance_point",
@@ -321,7 +315,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             out.space_heat_kwh = annual * eta;
             warnings.push_back({"/demand/bills", "an annual total alone is not weather-normalised: a mild or a cold year "
                                                  "moves it directly"});
-            out.demand_trace.push_back("annual fuel " + energy_text(annual) + " (HHV) x " + fixed(eta, 3) + " = " +
+            out.demand_trace.push_back("annual fuel " + energy_text(annual) + " (HHV) x " + format_fixed(eta, 3) + " = " +
                                        energy_text(out.space_heat_kwh) + " useful (hot water and cooking, if any, included)");
         } else {
             const bool f = out.climate->fahrenheit;
@@ -334,16 +328,16 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             out.space_heat_kwh = fit.heating_kwh * eta;
             out.demand_uncertainty_kwh = fit.nac_standard_error_kwh * eta;
             out.demand_trace.push_back("PRISM fit (Fels 1986) of " + std::to_string(bills.size()) + " bills: use per day = " +
-                                       fixed(fit.base_kwh_per_day, 2) + " kWh + " + fixed(fit.slope_kwh_per_k_day, 3) +
+                                       format_fixed(fit.base_kwh_per_day, 2) + " kWh + " + format_fixed(fit.slope_kwh_per_k_day, 3) +
                                        " kWh per K day x HDD per day to tau = " + temp_text(fit.tau_c) +
-                                       ", R^2 = " + fixed(fit.r2, 3));
+                                       ", R^2 = " + format_fixed(fit.r2, 3));
             out.demand_trace.push_back("normalised annual consumption " + energy_text(fit.nac_kwh) + " = base " +
                                        energy_text(fit.base_annual_kwh) + " + heating " + energy_text(fit.heating_kwh) +
                                        " (HHV; standard error " + energy_text(fit.nac_standard_error_kwh) + ")");
-            out.demand_trace.push_back("useful space heat = heating part x " + fixed(eta, 3) + " = " +
+            out.demand_trace.push_back("useful space heat = heating part x " + format_fixed(eta, 3) + " = " +
                                        energy_text(out.space_heat_kwh) + "; the base part (hot water, cooking) is not counted");
             if (fit.r2 < 0.7)
-                warnings.push_back({"/demand/bills", "poor fit (R^2 = " + fixed(fit.r2, 2) + " < 0.7): the bills do not follow "
+                warnings.push_back({"/demand/bills", "poor fit (R^2 = " + format_fixed(fit.r2, 2) + " < 0.7): the bills do not follow "
                                                      "the weather well; check the readings and the climate"});
             if (fit.slope_kwh_per_k_day <= 0)
                 throw input_error("/demand/bills", "the bills show no heating use that rises with the cold (slope " +

@@ -47,19 +47,13 @@ std::vector<efficiency_rating> ratings_for(system_kind kind) {
     return {};
 }
 
-std::string fixed(double value, int decimals) {
-    char buffer[64];
-    std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
-    return buffer;
-}
-
 /// "a furnace", "an air-source-heat-pump".
 std::string with_article(const std::string& noun) {
     const bool vowel = !noun.empty() && std::string("aeiou").find(noun[0]) != std::string::npos;
     return (vowel ? "an " : "a ") + noun;
 }
 
-std::string percent(double fraction) { return fixed(fraction * 100.0, 1) + " %"; }
+std::string percent(double fraction) { return format_fixed(fraction * 100.0, 1) + " %"; }
 
 rated_efficiency load_rated(const nlohmann::json& item) {
     return {item.at("value").get<double>(), parse_rating(item.at("rating").get<std::string>()),
@@ -170,7 +164,7 @@ seasonal_efficiency seasonal_efficiency_hhv(const system_request& request, const
             }
             out.rated_hhv_basis = v / 100.0;
             if (request.rating == efficiency_rating::afue)
-                out.trace.push_back(format_number(v) + " % AFUE = " + fixed(out.rated_hhv_basis, 3) +
+                out.trace.push_back(format_number(v) + " % AFUE = " + format_fixed(out.rated_hhv_basis, 3) +
                                     " seasonal efficiency (AFUE is annual output over annual fuel input on the HHV "
                                     "basis, cycling losses included, fan and pump electricity excluded)");
             else if (request.rating == efficiency_rating::thermal) {
@@ -185,7 +179,7 @@ seasonal_efficiency seasonal_efficiency_hhv(const system_request& request, const
         case efficiency_rating::seasonal_ncv: {
             const double gross = v / 100.0 * fuel.lhv_over_hhv;
             out.trace.push_back(format_number(v) + " % seasonal (net, NCV basis) x LHV/HHV " +
-                                fixed(fuel.lhv_over_hhv, 4) + " of " + fuel.id + " = " + percent(gross) +
+                                format_fixed(fuel.lhv_over_hhv, 4) + " of " + fuel.id + " = " + percent(gross) +
                                 " on the gross (HHV) basis (a net-basis efficiency omits the latent heat of the flue "
                                 "water, so condensing appliances can exceed 100 % on it)");
             if (gross > 1.0)
@@ -219,9 +213,9 @@ seasonal_efficiency seasonal_efficiency_hhv(const system_request& request, const
             const double cop = v / btu_per_wh;
             if (cop < 1)
                 throw input_error(value_path, rating + " " + format_number(v) + " Btu/Wh is a seasonal COP of " +
-                                                  fixed(cop, 2) + "; a heat pump cannot be below COP 1 (" + rating +
+                                                  format_fixed(cop, 2) + "; a heat pump cannot be below COP 1 (" + rating +
                                                   " 3.41)");
-            std::string line = rating + " " + format_number(v) + " Btu/Wh / 3.412 Btu/Wh = seasonal COP " + fixed(cop, 2);
+            std::string line = rating + " " + format_number(v) + " Btu/Wh / 3.412 Btu/Wh = seasonal COP " + format_fixed(cop, 2);
             if (request.rating == efficiency_rating::hspf2)
                 line += " (HSPF2 comes from the 2023 test procedure, 10 CFR 430 Appendix M1, with higher external "
                         "static pressure and a colder load line than HSPF; for split systems HSPF2 is about 0.85 x HSPF)";
@@ -239,13 +233,13 @@ seasonal_efficiency seasonal_efficiency_hhv(const system_request& request, const
                           "must be a fraction from 0 to below 1, got " + format_number(request.age_derating));
     out.hhv_basis = out.rated_hhv_basis * (1 - request.age_derating) * (1 - request.distribution_loss);
     if (request.age_derating > 0)
-        out.trace.push_back("age derating " + percent(request.age_derating) + ": x " + fixed(1 - request.age_derating, 3));
+        out.trace.push_back("age derating " + percent(request.age_derating) + ": x " + format_fixed(1 - request.age_derating, 3));
     if (request.distribution_loss > 0)
         out.trace.push_back("distribution loss " + percent(request.distribution_loss) + " (ducts or pipes): x " +
-                            fixed(1 - request.distribution_loss, 3));
+                            format_fixed(1 - request.distribution_loss, 3));
     if (request.age_derating > 0 || request.distribution_loss > 0)
         out.trace.push_back("delivered seasonal efficiency " + (is_heat_pump(request.kind) || !burns_fuel(request.kind)
-                                                                   ? "COP " + fixed(out.hhv_basis, 3)
+                                                                   ? "COP " + format_fixed(out.hhv_basis, 3)
                                                                    : percent(out.hhv_basis)));
     return out;
 }

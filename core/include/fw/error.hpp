@@ -27,6 +27,9 @@ private:
 /// "path: message", or the message alone when the path is empty.
 std::string format_issue(const issue& item);
 
+/// A number with exactly `decimals` digits after the point ("%.*f"), for traces.
+std::string format_fixed(double value, int decimals);
+
 /// Shortest decimal text of a number that reads well in a message (up to 6 significant digits).
 std::string format_number(double value);
 

@@ -48,4 +48,24 @@ nlohmann::json issues_json(const std::vector<issue>& items);
 /// {"errors": [{path, message}], "warnings": []} as text.
 std::string error_response(const std::vector<issue>& errors);
 
+/// Runs an entry point's `body(request, warnings)` on the parsed request text and returns its JSON
+/// with errors[] and warnings[]; input errors and anything unexpected become errors[], never exceptions.
+template <typename Body>
+std::string guarded_entry(const std::string& request_text, Body body) noexcept {
+    try {
+        std::vector<issue> warnings;
+        nlohmann::json out = body(parse_request(request_text), warnings);
+        if (!out.contains("errors")) out["errors"] = nlohmann::json::array();
+        out["warnings"] = issues_json(warnings);
+        require_finite_output(out);
+        return dump_text(out);
+    } catch (const input_error& error) {
+        return error_response({{error.path(), error.message()}});
+    } catch (const std::exception& error) {
+        return error_response({{"", std::string("internal error: ") + error.what()}});
+    } catch (...) {
+        return error_response({{"", "internal error"}});
+    }
+}
+
 }  // namespace fw::json_fields
