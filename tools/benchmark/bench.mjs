@@ -1,7 +1,7 @@
 // WASM-in-Node and page measurements for tools/bench: the heavy scenario in the WASM module,
 // cold page load to the first verdict against a blank page, the gzip size of what the page
 // transfers, and a price edit to the repainted verdict (headless Chromium, playwright-core).
-import { readFile, readdir, stat, mkdtemp, rm, writeFile } from 'node:fs/promises';
+import { readFile, stat, mkdtemp, rm, writeFile } from 'node:fs/promises';
 import { gzipSync } from 'node:zlib';
 import { join, dirname } from 'node:path';
 import { tmpdir } from 'node:os';
@@ -30,14 +30,13 @@ async function wasmHeavy() {
   return median(runs);
 }
 
-/** Sum of gzip sizes of every file the site ships (what a first visit transfers at most). */
-async function transferGzip(dir) {
+/** Sum of the gzip sizes of the files a first visit requested (paths under the site). */
+async function transferGzip(paths) {
   let total = 0;
-  for (const name of await readdir(dir)) {
-    const path = join(dir, name);
-    const info = await stat(path);
-    if (info.isDirectory()) continue;  // data/ is fetched only on demand
-    total += gzipSync(await readFile(path), { level: 9 }).length;
+  for (const path of new Set(paths)) {
+    const file = join(site, decodeURIComponent(path).replace(/^\/+/, '') || 'index.html');
+    const info = await stat(file).catch(() => null);
+    if (info?.isFile()) total += gzipSync(await readFile(file), { level: 9 }).length;
   }
   return total;
 }
@@ -48,6 +47,7 @@ async function pageTimes() {
   const args = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
     '--disable-background-networking', '--disable-component-update', '--disable-sync'];
   const loads = [], blanks = [], edits = [];
+  const requested = [];
   try {
     for (let i = 0; i < Math.max(3, Math.floor(repeats / 2)); i++) {
       const profile = await mkdtemp(join(tmpdir(), 'fw-bench-'));
@@ -58,6 +58,10 @@ async function pageTimes() {
       await page.goto(`${server.url}bench-blank.html`);
       await page.waitForSelector('p');
       blanks.push(performance.now() - t0);
+      if (i === 0) page.on('request', (request) => {
+        const url = new URL(request.url());
+        if (url.origin === new URL(server.url).origin) requested.push(url.pathname.endsWith('/') ? url.pathname + 'index.html' : url.pathname);
+      });
       t0 = performance.now();
       await page.goto(server.url);
       await page.waitForFunction(() => document.querySelector('#verdict-body')?.dataset.state === 'done', null, { timeout: 30000 });
@@ -87,8 +91,10 @@ async function pageTimes() {
     await rm(join(site, 'bench-blank.html'), { force: true });
     await server.close();
   }
-  return { load_ms: median(loads), blank_ms: median(blanks), edit_repaint_ms: edits.length ? median(edits) : null };
+  // Let the service worker finish precaching: its requests count too, once each.
+  return { load_ms: median(loads), blank_ms: median(blanks), edit_repaint_ms: edits.length ? median(edits) : null,
+           transfer_gzip_bytes: await transferGzip(requested) };
 }
 
-const out = { wasm_heavy_ms: await wasmHeavy(), transfer_gzip_bytes: await transferGzip(site), ...(await pageTimes()) };
+const out = { wasm_heavy_ms: await wasmHeavy(), ...(await pageTimes()) };
 process.stdout.write(JSON.stringify(out) + '\n');
