@@ -45,6 +45,21 @@ std::pair<std::string, std::string> split_per(const std::string& text, const std
     return {text.substr(0, slash), text.substr(slash + 1)};
 }
 
+/// "CH4:0.95,N2:0.05" as written in the catalog (trusted text: the catalog tests read every record).
+std::vector<std::pair<std::string, double>> catalog_pairs(const std::string& text) {
+    std::vector<std::pair<std::string, double>> out;
+    std::size_t start = 0;
+    while (start < text.size()) {
+        auto comma = text.find(',', start);
+        if (comma == std::string::npos) comma = text.size();
+        const auto item = text.substr(start, comma - start);
+        const auto colon = item.find(':');
+        out.push_back({item.substr(0, colon), std::stod(item.substr(colon + 1))});
+        start = comma + 1;
+    }
+    return out;
+}
+
 /// LHV/HHV ratio and recomputed HHV of a composition, as data/fuels.json describes it.
 void apply_composition(fuel_record& fuel, const json& composition, std::optional<double> moisture_override) {
     const auto type = composition.at("type").get<std::string>();
@@ -56,36 +71,19 @@ void apply_composition(fuel_record& fuel, const json& composition, std::optional
         properties = analyse_compound(request);
     } else if (type == "mixture") {
         mixture_request request;
-        const auto text = composition.at("components").get<std::string>();
-        std::size_t start = 0;
-        while (start < text.size()) {
-            auto comma = text.find(',', start);
-            if (comma == std::string::npos) comma = text.size();
-            const auto item = text.substr(start, comma - start);
-            const auto colon = item.find(':');
-            request.components.push_back({item.substr(0, colon), std::stod(item.substr(colon + 1))});
-            start = comma + 1;
-        }
+        for (const auto& [name, fraction] : catalog_pairs(composition.at("components").get<std::string>()))
+            request.components.push_back({name, fraction});
         properties = analyse_mixture(request);
         fuel.molar_mass_g_per_mol = properties.molar_mass_g_per_mol;
     } else {
         ultimate_request request;
-        const auto text = composition.at("analysis").get<std::string>();
-        std::size_t start = 0;
-        while (start < text.size()) {
-            auto comma = text.find(',', start);
-            if (comma == std::string::npos) comma = text.size();
-            const auto item = text.substr(start, comma - start);
-            const auto colon = item.find(':');
-            const auto key = item.substr(0, colon);
-            const double value = std::stod(item.substr(colon + 1));
+        for (const auto& [key, value] : catalog_pairs(composition.at("analysis").get<std::string>())) {
             if (key == "C") request.carbon_pct = value;
             else if (key == "H") request.hydrogen_pct = value;
             else if (key == "O") request.oxygen_pct = value;
             else if (key == "N") request.nitrogen_pct = value;
             else if (key == "S") request.sulfur_pct = value;
             else if (key == "ash") request.ash_pct = value;
-            start = comma + 1;
         }
         request.moisture_pct = moisture_override.value_or(composition.value("moisture", 0.0));
         properties = analyse_ultimate(request).as_received;
