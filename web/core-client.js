@@ -4,6 +4,20 @@
 // are rejected and the next call starts a new worker.
 
 const DEFAULT_TIMEOUT_MS = 20_000;
+/** How long a cancelled run may take to answer (its progress callback returns false) before the worker is replaced [ms]. */
+const CANCEL_GRACE_MS = 1500;
+
+/** The error a cancelled call rejects with (`error.cancelled === true`). */
+export class CancelledError extends Error {
+  constructor(message = 'cancelled') {
+    super(message);
+    this.name = 'CancelledError';
+    this.cancelled = true;
+  }
+}
+
+/** True when the page may share memory with its workers (cross-origin isolated), so a run can be told to stop. */
+export const canSignalCancel = () => typeof SharedArrayBuffer === 'function' && globalThis.crossOriginIsolated === true;
 
 export class CoreClient {
   #worker = null;
@@ -19,16 +33,44 @@ export class CoreClient {
    * Calls `fn` of the core with a request object; resolves to the parsed response.
    * `onProgress({done, total})` hears progress of long calls; `timeoutMs` bounds the wait.
    */
-  call(fn, request, { onProgress, timeoutMs = DEFAULT_TIMEOUT_MS } = {}) {
+  call(fn, request, options = {}) {
+    return this.start(fn, request, options).promise;
+  }
+
+  /**
+   * Starts a call that can be cancelled: {promise, cancel()}. cancel() sets the
+   * shared flag the worker's progress callback reads (when the page is
+   * cross-origin isolated) and waits CANCEL_GRACE_MS for the answer, which
+   * then resolves normally (a Monte Carlo result with `cancelled: true`);
+   * without shared memory, or when the worker does not answer in time, the
+   * worker is terminated and the call rejects with a CancelledError.
+   */
+  start(fn, request, { onProgress, timeoutMs = DEFAULT_TIMEOUT_MS } = {}) {
     const worker = this.#ensureWorker();
     const id = this.#nextId++;
-    return new Promise((resolve, reject) => {
+    const flag = canSignalCancel() ? new Int32Array(new SharedArrayBuffer(4)) : null;
+    let entry;
+    const promise = new Promise((resolve, reject) => {
       const timer = setTimeout(() => {
         this.#fail(worker, new Error(`calculation core did not answer within ${Math.round(timeoutMs / 1000)} s; restarted`));
       }, timeoutMs);
-      this.#pending.set(id, { resolve, reject, onProgress, timer });
-      worker.postMessage({ id, fn, request });
+      entry = { resolve, reject, onProgress, timer };
+      this.#pending.set(id, entry);
+      worker.postMessage(flag ? { id, fn, request, cancel: flag } : { id, fn, request });
     });
+    const cancel = () => {
+      if (!this.#pending.has(id)) return;
+      entry.onProgress = undefined;
+      if (flag) {
+        Atomics.store(flag, 0, 1);
+        clearTimeout(entry.timer);
+        entry.timer = setTimeout(() => this.#fail(worker, new CancelledError('cancelled; the calculation did not stop in time, so it was restarted')),
+          CANCEL_GRACE_MS);
+      } else {
+        this.#fail(worker, new CancelledError());
+      }
+    };
+    return { promise, cancel, signalled: Boolean(flag) };
   }
 
   heatingValue(request) { return this.call('heatingValue', request); }
@@ -38,8 +80,23 @@ export class CoreClient {
   catalog() { return this.call('catalog'); }
   /** Degree-days, bins and design temperatures of a climate (the core's climate()). */
   climate(request) { return this.call('climate', request); }
-  /** Evaluates `scenario` once per price of `prices` for the options `options` (indexes); see worker.js. */
-  priceSweep(request, options) { return this.call('priceSweep', request, { timeoutMs: 60_000, ...options }); }
+  /** Where two options cost the same: {scenario, a, b, vary, of, basis}. */
+  breakEven(request, options) { return this.call('breakEven', request, options); }
+  /** Every option's cost over a range of one input: {scenario, vary, of, from, to, points, basis}. */
+  sweep(request, options) { return this.call('sweep', request, { timeoutMs: 60_000, ...options }); }
+  /** The winner's margin for -/+ change on each input: {scenario, basis, change}. */
+  tornado(request, options) { return this.call('tornado', request, { timeoutMs: 60_000, ...options }); }
+  /** Checks a supplier price file's text against today's date (YYYY-MM-DD). */
+  checkPrices(text, today) { return this.call('checkPrices', { text, today }); }
+  /** evaluate with the Monte Carlo's progress; cancellable: {promise, cancel()}. */
+  evaluateWithProgress(scenario, { onProgress, timeoutMs = 180_000 } = {}) {
+    return this.start('evaluateWithProgress', scenario, { onProgress, timeoutMs });
+  }
+
+  /** Stops the worker (and rejects what is pending); the next call starts a new one. */
+  terminate() {
+    if (this.#worker) this.#fail(this.#worker, new CancelledError('stopped'));
+  }
 
   #ensureWorker() {
     if (this.#worker) return this.#worker;

@@ -1,39 +1,47 @@
 // Web Worker (module): loads the WebAssembly core once and answers numbered
-// requests. Protocol (web/README.md): {id, fn, request} -> {id, ok, result}
+// requests. Protocol (web/README.md): {id, fn, request, cancel?} -> {id, ok, result}
 // or {id, ok: false, error}; long calls also post {id, progress: {done, total}}.
 // `result` is the parsed JSON the core returned; input problems arrive as
 // result.errors, not as ok: false.
+//
+// A WASM call runs to its end without giving the worker's event loop a turn, so
+// a "cancel" message could only be read after the run. Cancellation therefore
+// travels in shared memory: `cancel` is an Int32Array over a SharedArrayBuffer
+// (available when the page is cross-origin isolated) that the page sets to 1;
+// the progress callback of evaluateWithProgress reads it and answers false,
+// which stops the Monte Carlo. Without shared memory the page terminates this
+// worker instead (core-client.js).
 import createFuelwrightCore from './fuelwright_core.mjs';
 
+// tools/build-site rewrites the module's two file names to their content-hashed copies.
+const WASM_FILE = 'fuelwright_core.wasm';
+
 const core = createFuelwrightCore({
-  locateFile: (path) => new URL(path, import.meta.url).href,
+  locateFile: (path) => new URL(path === 'fuelwright_core.wasm' ? WASM_FILE : path, import.meta.url).href,
 });
 
 const call = (module, fn, request) => JSON.parse(module[fn](JSON.stringify(request ?? {})));
 
-/**
- * Annual cost against one price: evaluates `scenario` once per entry of `prices`,
- * with price.amount of every option listed in `options` (indexes) set to it.
- * Request {scenario, options: [i…], prices: [p…]}; result {points: [{price, annual_cost: {id: cost}}], errors}.
- * Legitimate because evaluate is linear in price; the core's own sweeps replace it when present.
- */
-function priceSweep(module, { scenario, options = [], prices = [] }, progress) {
-  const points = [];
-  let errors = [];
-  prices.forEach((price, n) => {
-    const doc = structuredClone(scenario);
-    for (const i of options) if (doc.options?.[i]?.price) doc.options[i].price.amount = price;
-    const result = call(module, 'evaluate', doc);
-    if (result.errors?.length) errors = result.errors;
-    const annual = {};
-    for (const option of result.options ?? []) annual[option.id] = option.annual_cost;
-    points.push({ price, annual_cost: annual });
-    progress({ done: n + 1, total: prices.length });
+/** evaluate with progress (fraction 0..1 as {done, total: 1}) and cancellation through `cancel`. */
+function evaluateWithProgress(module, scenario, progress, cancel) {
+  let last = -1;
+  const text = module.evaluateWithProgress(JSON.stringify(scenario ?? {}), (fraction) => {
+    const stop = cancel ? Atomics.load(cancel, 0) !== 0 : false;
+    if (!stop && fraction - last >= 0.01) {
+      last = fraction;
+      progress({ done: fraction, total: 1 });
+    }
+    return !stop;
   });
-  return { points, errors };
+  return JSON.parse(text);
 }
 
-/** Functions that may be called: whether they take a request, and how they run. */
+/** checkPrices(text, today): the supplier price-file validator. Request {text, today}. */
+function checkPrices(module, { text = '', today = '' } = {}) {
+  return JSON.parse(module.checkPrices(String(text), String(today)));
+}
+
+/** Functions that may be called: whether they take a request, or how they run. */
 const EXPORTS = {
   heatingValue: { takesRequest: true },
   convert: { takesRequest: true },
@@ -41,17 +49,21 @@ const EXPORTS = {
   evaluate: { takesRequest: true },
   catalog: { takesRequest: false },
   climate: { takesRequest: true },
-  priceSweep: { composite: priceSweep },
+  breakEven: { takesRequest: true },
+  sweep: { takesRequest: true },
+  tornado: { takesRequest: true },
+  checkPrices: { run: checkPrices },
+  evaluateWithProgress: { run: evaluateWithProgress },
 };
 
 self.addEventListener('message', async (event) => {
-  const { id, fn, request } = event.data ?? {};
+  const { id, fn, request, cancel } = event.data ?? {};
   try {
     const spec = Object.hasOwn(EXPORTS, fn) ? EXPORTS[fn] : null;
     if (!spec) throw new Error(`unknown function: ${String(fn)}`);
     const module = await core;
     let result;
-    if (spec.composite) result = spec.composite(module, request ?? {}, (progress) => self.postMessage({ id, progress }));
+    if (spec.run) result = spec.run(module, request ?? {}, (progress) => self.postMessage({ id, progress }), cancel);
     else result = spec.takesRequest ? call(module, fn, request) : JSON.parse(module[fn]());
     self.postMessage({ id, ok: true, result });
   } catch (error) {
