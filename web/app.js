@@ -6,10 +6,11 @@ import { h } from './dom.js';
 import { bindFields, showFieldErrors } from './fields.js';
 import { createFormat, isCurrency, isLocale } from './format.js';
 import { demoWorkspace } from './demo.js';
+import { isKiosk } from './kiosk-scenario.js';
 import { registerServiceWorker } from './offline.js';
 import { renderQuoteSheet } from './print.js';
 import {
-  HEAT_PUMP_KINDS, blankWorkspace, fromScenario, fuelId, newFuelKey, toScenario, today, uniqueSystemId,
+  HEAT_PUMP_KINDS, blankWorkspace, fromScenario, fuelId, newFuelKey, toScenario, today, uniqueSystemId, withoutUncertainty,
 } from './scenario.js';
 import {
   currentQuoteId, isCurrentRecord, loadPreferences, makeRecord, newId, openQuotes, savePreferences, setCurrentQuoteId,
@@ -22,31 +23,38 @@ import { renderLab } from './views/lab.js';
 import { renderQuotes } from './views/quotes.js';
 import { KIND_NAMES, renderSystems } from './views/systems.js';
 import { openTrace } from './views/trace.js';
-import { bindVerdict, renderVerdict, resultsCsv } from './views/verdict.js';
+import { bindVerdict, rankedOptions, renderVerdict, resultsCsv, showDrawProgress } from './views/verdict.js';
 
 const EVALUATE_DEBOUNCE_MS = 150;
-const SWEEP_DEBOUNCE_MS = 350;
+const ANALYSIS_DEBOUNCE_MS = 350;
+const DRAWS_DEBOUNCE_MS = 1200;
 const SAVE_DEBOUNCE_MS = 400;
-const SWEEP_POINTS = 11;
+const SWEEP_POINTS = 41;
+const TORNADO_CHANGE = 0.2;
 const LOCALES = [['en-US', 'English (US) 1,234.5'], ['en-CA', 'English (Canada)'], ['en-GB', 'English (UK)'], ['fr-CA', 'Français (Canada) 1 234,5'],
   ['de-DE', 'Deutsch 1.234,5'], ['fr-FR', 'Français 1 234,5'], ['nb-NO', 'Norsk 1 234,5'], ['sv-SE', 'Svenska'], ['nl-NL', 'Nederlands'], ['es-ES', 'Español']];
 
 const $ = (selector) => document.querySelector(selector);
+// Three workers, so that nothing slow holds up the verdict: the verdict's own
+// evaluations and small calls; the charts' sweeps, break-even and tornado; the Monte Carlo.
 const core = new CoreClient();
+const charts = new CoreClient();
+const draws = new CoreClient();
 const store = new Store(blankWorkspace());
 const localErrors = new Map();
 const panels = {};
 const prefs = { locale: 'en-US', tab: 'house', ...loadPreferences() };
 if (!isLocale(prefs.locale)) prefs.locale = 'en-US';
 
-const verdict = { result: null, errors: [], sweep: null, by: 'annual', fieldErrorCount: 0, sweepFuel: null };
+const verdict = { result: null, errors: [], analysis: null, mc: { state: 'off' }, by: 'annual', fieldErrorCount: 0, sweepFuel: null };
 const quotes = { records: [], currentId: null, query: '', storageKind: '', undo: null };
 let storage = null;
 let evaluateTimer = 0;
-let sweepTimer = 0;
+let analysisTimer = 0;
+let drawsTimer = 0;
 let saveTimer = 0;
 let generation = 0;
-let sweepGeneration = 0;
+let analysisGeneration = 0;
 let undoTimer = 0;
 let verdictBody = null;
 
@@ -132,7 +140,7 @@ function paintSheet() {
 }
 
 function showErrors() {
-  const errors = verdict.result?.errors ?? [];
+  const errors = [...(verdict.result?.errors ?? []), ...(verdict.mc.errors ?? []).filter((e) => e.path?.startsWith('/uncertainty'))];
   const roots = [panels.house, panels.fuels, panels.systems];
   const { unplaced, counts } = showFieldErrors(roots, errors, store.state, localErrors);
   verdict.errors = unplaced;
@@ -193,28 +201,29 @@ async function evaluate() {
   verdictBody.dataset.state = 'loading';
   if (!ws.systems.length) {
     verdict.result = null;
-    verdict.sweep = null;
+    verdict.analysis = null;
     showErrors();
     paintVerdict();
     paintSheet();
     verdictBody.dataset.state = 'empty';
+    scheduleDraws();
     return;
   }
-  const scenario = toScenario(ws);
-  const slow = ws.uncertainty?.enabled;
-  setProgress({ label: slow ? 'Working out the price draws…' : 'Working out…' });
+  // The verdict never waits for the Monte Carlo: it runs in its own worker (scheduleDraws).
+  const scenario = withoutUncertainty(toScenario(ws));
+  setProgress({ label: 'Working out…' });
   try {
-    const result = await core.evaluate(scenario, { timeoutMs: slow ? 60_000 : 20_000 });
+    const result = await core.evaluate(scenario);
     if (gen !== generation) return;
     verdict.result = result;
-    verdict.sweep = null;
     showErrors();
     paintVerdict();
     paintSheet();
     verdictBody.dataset.state = result.errors?.length ? 'errors' : 'done';
     verdictBody.dataset.generation = String(gen);
     setProgress(null);
-    if (!result.errors?.length) scheduleSweep();
+    if (!result.errors?.length) scheduleAnalyses();
+    scheduleDraws();
   } catch (failure) {
     if (gen !== generation) return;
     verdict.result = null;
@@ -225,9 +234,14 @@ async function evaluate() {
   }
 }
 
-function scheduleSweep() {
-  clearTimeout(sweepTimer);
-  sweepTimer = setTimeout(runSweep, SWEEP_DEBOUNCE_MS);
+// ---------------------------------------------------------------------------
+// Analyses: the core's sweep (cost against one price, with its exact
+// break-even points), breakEven (one statement in plain words) and tornado,
+// in their own worker, debounced after the verdict.
+
+function scheduleAnalyses(delay = ANALYSIS_DEBOUNCE_MS) {
+  clearTimeout(analysisTimer);
+  analysisTimer = setTimeout(runAnalyses, delay);
 }
 
 function defaultSweepFuel(ws, result) {
@@ -238,36 +252,135 @@ function defaultSweepFuel(ws, result) {
   return index >= 0 ? index : 0;
 }
 
-async function runSweep() {
+async function runAnalyses() {
   const ws = store.state;
   const result = verdict.result;
-  if (!result?.options?.length || !ws.fuels.length) return;
+  if (!result?.options?.length || result.errors?.length || !ws.fuels.length) return;
   const gen = generation;
-  const sweepGen = ++sweepGeneration;
+  const run = ++analysisGeneration;
   const fuelIndex = defaultSweepFuel(ws, result);
   const entry = ws.fuels[fuelIndex];
-  const now = Number(entry.price?.amount) || 0;
-  const top = now > 0 ? now * 2 : 1;
-  const prices = Array.from({ length: SWEEP_POINTS }, (_, i) => (top * i) / (SWEEP_POINTS - 1));
-  const options = ws.systems.map((s, i) => (s.fuel_key === entry.key ? i : -1)).filter((i) => i >= 0);
-  if (!options.length) {
-    verdict.sweep = { fuelIndex, points: [], optionIds: [] };
+  const name = fuelName(entry, ctx.catalog);
+  const now = entry?.price?.amount;
+  const users = ws.systems.filter((s) => s.fuel_key === entry?.key).map((s) => s.id);
+  const none = (message) => {
+    verdict.analysis = { state: 'none', fuelIndex, message };
     paintVerdict();
-    return;
-  }
+    verdictBody.dataset.analysis = String(gen);
+  };
+  if (!users.length) return none(`No system burns ${name}: choose another fuel.`);
+  if (!(typeof now === 'number' && now > 0)) return none(`Enter a price for ${name} to see this chart.`);
+  const life = verdict.by === 'life' && result.options.every((o) => Number.isFinite(o.life_cycle_cost));
+  const basis = life ? 'life-cycle' : 'annual';
+  const ranked = rankedOptions(result, life ? 'life' : 'annual').map((o) => o.id);
+  const a = ranked.find((id) => users.includes(id));
+  const b = ranked.find((id) => !users.includes(id));
+  // a fuel id varies every option burning it; an option id only that option (two entries of one fuel)
+  const fid = fuelId(entry);
+  const of = fid && ws.fuels.filter((f) => fuelId(f) === fid).length === 1 ? fid : a;
+  const scenario = withoutUncertainty(toScenario(ws));
+  setProgress({ label: 'Working out the charts…' });
   try {
-    const reply = await core.priceSweep({ scenario: toScenario(ws), options, prices }, {
-      onProgress: (p) => { if (sweepGen === sweepGeneration) setProgress({ ...p, label: 'Working out the price chart…' }); },
-    });
-    if (gen !== generation || sweepGen !== sweepGeneration) return;
-    verdict.sweep = { fuelIndex, points: reply.points, optionIds: options.map((i) => ws.systems[i].id) };
+    const [sweep, breakEven, tornado] = await Promise.all([
+      charts.sweep({ scenario, vary: 'price', of, from: 0, to: 2 * now, points: SWEEP_POINTS, basis }),
+      b ? charts.breakEven({ scenario, a, b, vary: 'price', of, basis }) : null,
+      result.options.length >= 2 ? charts.tornado({ scenario, basis, change: TORNADO_CHANGE }) : null,
+    ]);
+    if (gen !== generation || run !== analysisGeneration) return;
+    verdict.analysis = sweep.errors?.length
+      ? { state: 'error', fuelIndex, message: sweep.errors.map((e) => e.message).join('; ') }
+      : { state: 'done', fuelIndex, fuelName: name, of, basis, sweep, breakEven, pair: { a, b }, tornado };
     paintVerdict();
+    verdictBody.dataset.analysis = String(gen);
     verdictBody.dataset.sweep = String(gen);
   } catch (failure) {
-    console.warn('price chart unavailable:', failure.message);
+    if (run !== analysisGeneration) return;
+    verdict.analysis = { state: 'error', fuelIndex, message: failure.message };
+    paintVerdict();
   } finally {
-    if (sweepGen === sweepGeneration) setProgress(null);
+    if (run === analysisGeneration) setProgress(null);
   }
+}
+
+// ---------------------------------------------------------------------------
+// The price Monte Carlo: evaluateWithProgress in a worker of its own, started
+// when asked or once the entries have settled (debounced apart from the
+// verdict), with progress and Cancel. A run for entries that have changed since
+// is cancelled.
+
+function drawsKey(ws) {
+  return JSON.stringify(toScenario(ws));
+}
+
+function stopDraws() {
+  const run = verdict.mc.run;
+  verdict.mc.run = null;
+  run?.cancel();
+}
+
+function scheduleDraws({ now = false } = {}) {
+  clearTimeout(drawsTimer);
+  const ws = store.state;
+  const mc = verdict.mc;
+  if (!ws.uncertainty?.enabled || !ws.systems.length) {
+    if (mc.run) stopDraws();
+    verdict.mc = { state: 'off' };
+    return;
+  }
+  const key = drawsKey(ws);
+  if (!now && key === mc.key && ['running', 'done', 'cancelled', 'error'].includes(mc.state)) return;
+  if (mc.run) stopDraws();
+  verdict.mc = { ...mc, state: 'waiting', run: null, key: mc.key, stale: Boolean(mc.uncertainty) };
+  updateDrawsPanel();
+  drawsTimer = setTimeout(runDraws, now ? 0 : DRAWS_DEBOUNCE_MS);
+}
+
+function updateDrawsPanel() {
+  if (!verdictBody.querySelector('#uncertainty')) return;
+  paintVerdict();
+}
+
+async function runDraws() {
+  const ws = store.state;
+  if (!ws.uncertainty?.enabled || !ws.systems.length) return;
+  const scenario = toScenario(ws);
+  const key = JSON.stringify(scenario);
+  if (verdict.result?.errors?.length) {
+    verdict.mc = { state: 'error', key, message: 'fix the entries the verdict points at first' };
+    updateDrawsPanel();
+    return;
+  }
+  const run = draws.evaluateWithProgress(scenario, {
+    onProgress: ({ done }) => {
+      if (verdict.mc.run !== run) return;
+      verdict.mc.fraction = done;
+      verdictBody.dataset.drawProgress = String(done);
+      showDrawProgress(verdictBody, ctx, done);
+    },
+  });
+  verdict.mc = { ...verdict.mc, state: 'running', fraction: 0, key, run, errors: [] };
+  verdictBody.dataset.draws = 'running';
+  verdictBody.dataset.drawProgress = '0';
+  paintVerdict();
+  try {
+    const reply = await run.promise;
+    if (verdict.mc.run !== run) return;
+    if (reply.errors?.length) {
+      // shown in the panel and, where they point at a field (draws, seed, a spread), next to it
+      verdict.mc = { state: 'error', key, errors: reply.errors, message: reply.errors.map((e) => (e.path ? `${e.path}: ${e.message}` : e.message)).join('; ') };
+      showErrors();
+    } else {
+      const u = reply.uncertainty;
+      verdict.mc = { state: u?.cancelled ? 'cancelled' : 'done', key, uncertainty: u, analysisYears: reply.economics?.analysis_years,
+        options: (reply.options ?? []).map((o) => ({ id: o.id, label: o.label })) };
+    }
+  } catch (failure) {
+    if (verdict.mc.run !== run) return;
+    verdict.mc = failure.cancelled ? { state: 'cancelled', key } : { state: 'error', key, message: failure.message };
+  }
+  verdictBody.dataset.draws = verdict.mc.state;
+  showErrors();
+  paintVerdict();
 }
 
 // ---------------------------------------------------------------------------
@@ -300,6 +413,9 @@ async function openWorkspace(ws, { id = newId(), save = true } = {}) {
   setCurrentQuoteId(id);
   localErrors.clear();
   verdict.sweepFuel = null;
+  verdict.analysis = null;
+  if (verdict.mc.run) stopDraws();
+  verdict.mc = { state: 'off' };
   store.replace(ws);
   if (save) await saveNow();
   paintQuotes();
@@ -542,7 +658,19 @@ const ACTIONS = {
     ws.demand.bills.push({ start: '', end: '', unit: last?.unit ?? (ws.settings.units === 'us' ? 'therm' : 'kWh') });
   }),
   'remove-bill': (d) => store.mutate((ws) => ws.demand.bills.splice(Number(d.index), 1)),
-  'rank-by': (d) => { verdict.by = d.by; paintVerdict(); },
+  'rank-by': (d) => { verdict.by = d.by; paintVerdict(); scheduleAnalyses(0); },
+  'mc-run': () => scheduleDraws({ now: true }),
+  'mc-cancel': () => {
+    const run = verdict.mc.run;
+    if (!run) return;
+    run.cancel();
+    if (!run.signalled) {
+      verdict.mc = { state: 'cancelled', key: verdict.mc.key };
+      verdictBody.dataset.draws = 'cancelled';
+      paintVerdict();
+      $('#mc-run')?.focus();
+    }
+  },
   'export-csv': () => verdict.result && download(`${fileStem(store.state)}.csv`, 'text/csv', resultsCsv(verdict.result, store.state, verdict.by)),
   'export-json': () => download(`${fileStem(store.state)}.json`, 'application/json', `${JSON.stringify(toScenario(store.state), null, 2)}\n`),
   print: () => { paintSheet(); window.print(); },
@@ -639,8 +767,9 @@ function onChange(event) {
     store.set(`${t.dataset.fuel}/heating_value/unit`, `${energy}/${per}`);
   } else if (action === 'sweep-fuel') {
     verdict.sweepFuel = Number(t.value);
-    verdict.sweep = null;
-    runSweep();
+    verdict.analysis = { state: 'running', fuelIndex: verdict.sweepFuel };
+    paintVerdict();
+    runAnalyses();
   } else if (t.id === 'paper') {
     store.state.settings.paper = t.value === 'a4' ? 'a4' : 'letter';
     applyPaper();
@@ -697,6 +826,11 @@ function wireHeader() {
     store.mutate(() => {}, { reason: 'display' });
   });
   window.addEventListener('beforeprint', paintSheet);
+  // the tabs stick just below the (sticky) top bar, whose height changes with its wrapping
+  const topbar = $('.topbar');
+  const setTopbarHeight = () => document.documentElement.style.setProperty('--topbar-h', `${topbar.offsetHeight}px`);
+  if (typeof ResizeObserver === 'function') new ResizeObserver(setTopbarHeight).observe(topbar);
+  setTopbarHeight();
 }
 
 function onStoreChange(change) {
@@ -766,4 +900,9 @@ async function start() {
   registerServiceWorker();
 }
 
-start();
+// A kiosk (?kiosk=1) runs its own short flow (kiosk.js) instead of the workspace.
+if (isKiosk(new URLSearchParams(location.search))) {
+  import('./kiosk.js').then(({ startKiosk }) => startKiosk(core)).finally(registerServiceWorker);
+} else {
+  start();
+}

@@ -1,6 +1,9 @@
 // Charts as inline SVG built from DOM nodes (no chart library): annual cost
-// (energy and fixed stacked), annual cost against one price with break-even
-// points, heat-pump performance over temperature bins, and uncertainty ranges.
+// (energy and fixed stacked), cost against one price with break-even points,
+// heat-pump performance over temperature bins, bills against degree-days with
+// the fitted line, a tornado of the winner's lead, the probability of being
+// cheapest and uncertainty ranges. Each chart's numbers are also listed as
+// buttons beside it (views/verdict.js), so every value can be tapped.
 import { s } from './dom.js';
 
 export const PALETTE = ['#1f5aa6', '#b35900', '#2c7a3f', '#7b3fa0', '#b3261e', '#00696b', '#6d4c2f', '#3d4a5c'];
@@ -15,7 +18,7 @@ function niceTicks(min, max, count = 5) {
   const mag = 10 ** Math.floor(Math.log10(raw));
   const step = [1, 2, 2.5, 5, 10].map((m) => m * mag).find((st) => st >= raw) ?? raw;
   const ticks = [];
-  for (let v = Math.ceil(min / step) * step; v <= max + step * 1e-9; v += step) ticks.push(Number(v.toPrecision(12)));
+  for (let v = Math.floor(min / step + 1e-9) * step; v <= max + step * 1e-9; v += step) ticks.push(Number(v.toPrecision(12)));
   if (ticks.at(-1) < max) ticks.push(Number((ticks.at(-1) + step).toPrecision(12)));
   return ticks;
 }
@@ -83,7 +86,7 @@ export function priceLines(series, { marks = [], current, formatX, money, xLabel
     svg.append(s('line', { x1: left, x2: width - right, y1: Y(t), y2: Y(t), stroke: GRID }),
       text(left - 6, Y(t) + 4, money(t), { 'text-anchor': 'end', fill: MUTED, 'font-size': 11 }));
   }
-  for (const t of niceTicks(x0, x1, 5)) {
+  for (const t of niceTicks(x0, x1, 5).filter((v) => v >= x0 - 1e-9 && v <= x1 + 1e-9)) {
     svg.append(text(X(t), height - bottom + 16, formatX(t), { 'text-anchor': 'middle', fill: MUTED, 'font-size': 11 }));
   }
   svg.append(text((left + width - right) / 2, height - 12, xLabel, { 'text-anchor': 'middle', fill: MUTED }));
@@ -97,52 +100,169 @@ export function priceLines(series, { marks = [], current, formatX, money, xLabel
       'stroke-dasharray': DASHES[i % DASHES.length] || undefined, dataset: { id: sr.id } }));
   });
   for (const mark of marks) {
-    svg.append(s('circle', { cx: X(mark.x), cy: Y(mark.y), r: 6, fill: '#fff', stroke: INK, 'stroke-width': 2, class: 'break-even' },
-      s('title', { text: mark.label })));
+    svg.append(s('circle', { cx: X(mark.x), cy: Y(mark.y), r: 6, fill: '#fff', stroke: INK, 'stroke-width': 2, class: 'break-even',
+      dataset: { value: String(mark.x), with: mark.with ?? '' } }, s('title', { text: mark.label })));
   }
   return svg;
 }
 
-/** Heat-pump performance over temperature bins: load and capacity [kW], COP, hours. */
+/**
+ * Heat-pump performance over temperature bins: the house's load and the heat
+ * pump's capacity [kW] on the left scale, COP on the right, hours per year as
+ * grey bars; the heat the backup supplies is shaded (between capacity and load,
+ * or the whole load where the heat pump is off).
+ */
 export function binsChart(bins, { tempLabel, toTemp, title, number }) {
   const width = 640;
-  const height = 320;
+  const height = 340;
   const left = 56;
   const right = 56;
-  const top = 26;
+  const top = 44;
   const bottom = 48;
   const ts = bins.map((b) => toTemp(b.t));
   const t0 = Math.min(...ts);
   const t1 = Math.max(...ts);
-  const kw = Math.max(1, ...bins.flatMap((b) => [b.load_kw ?? 0, b.capacity_kw ?? 0]));
+  const kw = Math.max(1, ...bins.flatMap((b) => [b.load_kw ?? 0, b.off ? 0 : b.capacity_kw ?? 0]));
   const kTicks = niceTicks(0, kw, 4);
   const kMax = kTicks.at(-1);
   const hours = Math.max(1, ...bins.map((b) => b.hours ?? 0));
-  const copMax = Math.max(1, ...bins.map((b) => b.cop ?? 0));
+  const copMax = Math.max(1, ...bins.map((b) => b.cop ?? 0)) * 1.1;
   const X = (t) => left + ((t - t0) / (t1 - t0 || 1)) * (width - left - right);
-  const Y = (v, max) => top + (1 - v / max) * (height - top - bottom);
+  const Y = (v, max) => top + (1 - Math.min(v, max) / max) * (height - top - bottom);
   const svg = frame(width, height, title);
-  const barW = Math.max(2, ((width - left - right) / Math.max(1, bins.length)) * 0.7);
+  const step = bins.length > 1 ? Math.abs(X(ts[1]) - X(ts[0])) : (width - left - right);
+  const barW = Math.max(2, step * 0.7);
   bins.forEach((b, i) => {
     svg.append(s('rect', { x: X(ts[i]) - barW / 2, y: Y(b.hours ?? 0, hours), width: barW, height: Y(0, hours) - Y(b.hours ?? 0, hours), fill: '#e3e9f1' }));
+  });
+  // backup heat: where the load is above what the heat pump gives (or it is off)
+  bins.forEach((b, i) => {
+    if (!(b.backup_heat_kwh > 0)) return;
+    const upper = b.load_kw ?? 0;
+    const lower = b.off ? 0 : Math.min(upper, b.capacity_kw ?? 0);
+    svg.append(s('rect', { x: X(ts[i]) - step / 2, y: Y(upper, kMax), width: step, height: Math.max(0, Y(lower, kMax) - Y(upper, kMax)),
+      fill: 'rgb(179 38 30 / 0.22)', class: b.off ? 'backup off' : 'backup', dataset: { t: String(b.t) } }));
   });
   for (const t of kTicks) {
     svg.append(s('line', { x1: left, x2: width - right, y1: Y(t, kMax), y2: Y(t, kMax), stroke: GRID }),
       text(left - 6, Y(t, kMax) + 4, number(t), { 'text-anchor': 'end', fill: MUTED, 'font-size': 11 }));
   }
-  for (const t of niceTicks(t0, t1, 6)) svg.append(text(X(t), height - bottom + 16, number(t), { 'text-anchor': 'middle', fill: MUTED, 'font-size': 11 }));
+  for (const t of niceTicks(t0, t1, 6).filter((v) => v >= t0 - 1e-9 && v <= t1 + 1e-9)) svg.append(text(X(t), height - bottom + 16, number(t), { 'text-anchor': 'middle', fill: MUTED, 'font-size': 11 }));
   svg.append(text((left + width - right) / 2, height - 10, `outdoor temperature (${tempLabel}); grey bars: hours per year`, { 'text-anchor': 'middle', fill: MUTED, 'font-size': 12 }));
-  const line = (key, max, color, dash) => {
-    const d = bins.map((b, i) => `${i ? 'L' : 'M'}${X(ts[i]).toFixed(1)},${Y(b[key] ?? 0, max).toFixed(1)}`).join(' ');
-    svg.append(s('path', { d, fill: 'none', stroke: color, 'stroke-width': 2.5, 'stroke-dasharray': dash || undefined }));
+  const line = (value, max, color, dash, cls) => {
+    const d = bins.map((b, i) => `${i ? 'L' : 'M'}${X(ts[i]).toFixed(1)},${Y(value(b) ?? 0, max).toFixed(1)}`).join(' ');
+    svg.append(s('path', { d, fill: 'none', stroke: color, 'stroke-width': 2.5, 'stroke-dasharray': dash || undefined, class: cls }));
   };
-  line('load_kw', kMax, PALETTE[4], '');
-  line('capacity_kw', kMax, PALETTE[0], '6 3');
-  line('cop', copMax * 1.1, PALETTE[2], '2 3');
-  svg.append(text(left, 16, 'kW: load (solid red), capacity (dashed blue); COP (dotted green, right scale)', { fill: MUTED, 'font-size': 12 }));
-  for (const t of niceTicks(0, copMax * 1.1, 4)) {
-    svg.append(text(width - right + 6, Y(t, copMax * 1.1) + 4, number(t), { fill: PALETTE[2], 'font-size': 11 }));
+  line((b) => b.load_kw, kMax, PALETTE[4], '', 'load');
+  line((b) => (b.off ? 0 : b.capacity_kw), kMax, PALETTE[0], '6 3', 'capacity');
+  line((b) => (b.off ? null : b.cop), copMax, PALETTE[2], '2 3', 'cop');
+  svg.append(text(left, 14, 'kW: load (solid red), heat-pump capacity (dashed blue); COP (dotted green, right scale)', { fill: MUTED, 'font-size': 12 }));
+  svg.append(s('rect', { x: left, y: 22, width: 14, height: 12, fill: 'rgb(179 38 30 / 0.22)' }),
+    text(left + 20, 33, 'heat from the backup', { fill: MUTED, 'font-size': 12 }));
+  for (const t of niceTicks(0, copMax, 4)) {
+    if (t > copMax) continue;
+    svg.append(text(width - right + 6, Y(t, copMax) + 4, number(t), { fill: PALETTE[2], 'font-size': 11 }));
   }
+  return svg;
+}
+
+/**
+ * Bills against the weather: use per day over heating degree-days per day,
+ * one dot per bill, and the fitted line use = base + slope x HDD.
+ */
+export function billsChart(points, { base, slope, xLabel, yLabel, number, title }) {
+  const width = 640;
+  const height = 320;
+  const left = 64;
+  const right = 20;
+  const top = 20;
+  const bottom = 50;
+  const xs = points.map((p) => p.hdd_per_day);
+  const ys = points.map((p) => p.use_per_day);
+  const xTicks = niceTicks(0, Math.max(1, ...xs), 5);
+  const x1 = xTicks.at(-1);
+  const fitTop = base + slope * x1;
+  const yTicks = niceTicks(0, Math.max(1, ...ys, Number.isFinite(fitTop) ? fitTop : 0), 5);
+  const y1 = yTicks.at(-1);
+  const X = (v) => left + (v / (x1 || 1)) * (width - left - right);
+  const Y = (v) => top + (1 - v / (y1 || 1)) * (height - top - bottom);
+  const svg = frame(width, height, title);
+  for (const t of yTicks) {
+    svg.append(s('line', { x1: left, x2: width - right, y1: Y(t), y2: Y(t), stroke: GRID }),
+      text(left - 6, Y(t) + 4, number(t), { 'text-anchor': 'end', fill: MUTED, 'font-size': 11 }));
+  }
+  for (const t of xTicks) svg.append(text(X(t), height - bottom + 16, number(t), { 'text-anchor': 'middle', fill: MUTED, 'font-size': 11 }));
+  svg.append(text((left + width - right) / 2, height - 12, xLabel, { 'text-anchor': 'middle', fill: MUTED }));
+  svg.append(text(left, 12, yLabel, { fill: MUTED, 'font-size': 12 }));
+  if (Number.isFinite(base) && Number.isFinite(slope)) {
+    svg.append(s('line', { x1: X(0), y1: Y(base), x2: X(x1), y2: Y(fitTop), stroke: PALETTE[0], 'stroke-width': 2.5, class: 'fit' }));
+  }
+  points.forEach((p, i) => {
+    svg.append(s('circle', { cx: X(p.hdd_per_day), cy: Y(p.use_per_day), r: 5.5, fill: PALETTE[1], stroke: '#fff', 'stroke-width': 1.5,
+      class: 'bill', dataset: { i: String(i) } }, s('title', { text: `${number(p.hdd_per_day)} degree-days a day: ${number(p.use_per_day)} a day` })));
+  });
+  return svg;
+}
+
+/**
+ * Tornado: how the winner's lead over the runner-up moves when one input goes
+ * down or up (rows [{label, low, high}] as margins, sorted by swing); `margin` is today's lead.
+ */
+export function tornadoChart(rows, { margin, money, title, lowLabel = '−', highLabel = '+' }) {
+  const width = 640;
+  const labelW = 250;
+  const rowH = 30;
+  const top = 30;
+  const height = top + rows.length * rowH + 56;
+  const values = rows.flatMap((r) => [r.low, r.high]).concat([margin, 0]);
+  const ticks = niceTicks(Math.min(...values), Math.max(...values), 4);
+  const lo = ticks[0];
+  const hi = ticks.at(-1);
+  const X = (v) => labelW + ((v - lo) / (hi - lo || 1)) * (width - labelW - 20);
+  const svg = frame(width, height, title);
+  for (const t of ticks) {
+    svg.append(s('line', { x1: X(t), x2: X(t), y1: top - 6, y2: height - 50, stroke: GRID }),
+      text(X(t), height - 34, money(t), { 'text-anchor': 'middle', fill: MUTED, 'font-size': 11 }));
+  }
+  svg.append(s('line', { x1: X(0), x2: X(0), y1: top - 10, y2: height - 50, stroke: INK, 'stroke-width': 1.5 }),
+    s('line', { x1: X(margin), x2: X(margin), y1: top - 10, y2: height - 50, stroke: MUTED, 'stroke-dasharray': '4 3' }),
+    text(X(margin) + 4, top - 14, 'lead today', { fill: MUTED, 'font-size': 11 }),
+    text(X(0) - 4, top - 14, 'tie', { fill: INK, 'font-size': 11, 'text-anchor': 'end' }));
+  rows.forEach((r, i) => {
+    const y = top + i * rowH;
+    const label = r.label.length > 34 ? `${r.label.slice(0, 33)}…` : r.label;
+    svg.append(text(labelW - 8, y + rowH / 2 + 4, label, { 'text-anchor': 'end', 'font-size': 12 }));
+    const bar = (value, color, name) => {
+      const a = Math.min(X(margin), X(value));
+      const w = Math.abs(X(value) - X(margin));
+      svg.append(s('rect', { x: a, y: y + 5, width: Math.max(1, w), height: rowH - 10, fill: color, class: `tornado-${name}`, dataset: { value: String(value) } }));
+    };
+    bar(r.low, '#9fb8d9', 'low');
+    bar(r.high, PALETTE[1], 'high');
+  });
+  const ly = height - 16;
+  svg.append(s('rect', { x: labelW, y: ly - 10, width: 12, height: 12, fill: '#9fb8d9' }), text(labelW + 16, ly, lowLabel, { 'font-size': 11, fill: MUTED }),
+    s('rect', { x: labelW + 150, y: ly - 10, width: 12, height: 12, fill: PALETTE[1] }), text(labelW + 166, ly, highLabel, { 'font-size': 11, fill: MUTED }));
+  return svg;
+}
+
+/** Probability of being cheapest, one bar per option: rows [{label, p}] with p in 0..1. */
+export function probabilityBars(rows, { percent, title }) {
+  const width = 640;
+  const labelW = 250;
+  const rowH = 30;
+  const height = 12 + rows.length * rowH + 12;
+  const X = (p) => labelW + p * (width - labelW - 70);
+  const svg = frame(width, height, title);
+  rows.forEach((r, i) => {
+    const y = 12 + i * rowH;
+    const label = r.label.length > 34 ? `${r.label.slice(0, 33)}…` : r.label;
+    svg.append(text(labelW - 8, y + rowH / 2 + 4, label, { 'text-anchor': 'end', 'font-size': 12 }),
+      s('rect', { x: labelW, y: y + 5, width: X(1) - labelW, height: rowH - 10, fill: '#eef1f5' }),
+      s('rect', { x: labelW, y: y + 5, width: Math.max(0, X(r.p) - labelW), height: rowH - 10, fill: PALETTE[i % PALETTE.length], class: 'p-cheapest',
+        dataset: { value: String(r.p) } }),
+      text(X(1) + 8, y + rowH / 2 + 4, percent(r.p), { 'font-size': 12, 'font-weight': 600 }));
+  });
   return svg;
 }
 

@@ -71,7 +71,7 @@ export function blankWorkspace({ units = 'us', currency = 'USD' } = {}) {
     fuels: [],
     systems: [],
     economics: { enabled: false, analysis_years: 15, discount_rate: 0.05, escalation_default: 0.02, basis: 'real' },
-    uncertainty: { enabled: false, draws: 2000, seed: 1 },
+    uncertainty: { enabled: false, draws: 2000, seed: 1, form: 'lognormal' },
   };
 }
 
@@ -192,6 +192,15 @@ function systemOf(sys) {
   return out;
 }
 
+function tiersOf(tiers) {
+  return tiers.map((t) => {
+    const tier = { from: t.from };
+    if (isNumber(t.to)) tier.to = t.to;
+    tier.amount = t.amount;
+    return tier;
+  });
+}
+
 function fixedChargeOf(charge) {
   const out = {};
   put(out, 'label', isText(charge.label) ? charge.label : undefined);
@@ -246,6 +255,7 @@ export function toScenario(ws) {
       option.fuel = typeof entry.fuel === 'string' ? entry.fuel : customFuelOf(entry.fuel);
       option.price = { amount: entry.price?.amount, per: entry.price?.per };
       if (!isNumber(option.price.amount)) delete option.price.amount;
+      if (Array.isArray(entry.price?.tiers) && entry.price.tiers.length) option.price.tiers = tiersOf(entry.price.tiers);
       const charges = (entry.fixed_charges ?? []).map(fixedChargeOf).filter((c) => 'amount_per_month' in c || 'amount_per_year' in c);
       if (charges.length) option.fixed_charges = charges;
       if (isNumber(entry.heating_value?.value)) {
@@ -283,6 +293,7 @@ export function toScenario(ws) {
       if (id && isNumber(entry.escalation) && !(id in escalation)) escalation[id] = entry.escalation;
     }
     if (Object.keys(escalation).length) economics.escalation = escalation;
+    if (isNumber(e.maintenance_escalation)) economics.maintenance_escalation = e.maintenance_escalation;
     put(economics, 'basis', e.basis);
     doc.economics = economics;
   }
@@ -291,7 +302,9 @@ export function toScenario(ws) {
     const uncertainty = {};
     if (isNumber(u.draws)) uncertainty.draws = u.draws;
     if (isNumber(u.seed)) uncertainty.seed = u.seed;
+    put(uncertainty, 'form', u.form === 'triangular' || u.form === 'lognormal' ? u.form : undefined);
     const spread = {};
+    if (isNumber(u.spread_default)) spread.default = u.spread_default;
     for (const entry of ws.fuels) {
       const id = fuelId(entry);
       if (id && isNumber(entry.spread) && !(id in spread)) spread[id] = entry.spread;
@@ -300,6 +313,13 @@ export function toScenario(ws) {
     doc.uncertainty = uncertainty;
   }
   return doc;
+}
+
+/** The scenario without its Monte Carlo (what the verdict, the charts and the break-even analyses evaluate). */
+export function withoutUncertainty(doc) {
+  if (!doc || !('uncertainty' in doc)) return doc;
+  const { uncertainty, ...rest } = doc;
+  return rest;
 }
 
 /**
@@ -453,10 +473,11 @@ export function fromScenario(doc) {
       enabled: true,
       analysis_years: e.analysis_years,
       discount_rate: e.discount_rate,
-      escalation_default: e.escalation?.default,
+      escalation_default: isNumber(e.escalation) ? e.escalation : e.escalation?.default,
       basis: e.basis ?? 'real',
     };
-    for (const [id, rate] of Object.entries(e.escalation ?? {})) {
+    if (e.maintenance_escalation !== undefined) ws.economics.maintenance_escalation = e.maintenance_escalation;
+    for (const [id, rate] of Object.entries(e.escalation && typeof e.escalation === 'object' ? e.escalation : {})) {
       if (id === 'default') continue;
       for (const entry of ws.fuels) if (fuelId(entry) === id) entry.escalation = rate;
     }
@@ -467,8 +488,11 @@ export function fromScenario(doc) {
   }
   if (doc.uncertainty && typeof doc.uncertainty === 'object') {
     const u = doc.uncertainty;
-    ws.uncertainty = { enabled: true, draws: u.draws, seed: u.seed };
-    for (const [id, spread] of Object.entries(u.spread ?? {})) {
+    ws.uncertainty = { enabled: true, draws: u.draws, seed: u.seed, form: u.form };
+    if (isNumber(u.spread)) ws.uncertainty.spread_default = u.spread;
+    else if (isNumber(u.spread?.default)) ws.uncertainty.spread_default = u.spread.default;
+    for (const [id, spread] of Object.entries(u.spread && typeof u.spread === 'object' ? u.spread : {})) {
+      if (id === 'default') continue;
       for (const entry of ws.fuels) if (fuelId(entry) === id) entry.spread = spread;
     }
   }

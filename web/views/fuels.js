@@ -135,7 +135,11 @@ function fuelCard(ctx, ws, entry, index) {
       hint: 'Above or below the general rise set under Systems.' }));
   }
   if (ws.uncertainty?.enabled) {
-    extras.push(numberField(ctx, { label: 'Price uncertainty (±, one standard deviation)', path: `${base}/spread`, value: entry.spread, scale: 100, unit: '%' }));
+    const triangular = ws.uncertainty.form === 'triangular';
+    extras.push(numberField(ctx, { label: triangular ? 'Price may vary by (±, at most)' : 'Price may vary by (±, one standard deviation)',
+      path: `${base}/spread`, value: entry.spread, scale: 100, unit: '%',
+      placeholder: formatSpread(ws.uncertainty.spread_default ?? 0.2),
+      hint: triangular ? 'Half-width of a triangular spread around today\'s price.' : 'Standard deviation of the logarithm of the price (lognormal, median today\'s price).' }));
   }
   if (extras.length) nodes.push(h('div', { class: 'grid two' }, extras));
   nodes.push(h('div', { class: 'card-actions' },
@@ -144,6 +148,8 @@ function fuelCard(ctx, ws, entry, index) {
       text: 'Remove this fuel' })));
   return h('article', { class: 'card fuel-card', dataset: { fuelKey: entry.key, field: base } }, nodes);
 }
+
+const formatSpread = (fraction) => String(Math.round(fraction * 1000) / 10);
 
 /** Renders the fuels panel. */
 export function renderFuels(container, ctx) {
@@ -167,8 +173,12 @@ export function renderFuels(container, ctx) {
   const uncertainty = h('fieldset', { class: 'group' }, h('legend', { text: 'Price uncertainty' }),
     checkField(ctx, { label: 'Show how sure the ranking is when prices vary', path: '/uncertainty/enabled', checked: u.enabled, structural: true }),
     u.enabled ? h('div', { class: 'grid two' },
-      numberField(ctx, { label: 'Random draws', path: '/uncertainty/draws', value: u.draws }),
-      numberField(ctx, { label: 'Seed', path: '/uncertainty/seed', value: u.seed })) : null);
+      numberField(ctx, { label: 'Random draws', path: '/uncertainty/draws', value: u.draws, hint: '100 to 200 000; more draws, steadier answers.' }),
+      numberField(ctx, { label: 'Seed', path: '/uncertainty/seed', value: u.seed, hint: 'The same seed gives the same draws.' }),
+      selectField(ctx, { label: 'Shape of the price spread', path: '/uncertainty/form', value: u.form ?? 'lognormal', structural: true,
+        choices: [['lognormal', 'lognormal (median today\'s price)'], ['triangular', 'triangular (± a fixed share)']] }),
+      numberField(ctx, { label: 'Spread of fuels without their own', path: '/uncertainty/spread_default', value: u.spread_default, scale: 100, unit: '%',
+        placeholder: '20', hint: 'Each fuel\'s own spread is set on its card; the core assumes 20 % when none is given.' })) : null);
   container.replaceChildren(h('div', { class: 'cards' }, cards), add, emissions, uncertainty,
     h('div', { id: 'lab-slot' }));
   ctx.renderLab?.(container.querySelector('#lab-slot'));

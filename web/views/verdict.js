@@ -1,8 +1,12 @@
-// Panel 4, the verdict: options ranked by annual cost (or life-cycle cost),
-// cost per useful unit, CO2e, payback and NPV when the core gives them, the
-// charts and the cautions. Every number is a button that opens its trace.
+// Panel 4, the verdict: options ranked by annual cost (or by the core's
+// life-cycle ranking), cost per useful unit, CO2e; with costs over the years,
+// payback, NPV, levelized cost of heat and CO2e avoided against the existing
+// system; the cost-against-price chart from the core's sweep with its exact
+// break-even points and a plain-words statement from breakEven; the tornado;
+// heat-pump bins; the bills fit; the price Monte Carlo with its progress; the
+// cautions. Every number is a button that opens its trace.
 import { h } from '../dom.js';
-import { binsChart, costBars, priceLines, rangeChart } from '../charts.js';
+import { billsChart, binsChart, costBars, priceLines, probabilityBars, rangeChart, tornadoChart } from '../charts.js';
 import { ENERGY_KWH, UA_W_PER_K, co2In, convertTemperature, unitLabel } from '../units.js';
 import { fuelName } from './fuels.js';
 import { openTrace } from './trace.js';
@@ -22,33 +26,54 @@ export function displayValues(option, ws) {
     fuel_quantity: option.fuel_quantity?.value,
     co2e: co2In(option.co2e_kg, ws.settings.units),
     lcoh: isNum(option.lcoh_per_kwh) ? option.lcoh_per_kwh * perUnit : undefined,
+    co2e_saved_t: isNum(option.co2e_saved_kg_life) ? option.co2e_saved_kg_life / 1000 : undefined,
   };
 }
 
-function numButton(option, key, value, text, label) {
-  return h('button', { type: 'button', class: 'num', dataset: { option: option.id, key, ...(isNum(value) ? { value: String(value) } : {}) },
+function numButton(option, key, value, text, label, extra = {}) {
+  return h('button', { type: 'button', class: 'num', dataset: { option: option.id, key, ...(isNum(value) ? { value: String(value) } : {}), ...extra },
     'aria-label': `${label}: ${text}. Show how it was worked out.`, text });
 }
 
-function showOptionTrace(option, ctx) {
-  const lines = [];
-  if (isNum(option.seasonal_cop)) lines.push(`seasonal COP ${ctx.format.number(option.seasonal_cop, 3)}`);
-  openTrace({ title: option.label ?? option.id, subtitle: `${option.fuel_name ?? option.fuel}`, trace: [...(option.trace ?? []), ...lines], sources: option.sources ?? [] });
+/** A button for a value that is not an option's: `trace` names what its dialog shows. */
+function traceButton(trace, value, text, label, extra = {}) {
+  return h('button', { type: 'button', class: 'num', dataset: { trace, ...(isNum(value) ? { value: String(value) } : {}), ...extra },
+    'aria-label': `${label}: ${text}. Show how it was worked out.`, text });
 }
 
-/** Rows of the ranked table, in rank order by `by` ('annual' or 'life'). */
+const ECONOMIC_LABELS = {
+  net_installed_cost: 'Net installed cost', annual_saving: 'Saving a year', simple_payback_years: 'Simple payback',
+  discounted_payback_years: 'Discounted payback', npv: 'Net present value of switching', life_cycle_cost: 'Life-cycle cost',
+  lcoh: 'Levelized cost of heat', co2e_saved_t: 'CO2e avoided over the period', cost_per_tonne_co2e_avoided: 'Cost per tonne of CO2e avoided',
+};
+
+function showOptionTrace(option, ctx, key) {
+  const lines = [];
+  if (isNum(option.seasonal_cop)) lines.push(`seasonal COP ${ctx.format.number(option.seasonal_cop, 3)}`);
+  const extra = [];
+  const reason = key === 'simple_payback_years' ? option.simple_payback_reason : key === 'discounted_payback_years' ? option.discounted_payback_reason : null;
+  if (reason) extra.push(h('p', { class: 'lead', id: 'trace-reason', text: `${ECONOMIC_LABELS[key]}: ${reason}.` }));
+  openTrace({ title: option.label ?? option.id, subtitle: `${option.fuel_name ?? option.fuel}`, trace: [...(option.trace ?? []), ...lines],
+    sources: option.sources ?? [], extra });
+}
+
+const hasLifeCycle = (result) => (result?.options ?? []).length > 0 && result.options.every((o) => isNum(o.life_cycle_cost));
+
+/** Rows of the ranked table, in rank order by `by` ('annual', or 'life' for the core's life-cycle ranking). */
 export function rankedOptions(result, by) {
   const byId = new Map((result.options ?? []).map((o) => [o.id, o]));
-  let list = (result.ranking ?? []).map((r) => byId.get(r.id)).filter(Boolean);
+  const ranking = by === 'life' && Array.isArray(result.ranking_life_cycle) && result.ranking_life_cycle.length
+    ? result.ranking_life_cycle : result.ranking ?? [];
+  let list = ranking.map((r) => byId.get(r.id)).filter(Boolean);
   if (!list.length) list = [...byId.values()];
-  if (by === 'life' && list.every((o) => isNum(o.life_cycle_cost))) list = [...list].sort((a, b) => a.life_cycle_cost - b.life_cycle_cost);
+  if (by === 'life' && !result.ranking_life_cycle && list.every((o) => isNum(o.life_cycle_cost))) {
+    list = [...list].sort((a, b) => a.life_cycle_cost - b.life_cycle_cost);
+  }
   return list;
 }
 
-function payback(option, format) {
-  if (isNum(option.simple_payback_years)) return `${format.number(option.simple_payback_years, 3)} years`;
-  if (option.simple_payback_reason) return option.simple_payback_reason;
-  return '—';
+function years(value, format) {
+  return `${format.number(value, 3)} years`;
 }
 
 function table(result, ws, ctx, by) {
@@ -56,9 +81,9 @@ function table(result, ws, ctx, by) {
   const energyUnit = unitLabel(ws.settings.energy_unit);
   const massUnit = ws.settings.units === 'us' ? 'lb' : 'kg';
   const list = rankedOptions(result, by);
-  const econ = list.some((o) => 'npv' in o || 'life_cycle_cost' in o || 'simple_payback_years' in o);
+  const econ = hasLifeCycle(result);
   const head = ['#', 'Option', 'Per year', `Per ${energyUnit} of heat`, 'Fuel used', `CO2e ${massUnit}/yr`];
-  if (econ) head.push('Payback', 'NPV', 'Life-cycle cost');
+  if (econ) head.push('Life-cycle cost');
   const rows = list.map((option, i) => {
     const v = displayValues(option, ws);
     const hp = isNum(option.seasonal_cop)
@@ -68,7 +93,7 @@ function table(result, ws, ctx, by) {
       h('th', { scope: 'row', class: 'opt' }, h('span', { class: 'swatch', dataset: { i: String(i % 8) } }),
         h('span', { class: 'name', text: option.label ?? option.id }),
         h('span', { class: 'sub', text: option.fuel_name ?? option.fuel }), hp,
-        option.existing ? h('span', { class: 'badge existing', text: 'existing' }) : null),
+        option.id === result.economics?.baseline || option.existing ? h('span', { class: 'badge existing', text: 'existing' }) : null),
       h('td', {}, numButton(option, 'annual_cost', v.annual_cost, format.money(v.annual_cost), 'Annual cost'),
         h('span', { class: 'sub', text: `${format.money(v.energy_cost)} energy + ${format.money(v.fixed_cost)} fixed` })),
       h('td', {}, numButton(option, 'cost_per_useful', v.cost_per_useful, format.price(v.cost_per_useful), `Cost per ${energyUnit} of useful heat`)),
@@ -76,18 +101,63 @@ function table(result, ws, ctx, by) {
         `${format.number(v.fuel_quantity)} ${unitLabel(option.fuel_quantity?.unit ?? '')}`, 'Fuel used per year')),
       h('td', {}, numButton(option, 'co2e', v.co2e, format.number(v.co2e, 3), `CO2e ${massUnit} per year`)),
     ];
-    if (econ) {
-      cells.push(
-        h('td', {}, numButton(option, 'simple_payback_years', option.simple_payback_years, payback(option, format), 'Simple payback')),
-        h('td', {}, numButton(option, 'npv', option.npv, isNum(option.npv) ? format.money(option.npv) : '—', 'Net present value')),
-        h('td', {}, numButton(option, 'life_cycle_cost', option.life_cycle_cost, isNum(option.life_cycle_cost) ? format.money(option.life_cycle_cost) : '—', 'Life-cycle cost')));
-    }
+    if (econ) cells.push(h('td', {}, numButton(option, 'life_cycle_cost', option.life_cycle_cost, format.money(option.life_cycle_cost), 'Life-cycle cost')));
     return h('tr', { dataset: { option: option.id, rank: String(i + 1) } }, cells);
   });
   return h('div', { class: 'table-wrap' }, h('table', { id: 'verdict-table', class: 'ranked' },
-    h('caption', { class: 'visually-hidden', text: 'Options ranked by cost' }),
+    h('caption', { class: 'visually-hidden', text: by === 'life' ? 'Options ranked by life-cycle cost' : 'Options ranked by cost per year' }),
     h('thead', {}, h('tr', {}, head.map((t) => h('th', { scope: 'col', text: t })))),
     h('tbody', {}, rows)));
+}
+
+/** Switching economics against the existing system: one row per option in life-cycle order. */
+function economicsSection(result, ws, ctx) {
+  if (!hasLifeCycle(result)) return null;
+  const { format } = ctx;
+  const energyUnit = unitLabel(ws.settings.energy_unit);
+  const e = result.economics ?? {};
+  const baseline = (result.options ?? []).find((o) => o.id === e.baseline);
+  const n = e.analysis_years;
+  const cell = (option, key, value, text, sub) => h('td', {}, numButton(option, key, value, text, ECONOMIC_LABELS[key]),
+    sub ? h('span', { class: 'sub reason', text: sub }) : null);
+  const paybackCell = (option, key) => {
+    const value = option[key];
+    if (isNum(value)) return cell(option, key, value, years(value, format));
+    if (option.id === e.baseline) return cell(option, key, undefined, '—');
+    // the full reason is in the trace; the table says it in a few words
+    const short = !(option.annual_saving > 0) ? 'no saving a year' : isNum(n) ? `not within ${n} years` : option[key.replace('_years', '_reason')];
+    return cell(option, key, undefined, '—', short);
+  };
+  const money = (v) => (isNum(v) ? format.money(v) : '—');
+  const rows = rankedOptions(result, 'life').map((option, i) => {
+    const v = displayValues(option, ws);
+    return h('tr', { dataset: { option: option.id, rank: String(i + 1) } },
+      h('td', { class: 'rank', text: String(i + 1) }),
+      h('th', { scope: 'row', class: 'opt' }, h('span', { class: 'name', text: option.label ?? option.id }),
+        option.id === e.baseline ? h('span', { class: 'badge existing', text: 'existing' }) : null),
+      cell(option, 'net_installed_cost', option.net_installed_cost, money(option.net_installed_cost)),
+      cell(option, 'annual_saving', option.annual_saving, money(option.annual_saving)),
+      paybackCell(option, 'simple_payback_years'),
+      paybackCell(option, 'discounted_payback_years'),
+      cell(option, 'npv', option.npv, money(option.npv)),
+      cell(option, 'life_cycle_cost', option.life_cycle_cost, money(option.life_cycle_cost)),
+      cell(option, 'lcoh', v.lcoh, isNum(v.lcoh) ? format.price(v.lcoh) : '—'),
+      cell(option, 'co2e_saved_t', v.co2e_saved_t, isNum(v.co2e_saved_t) ? format.number(v.co2e_saved_t, 3) : '—'),
+      cell(option, 'cost_per_tonne_co2e_avoided', option.cost_per_tonne_co2e_avoided, money(option.cost_per_tonne_co2e_avoided)));
+  });
+  const head = ['#', 'Option', 'Net installed cost', 'Saving a year', 'Simple payback', 'Discounted payback', 'NPV of switching',
+    `Life-cycle cost${isNum(n) ? ` (${n} years)` : ''}`, `Cost of heat per ${energyUnit} over the years`, 'CO2e avoided (t)', 'Cost per tonne CO2e avoided'];
+  const basis = e.basis === 'nominal' ? 'future (nominal) money' : 'today\'s (real) money';
+  const intro = baseline
+    ? `Against the existing ${baseline.label ?? baseline.id}, over ${n ?? '—'} years at ${isNum(e.discount_rate) ? format.percent(e.discount_rate, 1) : '—'} a year, in ${basis}.`
+    : `Over ${n ?? '—'} years at ${isNum(e.discount_rate) ? format.percent(e.discount_rate, 1) : '—'} a year, in ${basis}. Mark the system in the house now as existing to see savings and payback.`;
+  return h('section', { class: 'chart-card', id: 'economics' }, h('h3', { text: 'Costs over the years' }),
+    h('p', { class: 'hint', text: intro }),
+    h('div', { class: 'table-wrap' }, h('table', { id: 'economics-table', class: 'ranked economics' },
+      h('caption', { class: 'visually-hidden', text: 'Switching economics, ranked by life-cycle cost' }),
+      h('thead', {}, h('tr', {}, head.map((t) => h('th', { scope: 'col', text: t })))),
+      h('tbody', {}, rows))),
+    e.convention ? h('p', { class: 'hint', text: `Convention: ${e.convention}.` }) : null);
 }
 
 function headline(result, ws, ctx, by) {
@@ -97,9 +167,18 @@ function headline(result, ws, ctx, by) {
   const best = list[0];
   const greenest = [...list].sort((a, b) => a.co2e_kg - b.co2e_kg)[0];
   const massUnit = ws.settings.units === 'us' ? 'lb' : 'kg';
-  const lines = [h('p', { class: 'big' }, by === 'life' ? 'Lowest cost over the years: ' : 'Cheapest to run: ',
+  const n = result.economics?.analysis_years;
+  const lines = [h('p', { class: 'big' }, by === 'life' ? `Lowest cost over ${n ?? 'the'} years: ` : 'Cheapest to run: ',
     h('strong', { id: 'best-option', text: best.label ?? best.id }), ' — ',
     h('span', { id: 'best-cost', text: by === 'life' ? format.money(best.life_cycle_cost) : `${format.money(best.annual_cost)} a year` }))];
+  const baseline = result.economics?.baseline;
+  if (baseline && best.id !== baseline && isNum(best.annual_saving)) {
+    const base = list.find((o) => o.id === baseline);
+    const pay = isNum(best.simple_payback_years) ? `, paying back in ${years(best.simple_payback_years, format)}` : '';
+    lines.push(h('p', { id: 'switch-line' }, best.annual_saving >= 0
+      ? `Against the existing ${base?.label ?? baseline} it saves ${format.money(best.annual_saving)} a year${pay}.`
+      : `It costs ${format.money(-best.annual_saving)} a year more to run than the existing ${base?.label ?? baseline}.`));
+  }
   if (greenest && greenest.id !== best.id) {
     lines.push(h('p', {}, 'Lowest emissions: ', h('strong', { text: greenest.label ?? greenest.id }),
       ` (${format.number(co2In(greenest.co2e_kg, ws.settings.units), 3)} ${massUnit} CO2e a year)`));
@@ -142,92 +221,207 @@ function climateSummary(result, ws, ctx) {
     h('button', { type: 'button', class: 'quiet', dataset: { action: 'climate-trace' }, text: 'How the climate and heat need were worked out' }));
 }
 
-/** Break-even points between options using the swept fuel and the others. */
-export function breakEvens(sweep, result, ws, catalog) {
-  const labels = new Map((result.options ?? []).map((o) => [o.id, o.label ?? o.id]));
-  const marks = [];
-  const swept = new Set(sweep.optionIds);
-  const ids = Object.keys(sweep.points[0]?.annual_cost ?? {});
-  for (const a of ids.filter((id) => swept.has(id))) {
-    for (const b of ids.filter((id) => !swept.has(id))) {
-      for (let k = 1; k < sweep.points.length; k++) {
-        const p0 = sweep.points[k - 1];
-        const p1 = sweep.points[k];
-        const d0 = p0.annual_cost[a] - p0.annual_cost[b];
-        const d1 = p1.annual_cost[a] - p1.annual_cost[b];
-        if (d0 === 0 || d0 * d1 < 0) {
-          const f = d0 === 0 ? 0 : d0 / (d0 - d1);
-          const x = p0.price + f * (p1.price - p0.price);
-          const y = p0.annual_cost[a] + f * (p1.annual_cost[a] - p0.annual_cost[a]);
-          marks.push({ a, b, x, y, label: `${labels.get(a)} and ${labels.get(b)} cost the same at this price` });
-          break;
-        }
-      }
+/** Where the cost line of option `id` is at price `x` (linear between the sweep's points). */
+function costAt(sweep, id, x) {
+  const series = sweep.series.find((sr) => sr.id === id);
+  if (!series) return undefined;
+  const xs = sweep.x;
+  for (let k = 1; k < xs.length; k++) {
+    if (x <= xs[k] || k === xs.length - 1) {
+      const f = (x - xs[k - 1]) / (xs[k] - xs[k - 1] || 1);
+      return series.cost[k - 1] + f * (series.cost[k] - series.cost[k - 1]);
     }
   }
-  return marks;
+  return series.cost[0];
 }
 
-function sweepSection(result, ws, ctx, sweep) {
+/** Break-even marks of a core sweep: [{x, y, with, label}] (x exact from the core). */
+export function sweepMarks(sweep, labels) {
+  return (sweep.break_even ?? []).filter((b) => isNum(b.value)).map((b) => ({
+    x: b.value, y: costAt(sweep, b.with, b.value), with: b.with,
+    label: `${labels.get(sweep.of) ?? sweep.of} and ${labels.get(b.with) ?? b.with} cost the same at this price`,
+  }));
+}
+
+function sweepSection(result, ws, ctx, analysis) {
   const { format } = ctx;
-  const choices = ws.fuels.map((f, i) => h('option', { value: String(i), text: fuelName(f, ctx.catalog), selected: sweep && sweep.fuelIndex === i }));
+  const fuelIndex = analysis?.fuelIndex;
+  const choices = ws.fuels.map((f, i) => h('option', { value: String(i), text: fuelName(f, ctx.catalog), selected: fuelIndex === i }));
   const control = h('div', { class: 'field inline' }, h('label', { for: 'sweep-fuel', text: 'Vary the price of' }),
     h('select', { id: 'sweep-fuel', dataset: { action: 'sweep-fuel' } }, choices));
   const slot = h('div', { class: 'chart-slot', id: 'chart-sweep' });
   const notes = h('ul', { class: 'break-evens', id: 'break-evens' });
-  if (sweep?.points?.length) {
-    const entry = ws.fuels[sweep.fuelIndex];
+  const parts = [h('h3', { text: 'If this price changes' }), control, slot];
+  const sweep = analysis?.sweep;
+  if (analysis?.state === 'error') {
+    slot.append(h('p', { class: 'status', text: `The price chart could not be worked out: ${analysis.message}` }));
+  } else if (sweep?.series?.length && sweep.x?.length) {
+    const entry = ws.fuels[fuelIndex];
     const per = unitLabel(entry?.price?.per ?? '');
     const labels = new Map((result.options ?? []).map((o) => [o.id, o.label ?? o.id]));
-    const order = (result.options ?? []).map((o) => o.id);
-    const series = order.map((id) => ({ id, label: labels.get(id), swept: sweep.optionIds.includes(id),
-      points: sweep.points.map((p) => [p.price, p.annual_cost[id]]) }));
-    const marks = breakEvens(sweep, result, ws, ctx.catalog);
-    slot.append(priceLines(series, { marks, current: entry?.price?.amount, money: format.money, formatX: format.price,
-      xLabel: `price of ${fuelName(entry, ctx.catalog)} (${ws.settings.currency} per ${per})`, title: 'Annual cost against one price' }));
-    const legend = h('ul', { class: 'legend' }, series.map((sr, i) => h('li', {}, h('span', { class: 'swatch line', dataset: { i: String(i % 8) } }), sr.label)));
-    slot.append(legend);
+    const swept = new Set(ws.systems.filter((s) => s.fuel_key === entry?.key).map((s) => s.id));
+    const series = sweep.series.map((sr) => ({ id: sr.id, label: sr.label ?? labels.get(sr.id), swept: swept.has(sr.id),
+      points: sweep.x.map((x, k) => [x, sr.cost[k]]) }));
+    const marks = sweepMarks(sweep, labels);
+    const life = sweep.basis === 'life-cycle';
+    slot.append(priceLines(series, { marks, current: sweep.current, money: format.money, formatX: format.price,
+      xLabel: `price of ${fuelName(entry, ctx.catalog)} (${ws.settings.currency} per ${per})`,
+      title: life ? 'Life-cycle cost against one price' : 'Annual cost against one price' }));
+    slot.append(h('ul', { class: 'legend' }, series.map((sr, i) => h('li', {}, h('span', { class: 'swatch line', dataset: { i: String(i % 8) } }), sr.label))));
+    const what = life ? 'over the years' : 'a year';
     for (const m of marks) {
-      notes.append(h('li', { dataset: { a: m.a, b: m.b, price: String(m.x) } },
-        `${labels.get(m.a)} costs the same as ${labels.get(m.b)} at ${format.price(m.x)} per ${per} (${format.money(m.y)} a year).`));
+      notes.append(h('li', { dataset: { with: m.with, value: String(m.x) } },
+        traceButton('sweep', m.x, `${format.price(m.x)} per ${per}`, 'Break-even price', { with: m.with }),
+        ` ${labels.get(sweep.of) ?? sweep.of} costs the same as ${labels.get(m.with) ?? m.with} (${format.money(m.y)} ${what}).`));
     }
     if (!marks.length) notes.append(h('li', { text: 'No break-even point between 0 and twice today\'s price.' }));
+    parts.push(notes);
+    const be = analysis.breakEven;
+    if (be && !(be.errors ?? []).length) {
+      parts.push(h('p', { class: 'statement', id: 'break-even-statement', dataset: { a: analysis.pair?.a ?? '', b: analysis.pair?.b ?? '',
+        ...(isNum(be.break_even?.value) ? { value: String(be.break_even.value) } : {}) } },
+      be.break_even ? `${be.statement}.` : be.reason ?? be.statement ?? ''));
+    }
+    parts.push(h('button', { type: 'button', class: 'quiet', dataset: { trace: 'sweep-all' }, text: 'How this chart was worked out' }));
+  } else if (analysis?.state === 'none') {
+    slot.append(h('p', { class: 'status', text: analysis.message }));
   } else {
     slot.append(h('p', { class: 'status', text: 'Working out…' }));
   }
-  return h('section', { class: 'chart-card' }, h('h3', { text: 'If this price changes' }), control, slot, notes);
+  return h('section', { class: 'chart-card', id: 'sweep' }, parts);
 }
+
+function tornadoSection(result, ctx, analysis) {
+  const t = analysis?.tornado;
+  if (t?.errors?.length) {
+    return h('section', { class: 'chart-card', id: 'chart-tornado' }, h('h3', { text: 'What could change the answer' }),
+      h('p', { class: 'status', id: 'tornado-unavailable', text: `Not available for these entries: ${t.errors.map((e) => e.message).join('; ')}.` }));
+  }
+  if (!t || !Array.isArray(t.inputs) || !t.inputs.length || !isNum(t.margin)) return null;
+  const { format } = ctx;
+  const labels = new Map((result.options ?? []).map((o) => [o.id, o.label ?? o.id]));
+  const rows = t.inputs.slice(0, 8).map((input) => ({ label: input.input, low: input.margin_low, high: input.margin_high }));
+  const pct = format.percent(t.change ?? 0.2);
+  const life = t.basis === 'life-cycle';
+  const winner = labels.get(t.winner) ?? t.winner;
+  const runner = labels.get(t.runner_up) ?? t.runner_up;
+  return h('section', { class: 'chart-card', id: 'chart-tornado' },
+    h('h3', { text: 'What could change the answer' }),
+    h('p', { class: 'hint', text: `${winner} leads ${runner} by ${format.money(t.margin)}${life ? ' over the years' : ' a year'}. `
+      + `Each bar shows the lead with one input ${pct} lower (light) or higher (dark); a bar past the tie line means the order changes.` }),
+    tornadoChart(rows, { margin: t.margin, money: format.money, title: `Lead of ${winner} over ${runner} for ±${pct} on each input`,
+      lowLabel: `${pct} lower`, highLabel: `${pct} higher` }),
+    h('ul', { class: 'tornado-list', id: 'tornado-list' }, t.inputs.slice(0, 8).map((input, i) => h('li', {},
+      h('span', { text: `${input.input}: ` }),
+      traceButton('tornado', input.margin_low, format.money(input.margin_low), `Lead with ${input.input} ${pct} lower`, { index: String(i), side: 'low' }),
+      ' to ',
+      traceButton('tornado', input.margin_high, format.money(input.margin_high), `Lead with ${input.input} ${pct} higher`, { index: String(i), side: 'high' })))));
+}
+
+/** The bins worth drawing: an hour or more a year, and a load to meet. */
+const heatingBins = (bins) => bins.filter((b) => (b.hours ?? 0) >= 1 && (b.load_kw ?? 0) > 0);
 
 function binsSection(result, ws, ctx) {
   const hp = (result.options ?? []).filter((o) => Array.isArray(o.bins) && o.bins.length);
   if (!hp.length) return null;
   const want = ws.settings.units === 'us' ? 'degF' : 'degC';
   const from = result.climate?.unit ?? ws.climate.unit ?? want;
-  return hp.map((o) => h('section', { class: 'chart-card', id: `bins-${o.id}` },
-    h('h3', { text: `${o.label ?? o.id}: performance by outdoor temperature` }),
-    binsChart(o.bins, { tempLabel: unitLabel(want), toTemp: (t) => convertTemperature(t, from, want), number: (v) => ctx.format.number(v, 3),
-      title: `Heat pump ${o.label ?? o.id} over temperature bins` }),
-    h('p', { class: 'hint', text: [
-      isNum(o.seasonal_cop) ? `Seasonal COP ${ctx.format.number(o.seasonal_cop, 3)}.` : '',
-      isNum(o.backup_share) ? `Backup supplies ${ctx.format.percent(o.backup_share)} of the heat.` : '',
-      isNum(o.hours_below_balance_point) ? `${ctx.format.number(o.hours_below_balance_point)} hours a year below the balance point.` : '',
-      o.changeover !== undefined && o.changeover !== null
-        ? `Changeover: ${typeof o.changeover === 'object' ? `${ctx.format.number(o.changeover.value, 3)} ${unitLabel(o.changeover.unit ?? '')}` : o.changeover}.` : '',
-    ].filter(Boolean).join(' ') })));
+  return hp.map((o) => {
+    const bins = heatingBins(o.bins);
+    const backupName = o.backup_option ? (result.options.find((x) => x.id === o.backup_option)?.label ?? o.backup_option) : 'resistance strips';
+    return h('section', { class: 'chart-card bins', id: `bins-${o.id}` },
+      h('h3', { text: `${o.label ?? o.id}: performance by outdoor temperature` }),
+      binsChart(bins.length ? bins : o.bins, { tempLabel: unitLabel(want), toTemp: (t) => convertTemperature(t, from, want), number: (v) => ctx.format.number(v, 3),
+        title: `Heat pump ${o.label ?? o.id} over temperature bins` }),
+      h('p', { class: 'hint' },
+        isNum(o.seasonal_cop) ? ['Seasonal COP ', traceButton('bins', o.seasonal_cop, ctx.format.number(o.seasonal_cop, 3), 'Seasonal COP', { option: o.id }), '. '] : null,
+        isNum(o.backup_share) ? `The backup (${backupName}) supplies ${ctx.format.percent(o.backup_share, 1)} of the heat. ` : '',
+        isNum(o.hours_below_balance_point) ? `${ctx.format.number(o.hours_below_balance_point)} hours a year below the balance point. ` : '',
+        o.changeover && typeof o.changeover === 'object' && isNum(o.changeover.value)
+          ? `Changeover to the backup below ${ctx.format.number(convertTemperature(o.changeover.value, o.changeover.unit ?? from, want), 3)} ${unitLabel(want)}. ` : '',
+        Array.isArray(o.bin_cop_range) ? `COP from ${ctx.format.number(o.bin_cop_range[0], 3)} to ${ctx.format.number(o.bin_cop_range[1], 3)} over the bins.` : ''),
+      h('button', { type: 'button', class: 'quiet', dataset: { trace: 'bins', option: o.id }, text: 'Bin by bin' }));
+  });
 }
 
-function uncertaintySection(result, ctx) {
-  const u = result.uncertainty;
-  if (!u || !Array.isArray(u.options) || !u.options.length) return null;
-  const labels = new Map((result.options ?? []).map((o) => [o.id, o.label ?? o.id]));
-  const rows = u.options.filter((o) => isNum(o.annual_cost_p10)).map((o) => ({ label: labels.get(o.id) ?? o.id,
-    p10: o.annual_cost_p10, p50: o.annual_cost_p50, p90: o.annual_cost_p90,
-    note: isNum(o.p_cheapest) ? `cheapest ${ctx.format.percent(o.p_cheapest)}` : '' }));
-  if (!rows.length) return null;
-  return h('section', { class: 'chart-card', id: 'chart-uncertainty' },
-    h('h3', { text: 'How sure is the ranking?' }),
-    rangeChart(rows, { money: ctx.format.money, title: 'Annual cost, 10th to 90th percentile' }),
-    h('p', { class: 'hint', text: `Bars span the 10th to 90th percentile of ${ctx.format.number(u.draws)} random price draws; the tick is the median.` }));
+function billsSection(result, ctx) {
+  const fit = result.demand?.fit;
+  if (!fit || !Array.isArray(fit.points) || !fit.points.length) return null;
+  const { format } = ctx;
+  const tUnit = unitLabel(fit.temperature_unit ?? 'degC');
+  const unit = unitLabel(fit.unit ?? 'kWh');
+  return h('section', { class: 'chart-card', id: 'chart-bills' },
+    h('h3', { text: 'Past bills against the weather' }),
+    billsChart(fit.points, { base: fit.base_per_day, slope: fit.slope, number: (v) => format.number(v, 3),
+      xLabel: `heating degree-days per day (${tUnit}·d, base ${isNum(fit.tau) ? format.number(fit.tau, 3) : '—'} ${tUnit})`,
+      yLabel: `${unit} a day`, title: 'Use per day against heating degree-days per day, with the fitted line' }),
+    h('p', { class: 'hint' }, 'Each dot is a bill; the line is use = ',
+      traceButton('bills', fit.base_per_day, `${format.number(fit.base_per_day, 4)} ${unit}`, 'Base use per day'), ' a day + ',
+      traceButton('bills', fit.slope, `${format.number(fit.slope, 4)} ${unit}`, 'Use per degree-day'), ` per ${tUnit}·d`,
+      isNum(fit.r2) ? ` (R² ${format.fixed(fit.r2, 3)})` : '',
+      isNum(result.demand.uncertainty_kwh) ? `; the heat need is known to about ±${format.number(result.demand.uncertainty_kwh, 3)} kWh.` : '.'));
+}
+
+/** The price Monte Carlo: inputs live on the Fuels panel; here its progress, Cancel, and results. */
+function uncertaintySection(result, ws, ctx, mc) {
+  if (!ws.uncertainty?.enabled) return null;
+  const { format } = ctx;
+  const running = mc?.state === 'running';
+  const u = mc?.uncertainty;
+  const status = {
+    running: `Drawing prices… ${format.percent(mc?.fraction ?? 0)}`,
+    waiting: 'Waiting for the entries to settle…',
+    cancelled: 'Cancelled.',
+    error: `The price draws could not be worked out: ${mc?.message ?? ''}`,
+    done: u ? `${format.number(u.draws)} draws${u.cancelled ? ' (stopped early)' : ''}, seed ${u.seed}, ${u.form ?? 'lognormal'} spread${mc?.stale ? ' — for the earlier entries' : ''}.` : '',
+  }[mc?.state ?? 'waiting'] ?? '';
+  const nodes = [h('h3', { text: 'How sure is the ranking?' }),
+    h('p', { class: 'status', id: 'mc-status', role: 'status', text: status }),
+    h('div', { class: 'mc-progress', id: 'mc-progress-box', hidden: !running },
+      h('div', { class: 'bar', id: 'mc-progress', role: 'progressbar', 'aria-label': 'Price draws', 'aria-valuemin': '0', 'aria-valuemax': '100',
+        'aria-valuenow': String(Math.round(100 * (mc?.fraction ?? 0))), style: undefined })),
+    h('div', { class: 'card-actions start' },
+      running ? h('button', { type: 'button', class: 'secondary', id: 'mc-cancel', dataset: { action: 'mc-cancel' }, text: 'Cancel' })
+        : h('button', { type: 'button', class: 'secondary', id: 'mc-run', dataset: { action: 'mc-run' }, text: u ? 'Draw the prices again' : 'Draw the prices' }))];
+  if (u && Array.isArray(u.options) && u.options.length && mc.state !== 'running') {
+    const labels = new Map((result.options ?? mc.options ?? []).map((o) => [o.id, o.label ?? o.id]));
+    const n = mc.analysisYears;
+    const lifeWord = isNum(n) ? `over ${n} years` : 'over the years';
+    const ordered = [...u.options].sort((a, b) => (b.p_cheapest ?? 0) - (a.p_cheapest ?? 0));
+    nodes.push(h('h4', { text: `Chance of the lowest cost ${lifeWord}` }),
+      probabilityBars(ordered.map((o) => ({ label: labels.get(o.id) ?? o.id, p: o.p_cheapest ?? 0 })), { percent: (p) => format.percent(p, 1),
+        title: 'Probability of being cheapest' }));
+    const annualRows = u.options.filter((o) => isNum(o.annual_cost_p10)).map((o) => ({ label: labels.get(o.id) ?? o.id,
+      p10: o.annual_cost_p10, p50: o.annual_cost_p50, p90: o.annual_cost_p90 }));
+    if (annualRows.length) nodes.push(h('h4', { text: 'Cost a year, 10th to 90th percentile' }), rangeChart(annualRows, { money: format.money, title: 'Annual cost, 10th to 90th percentile' }));
+    const lifeRows = u.options.filter((o) => isNum(o.life_cycle_cost_p10)).map((o) => ({ label: labels.get(o.id) ?? o.id,
+      p10: o.life_cycle_cost_p10, p50: o.life_cycle_cost_p50, p90: o.life_cycle_cost_p90 }));
+    if (lifeRows.length) nodes.push(h('h4', { text: `Life-cycle cost ${lifeWord}, 10th to 90th percentile` }), rangeChart(lifeRows, { money: format.money, title: 'Life-cycle cost, 10th to 90th percentile' }));
+    const cell = (o, key, text) => h('td', {}, traceButton('uncertainty', o[key], text, `${key.replaceAll('_', ' ')} of ${labels.get(o.id) ?? o.id}`, { option: o.id, key }));
+    nodes.push(h('div', { class: 'table-wrap' }, h('table', { id: 'uncertainty-table', class: 'ranked' },
+      h('thead', {}, h('tr', {}, ['Option', 'Chance cheapest', 'Per year P10', 'P50', 'P90', 'Life-cycle P10', 'P50', 'P90'].map((t) => h('th', { scope: 'col', text: t })))),
+      h('tbody', {}, ordered.map((o) => h('tr', { dataset: { option: o.id } },
+        h('th', { scope: 'row', class: 'opt', text: labels.get(o.id) ?? o.id }),
+        cell(o, 'p_cheapest', format.percent(o.p_cheapest, 1)),
+        cell(o, 'annual_cost_p10', format.money(o.annual_cost_p10)), cell(o, 'annual_cost_p50', format.money(o.annual_cost_p50)),
+        cell(o, 'annual_cost_p90', format.money(o.annual_cost_p90)),
+        cell(o, 'life_cycle_cost_p10', format.money(o.life_cycle_cost_p10)), cell(o, 'life_cycle_cost_p50', format.money(o.life_cycle_cost_p50)),
+        cell(o, 'life_cycle_cost_p90', format.money(o.life_cycle_cost_p90))))))));
+    nodes.push(h('p', { class: 'hint', text: 'Each draw multiplies every fuel\'s price by a random factor held over the years; the bars span the 10th to 90th percentile and the tick is the median.' }));
+  }
+  return h('section', { class: 'chart-card', id: 'uncertainty', dataset: { state: mc?.state ?? 'waiting' } }, nodes);
+}
+
+/** Updates the Monte Carlo's progress bar in place (no repaint of the verdict). */
+export function showDrawProgress(container, ctx, fraction) {
+  const bar = container.querySelector('#mc-progress');
+  if (!bar) return;
+  container.querySelector('#mc-progress-box').hidden = false;
+  const pct = Math.round(100 * fraction);
+  bar.style.width = `${pct}%`;
+  bar.setAttribute('aria-valuenow', String(pct));
+  const status = container.querySelector('#mc-status');
+  if (status) status.textContent = `Drawing prices… ${ctx.format.percent(fraction)}`;
 }
 
 function cautionsBlock(result) {
@@ -237,8 +431,12 @@ function cautionsBlock(result) {
     h('ul', {}, cautions.map((c) => h('li', { text: c }))));
 }
 
-/** Renders the verdict from the latest result. `state` = {result, errors (unplaced), sweep, by}. */
-export function renderVerdict(container, ctx, state) {
+/**
+ * Renders the verdict from the latest result. `state` = {result, errors (unplaced), fieldErrorCount, by,
+ * analysis: {state, fuelIndex, sweep, breakEven, pair, tornado}, mc: {state, fraction, uncertainty, stale}}.
+ * `options.kiosk` leaves out the file and print actions.
+ */
+export function renderVerdict(container, ctx, state, { kiosk = false } = {}) {
   const ws = ctx.store.state;
   const { result } = state;
   const parts = [];
@@ -256,7 +454,7 @@ export function renderVerdict(container, ctx, state) {
     container.replaceChildren(...parts, h('p', { class: 'status', text: 'Add a fuel and a system to see the verdict.' }));
     return;
   }
-  const hasLife = (result.options ?? []).length > 0 && (result.options ?? []).every((o) => isNum(o.life_cycle_cost));
+  const hasLife = hasLifeCycle(result);
   const by = hasLife ? state.by : 'annual';
   if ((result.options ?? []).length && !(result.errors ?? []).length) {
     parts.push(headline(result, ws, ctx, by));
@@ -268,12 +466,15 @@ export function renderVerdict(container, ctx, state) {
     parts.push(table(result, ws, ctx, by));
     parts.push(h('p', { class: 'hint', text: 'Tap any number to see how it was worked out and which data it used.' }));
     parts.push(climateSummary(result, ws, ctx));
+    parts.push(economicsSection(result, ws, ctx));
     const costRows = rankedOptions(result, by).map((o) => ({ id: o.id, label: o.label ?? o.id, energy: o.energy_cost, fixed: o.fixed_cost }));
     parts.push(h('section', { class: 'chart-card', id: 'chart-cost' }, h('h3', { text: 'Cost per year' }),
       costBars(costRows, { money: ctx.format.money, title: 'Annual cost: energy and fixed charges' })));
-    if (ws.fuels.length) parts.push(sweepSection(result, ws, ctx, state.sweep));
+    if (ws.fuels.length && !kiosk) parts.push(sweepSection(result, ws, ctx, state.analysis));
+    if (!kiosk) parts.push(tornadoSection(result, ctx, state.analysis));
     parts.push(binsSection(result, ws, ctx));
-    parts.push(uncertaintySection(result, ctx));
+    parts.push(billsSection(result, ctx));
+    if (!kiosk) parts.push(uncertaintySection(result, ws, ctx, state.mc));
   }
   const warnings = result.warnings ?? [];
   if (warnings.length) {
@@ -281,19 +482,114 @@ export function renderVerdict(container, ctx, state) {
       h('ul', {}, warnings.map((w) => h('li', { text: w.message ?? String(w) })))));
   }
   parts.push(cautionsBlock(result));
-  const paper = ws.settings.paper === 'a4' ? 'a4' : 'letter';
-  parts.push(h('div', { class: 'card-actions' },
-    h('button', { type: 'button', class: 'secondary', dataset: { action: 'export-csv' }, text: 'Download the table (CSV)' }),
-    h('label', { class: 'pref', for: 'paper' }, h('span', { text: 'Paper' }),
-      h('select', { id: 'paper' }, h('option', { value: 'letter', text: 'US Letter', selected: paper === 'letter' }),
-        h('option', { value: 'a4', text: 'A4', selected: paper === 'a4' }))),
-    h('button', { type: 'button', class: 'primary', dataset: { action: 'print' }, text: 'Print the quote sheet' })));
+  if (!kiosk) {
+    const paper = ws.settings.paper === 'a4' ? 'a4' : 'letter';
+    parts.push(h('div', { class: 'card-actions' },
+      h('button', { type: 'button', class: 'secondary', dataset: { action: 'export-csv' }, text: 'Download the table (CSV)' }),
+      h('label', { class: 'pref', for: 'paper' }, h('span', { text: 'Paper' }),
+        h('select', { id: 'paper' }, h('option', { value: 'letter', text: 'US Letter', selected: paper === 'letter' }),
+          h('option', { value: 'a4', text: 'A4', selected: paper === 'a4' }))),
+      h('button', { type: 'button', class: 'primary', dataset: { action: 'print' }, text: 'Print the quote sheet' })));
+  }
   container.replaceChildren(...parts.filter(Boolean).flat());
+  const bar = container.querySelector('#mc-progress');
+  if (bar) bar.style.width = `${Math.round(100 * (state.mc?.fraction ?? 0))}%`;
+}
+
+// ---------------------------------------------------------------------------
+// Traces of the values that are not one option's
+
+function sweepTrace(state, ctx, button) {
+  const { result, analysis } = state;
+  const sweep = analysis?.sweep;
+  if (!sweep) return;
+  const { format } = ctx;
+  const labels = new Map((result?.options ?? []).map((o) => [o.id, o.label ?? o.id]));
+  const lines = [
+    `the core's sweep: ${sweep.x.length} evaluations of the scenario with the price of ${analysis.fuelName} from ${format.price(sweep.x[0])} to ${format.price(sweep.x.at(-1))} ${sweep.unit} (today ${format.price(sweep.current)})`,
+    `cost basis: ${sweep.basis === 'life-cycle' ? 'life-cycle cost over the analysis period' : 'cost per year'}; every option that burns ${analysis.fuelName} follows the price`,
+    ...(sweep.break_even ?? []).map((b) => `break-even with ${labels.get(b.with) ?? b.with}: ${format.number(b.value, 6)} ${sweep.unit} (solved by the core, not read off the chart)`),
+  ];
+  if (analysis.breakEven) {
+    const be = analysis.breakEven;
+    lines.push(`breakEven ${labels.get(analysis.pair?.a) ?? analysis.pair?.a} against ${labels.get(analysis.pair?.b) ?? analysis.pair?.b}: ${be.break_even
+      ? `${format.number(be.break_even.value, 6)} ${be.break_even.unit}` : be.reason ?? 'no break-even'}`);
+    for (const [id, cost] of Object.entries(be.costs_at_break_even ?? {})) lines.push(`  cost of ${labels.get(id) ?? id} there: ${format.money(cost)}`);
+  }
+  const focus = button?.dataset.with;
+  openTrace({ title: focus ? `Break-even with ${labels.get(focus) ?? focus}` : 'Cost against the price', subtitle: analysis.breakEven?.statement, trace: lines });
+}
+
+function tornadoTrace(state, ctx, button) {
+  const t = state.analysis?.tornado;
+  const input = t?.inputs?.[Number(button.dataset.index)];
+  if (!input) return;
+  const { format } = ctx;
+  const labels = new Map((state.result?.options ?? []).map((o) => [o.id, o.label ?? o.id]));
+  const pct = format.percent(t.change ?? 0.2);
+  openTrace({ title: input.input, subtitle: `${labels.get(t.winner) ?? t.winner} against ${labels.get(t.runner_up) ?? t.runner_up}`, trace: [
+    `lead today: ${format.money(t.margin)} (${t.basis === 'life-cycle' ? 'life-cycle cost' : 'cost per year'})`,
+    `${pct} lower: the lead becomes ${format.money(input.margin_low)} (the winner's cost changes by ${format.money(input.change_low)})`,
+    `${pct} higher: the lead becomes ${format.money(input.margin_high)} (the winner's cost changes by ${format.money(input.change_high)})`,
+    `swing ${format.money(input.swing)}; ${Math.sign(input.margin_low) !== Math.sign(input.margin_high) || input.margin_low < 0 || input.margin_high < 0
+      ? 'within this range the order of the two changes' : 'the order of the two holds over this range'}`,
+    'each end is a new evaluation of the scenario by the core with this one input changed',
+  ] });
+}
+
+function binsTrace(state, ctx, button) {
+  const option = state.result?.options?.find((o) => o.id === button.dataset.option);
+  if (!option) return;
+  const { format } = ctx;
+  const ws = ctx.store.state;
+  const want = ws.settings.units === 'us' ? 'degF' : 'degC';
+  const from = state.result.climate?.unit ?? ws.climate.unit ?? want;
+  const bins = heatingBins(option.bins ?? []);
+  const rows = bins.map((b) => h('tr', {}, [convertTemperature(b.t, from, want), b.hours, b.load_kw, b.off ? null : b.capacity_kw, b.off ? null : b.cop,
+    b.heat_pump_heat_kwh, b.backup_heat_kwh, b.heat_pump_kwh].map((v) => h('td', { text: isNum(v) ? format.number(v, 3) : '—' })),
+  h('td', { text: [b.off ? 'off' : '', b.extrapolated ? 'extrapolated' : ''].filter(Boolean).join(', ') })));
+  const tableNode = h('div', { class: 'table-wrap' }, h('table', { class: 'ranked bins-table', id: 'bins-table' },
+    h('thead', {}, h('tr', {}, [`Outdoor ${unitLabel(want)}`, 'Hours', 'Load kW', 'Capacity kW', 'COP', 'Heat pump heat kWh', 'Backup heat kWh', 'Electricity kWh', '']
+      .map((t) => h('th', { scope: 'col', text: t })))),
+    h('tbody', {}, rows)));
+  openTrace({ title: `${option.label ?? option.id}: bin by bin`, subtitle: option.fuel_name, trace: option.trace ?? [], sources: option.sources ?? [], extra: [tableNode] });
+}
+
+function uncertaintyTrace(state, ctx, button) {
+  const u = state.mc?.uncertainty;
+  const o = u?.options?.find((x) => x.id === button.dataset.option);
+  if (!o) return;
+  const { format } = ctx;
+  const label = state.result?.options?.find((x) => x.id === o.id)?.label ?? o.id;
+  openTrace({ title: label, subtitle: `${format.number(u.draws)} price draws, seed ${u.seed}, ${u.form}`, trace: [
+    ...(u.notes ?? []),
+    `chance of the lowest life-cycle cost: ${format.percent(o.p_cheapest, 2)} of the draws`,
+    `cost a year: P10 ${format.money(o.annual_cost_p10)}, P50 ${format.money(o.annual_cost_p50)}, P90 ${format.money(o.annual_cost_p90)}`,
+    `life-cycle cost: P10 ${format.money(o.life_cycle_cost_p10)}, P50 ${format.money(o.life_cycle_cost_p50)}, P90 ${format.money(o.life_cycle_cost_p90)}; `
+      + `mean ${format.money(o.life_cycle_cost_mean)} ± ${format.money(o.life_cycle_cost_standard_error)} (standard error)`,
+    ...(u.cancelled ? ['the run was stopped early: these figures come from the draws made until then'] : []),
+  ] });
+}
+
+function billsTrace(state) {
+  const d = state.result?.demand;
+  openTrace({ title: 'Heat need from past bills', trace: [...(d?.trace ?? []), ...(state.result?.climate?.trace ?? [])] });
 }
 
 /** Handles taps on the verdict's numbers. */
 export function bindVerdict(container, ctx, getState) {
   container.addEventListener('click', (event) => {
+    const traced = event.target.closest('button[data-trace]');
+    if (traced) {
+      const state = getState();
+      const kind = traced.dataset.trace;
+      if (kind === 'sweep' || kind === 'sweep-all') sweepTrace(state, ctx, kind === 'sweep' ? traced : null);
+      else if (kind === 'tornado') tornadoTrace(state, ctx, traced);
+      else if (kind === 'bins') binsTrace(state, ctx, traced);
+      else if (kind === 'uncertainty') uncertaintyTrace(state, ctx, traced);
+      else if (kind === 'bills') billsTrace(state);
+      return;
+    }
     const button = event.target.closest('button.num');
     if (!button) return;
     const { result } = getState();
@@ -302,7 +598,7 @@ export function bindVerdict(container, ctx, getState) {
       return;
     }
     const option = result?.options?.find((o) => o.id === button.dataset.option);
-    if (option) showOptionTrace(option, ctx);
+    if (option) showOptionTrace(option, ctx, button.dataset.key);
   });
 }
 
@@ -312,10 +608,14 @@ export function resultsCsv(result, ws, by = 'annual') {
   const massUnit = ws.settings.units === 'us' ? 'lb' : 'kg';
   const currency = ws.settings.currency;
   const list = rankedOptions(result, by);
-  const econ = list.some((o) => 'npv' in o || 'life_cycle_cost' in o);
+  const econ = hasLifeCycle(result);
   const header = ['rank', 'id', 'option', 'fuel', `annual cost (${currency})`, `energy cost (${currency})`, `fixed cost (${currency})`,
     `cost per useful ${energyUnit} (${currency})`, 'fuel used', 'fuel unit', `CO2e (${massUnit}/year)`];
-  if (econ) header.push('simple payback (years)', `NPV (${currency})`, `life-cycle cost (${currency})`);
+  if (econ) {
+    header.push(`net installed cost (${currency})`, `annual saving (${currency})`, 'simple payback (years)', 'discounted payback (years)',
+      `NPV (${currency})`, `life-cycle cost (${currency})`, `levelized cost per useful ${energyUnit} (${currency})`, 'CO2e avoided over the period (t)',
+      `cost per tonne CO2e avoided (${currency})`);
+  }
   const quote = (v) => {
     const text = v === undefined || v === null ? '' : String(v);
     return /[",\n\r]/.test(text) || /^[=+\-@]/.test(text) ? `"${(/^[=+\-@]/.test(text) && !/^-?\d/.test(text) ? `'${text}` : text).replaceAll('"', '""')}"` : text;
@@ -325,7 +625,10 @@ export function resultsCsv(result, ws, by = 'annual') {
     const v = displayValues(o, ws);
     const row = [i + 1, o.id, o.label ?? o.id, o.fuel_name ?? o.fuel, v.annual_cost, v.energy_cost, v.fixed_cost, v.cost_per_useful,
       v.fuel_quantity, o.fuel_quantity?.unit, v.co2e];
-    if (econ) row.push(o.simple_payback_years ?? '', o.npv ?? '', o.life_cycle_cost ?? '');
+    if (econ) {
+      row.push(o.net_installed_cost ?? '', o.annual_saving ?? '', o.simple_payback_years ?? '', o.discounted_payback_years ?? '', o.npv ?? '',
+        o.life_cycle_cost ?? '', v.lcoh ?? '', v.co2e_saved_t ?? '', o.cost_per_tonne_co2e_avoided ?? '');
+    }
     lines.push(row.map(quote).join(','));
   });
   return `${lines.join('\r\n')}\r\n`;
