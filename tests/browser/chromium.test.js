@@ -12,7 +12,7 @@ import { after, before, describe, test } from 'node:test';
 
 import { chromium } from 'playwright-core';
 
-import { siteDir } from '../node/helpers.js';
+import { cliJson, siteDir } from '../node/helpers.js';
 import { serve } from './server.js';
 import { TYPED, cliEvaluate, close, money, typedScenario } from './scenario-fixture.js';
 
@@ -22,6 +22,7 @@ const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '
   '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 const ARTIFACTS = resolve(process.env.FUELWRIGHT_ARTIFACTS ?? join(siteDir, '..', 'test-artifacts'));
 const MMBTU_KWH = 293.07107017222222;
+const root = resolve(import.meta.dirname ?? new URL('.', import.meta.url).pathname, '../..');
 const LB_KG = 0.45359237;
 
 let server;
@@ -80,6 +81,43 @@ async function row(id) {
   }, id);
 }
 
+let cliDemo = null;
+
+/** The demo as the page builds it. */
+function demoScenario() {
+  return page.evaluate(async () => (await import('./scenario.js')).toScenario((await import('./demo.js')).demoWorkspace()));
+}
+
+/** Waits until the charts (sweep, break-even, tornado) show the latest verdict. */
+async function analysed() {
+  await page.waitForFunction(() => {
+    const body = document.querySelector('#verdict-body');
+    return body.dataset.state === 'done' && body.dataset.analysis === body.dataset.generation && document.querySelector('#progress').hidden;
+  });
+}
+
+/** The tornado list against the core's tornado answer. */
+async function checkTornado(tornado) {
+  const rows = await page.$$eval('#tornado-list li', (items) => items.map((li) => li.textContent));
+  assert.equal(rows.length, Math.min(8, tornado.inputs.length));
+  for (const [i, input] of tornado.inputs.slice(0, 8).entries()) {
+    assert.ok(rows[i].startsWith(input.input), rows[i]);
+    const low = Number(await page.getAttribute(`#tornado-list li:nth-child(${i + 1}) button[data-side="low"]`, 'data-value'));
+    const high = Number(await page.getAttribute(`#tornado-list li:nth-child(${i + 1}) button[data-side="high"]`, 'data-value'));
+    assert.ok(close(low, input.margin_low) && close(high, input.margin_high), `${input.input}: ${low} to ${high}`);
+  }
+  assert.equal(await page.locator('#chart-tornado svg rect.tornado-low').count(), Math.min(8, tornado.inputs.length));
+  await page.tap('#tornado-list li:first-child button[data-side="high"]');
+  await page.waitForSelector('#trace-dialog[open] #trace-steps li');
+  await page.tap('#trace-close');
+}
+
+/** The economics table: {id: {key: {value, text}}} in row order. */
+function economicsRows() {
+  return page.evaluate(() => Object.fromEntries([...document.querySelectorAll('#economics-table tbody tr')].map((tr) => [tr.dataset.option,
+    Object.fromEntries([...tr.querySelectorAll('button.num')].map((b) => [b.dataset.key, { value: Number(b.dataset.value), text: b.textContent }]))])));
+}
+
 async function typeInto(selector, text) {
   await page.tap(selector);
   await page.fill(selector, '');
@@ -119,6 +157,164 @@ describe('Chromium, tablet portrait 820x1180 with touch', () => {
     assert.ok(await page.locator('#trace-sources li').count() > 0);
     await page.tap('#trace-close');
     await page.waitForSelector('#trace-dialog:not([open])', { state: 'attached' });
+  });
+
+  test('the demo\'s costs over the years equal the CLI\'s economics', { timeout: TIMEOUT }, async () => {
+    const cli = await cliEvaluate(await demoScenario());
+    assert.deepEqual(cli.errors, []);
+    assert.ok(cli.economics?.baseline, 'the demo has an existing system');
+    const shown = await economicsRows();
+    assert.deepEqual(Object.keys(shown), cli.ranking_life_cycle.map((r) => r.id), 'economics rows in the core\'s life-cycle order');
+    for (const o of cli.options) {
+      const row = shown[o.id];
+      const expect = {
+        net_installed_cost: o.net_installed_cost, annual_saving: o.annual_saving, simple_payback_years: o.simple_payback_years,
+        discounted_payback_years: o.discounted_payback_years, npv: o.npv, life_cycle_cost: o.life_cycle_cost,
+        lcoh: o.lcoh_per_mmbtu, co2e_saved_t: o.co2e_saved_kg_life === null ? null : o.co2e_saved_kg_life / 1000,
+        cost_per_tonne_co2e_avoided: o.cost_per_tonne_co2e_avoided,
+      };
+      for (const [key, value] of Object.entries(expect)) {
+        if (value === null || value === undefined) assert.equal(row[key].text, '—', `${o.id}.${key} is shown as a dash`);
+        else assert.ok(close(row[key].value, value), `${o.id}.${key}: ${row[key].value} vs the CLI's ${value}`);
+      }
+    }
+    // a payback the core cannot give: its reason, in the core's words, in the trace
+    const noPayback = cli.options.find((o) => o.simple_payback_years === null && o.id !== cli.economics.baseline);
+    if (noPayback) {
+      await page.tap(`#economics-table tr[data-option="${noPayback.id}"] button.num[data-key="simple_payback_years"]`);
+      await page.waitForSelector('#trace-dialog[open] #trace-reason');
+      assert.ok((await page.textContent('#trace-reason')).includes(noPayback.simple_payback_reason));
+      await page.tap('#trace-close');
+    }
+    // ranking by life-cycle cost follows the core's ranking_life_cycle
+    await page.tap('[data-action="rank-by"][data-by="life"]');
+    let order = await page.$$eval('#verdict-table tbody tr', (rows) => rows.map((r) => r.dataset.option));
+    assert.deepEqual(order, cli.ranking_life_cycle.map((r) => r.id));
+    await page.tap('[data-action="rank-by"][data-by="annual"]');
+    order = await page.$$eval('#verdict-table tbody tr', (rows) => rows.map((r) => r.dataset.option));
+    assert.deepEqual(order, cli.ranking.map((r) => r.id));
+    await page.waitForTimeout(500);
+    await analysed();
+    await page.locator('#economics').screenshot({ path: join(ARTIFACTS, 'chromium-economics.png') });
+    assert.deepEqual(consoleErrors, []);
+  });
+
+  test('the price chart is the core\'s sweep with its exact break-even points and statement', { timeout: TIMEOUT }, async () => {
+    await analysed();
+    const scenario = await demoScenario();
+    const file = join(ARTIFACTS, 'demo-scenario.json');
+    writeFileSync(file, JSON.stringify(scenario));
+    const fuelIndex = Number(await page.inputValue('#sweep-fuel'));
+    cliDemo ??= await cliEvaluate(scenario);
+    const fuel = scenario.options.find((o) => o.id === cliDemo.ranking[0].id).fuel;
+    const entryFuel = await page.evaluate(async (i) => (await import('./demo.js')).demoWorkspace().fuels[i].fuel, fuelIndex);
+    assert.equal(entryFuel, fuel, 'the chart starts with the fuel of the cheapest option');
+    const price = scenario.options.find((o) => o.fuel === fuel).price.amount;
+    const { json: sweep } = await cliJson('sweep', file, '--vary', 'price', '--of', fuel, '--from', '0', '--to', String(2 * price), '--points', '41', '--basis', 'annual');
+    assert.deepEqual(sweep.errors, []);
+    const marks = await page.$$eval('#chart-sweep circle.break-even', (cs) => cs.map((c) => ({ value: Number(c.dataset.value), with: c.dataset.with })));
+    assert.equal(marks.length, sweep.break_even.length, JSON.stringify(marks));
+    for (const [i, b] of sweep.break_even.entries()) {
+      assert.equal(marks[i].with, b.with);
+      assert.ok(close(marks[i].value, b.value), `break-even with ${b.with}: ${marks[i].value} vs ${b.value}`);
+    }
+    assert.equal(await page.locator('#chart-sweep svg path').count(), sweep.series.length);
+    const statement = await page.$eval('#break-even-statement', (p) => ({ text: p.textContent, a: p.dataset.a, b: p.dataset.b }));
+    const { json: be } = await cliJson('break-even', file, '--a', statement.a, '--b', statement.b, '--vary', 'price', '--of', fuel, '--basis', 'annual');
+    assert.equal(statement.text, be.break_even ? `${be.statement}.` : be.reason);
+    // the tornado: the core's answer (at present the core refuses to vary a resistance heater's COP of 1)
+    const { json: tornado } = await cliJson('tornado', file, '--basis', 'annual', '--change', '0.2');
+    if (tornado.errors?.length) {
+      assert.equal(await page.textContent('#tornado-unavailable'), `Not available for these entries: ${tornado.errors.map((e) => e.message).join('; ')}.`);
+    } else {
+      await checkTornado(tornado);
+    }
+    await page.locator('#sweep').screenshot({ path: join(ARTIFACTS, 'chromium-sweep.png') });
+    assert.deepEqual(consoleErrors, []);
+  });
+
+  test('the heat pump\'s bins show load, capacity, COP and the backup', { timeout: TIMEOUT }, async () => {
+    const cli = cliDemo ?? await cliEvaluate(await demoScenario());
+    const hp = cli.options.find((o) => Array.isArray(o.bins));
+    assert.ok(hp, 'the demo has a heat pump on bins');
+    await page.waitForSelector(`#bins-${hp.id} svg path.capacity`);
+    const backupBins = hp.bins.filter((b) => b.hours >= 1 && b.load_kw > 0 && b.backup_heat_kwh > 0).length;
+    assert.equal(await page.locator(`#bins-${hp.id} svg rect.backup`).count(), backupBins);
+    const cop = Number(await page.getAttribute(`#bins-${hp.id} button[data-trace="bins"][data-value]`, 'data-value'));
+    assert.ok(close(cop, hp.seasonal_cop));
+    await page.tap(`#bins-${hp.id} button.quiet[data-trace="bins"]`);
+    await page.waitForSelector('#trace-dialog[open] #bins-table tbody tr');
+    assert.equal(await page.locator('#bins-table tbody tr').count(), hp.bins.filter((b) => b.hours >= 1 && b.load_kw > 0).length);
+    await page.tap('#trace-close');
+    await page.locator(`#bins-${hp.id}`).screenshot({ path: join(ARTIFACTS, 'chromium-bins.png') });
+  });
+
+  test('the price draws show their progress, can be cancelled, and match the CLI for the same seed', { timeout: 60_000 }, async () => {
+    await tab('fuels');
+    await page.tap('label[for="f-uncertainty-enabled"]');
+    await page.waitForSelector('#f-uncertainty-draws');
+    await typeInto('#f-uncertainty-draws', '200000');
+    await typeInto('#f-uncertainty-seed', '42');
+    await typeInto('#f-fuels-0-spread', '25');
+    await tab('verdict');
+    // a long run: progress moves, then Cancel stops it (the worker is replaced: this server does not isolate the page)
+    await page.waitForFunction(() => document.querySelector('#uncertainty')?.dataset.state === 'running'
+      && Number(document.querySelector('#mc-progress')?.getAttribute('aria-valuenow')) > 0, null, { timeout: 20_000 });
+    assert.ok(await page.isVisible('#mc-progress'));
+    assert.match(await page.textContent('#mc-status'), /Drawing prices… \d+%/);
+    await page.locator('#uncertainty').screenshot({ path: join(ARTIFACTS, 'chromium-draws-running.png') });
+    const startedCancel = Date.now();
+    await page.tap('#mc-cancel');
+    await page.waitForFunction(() => document.querySelector('#uncertainty')?.dataset.state === 'cancelled', null, { timeout: 3000 });
+    assert.ok(Date.now() - startedCancel < 3000);
+    assert.equal(await page.textContent('#mc-status'), 'Cancelled.');
+    assert.ok(await page.isHidden('#mc-progress'));
+    assert.ok(await page.isVisible('#mc-run'));
+    // the verdict is not held up by the draws, and keeps working after the cancel
+    await tab('fuels');
+    await typeInto('#f-fuels-0-price-amount', '3.9');
+    await tab('verdict');
+    await settled();
+    await tab('fuels');
+    await typeInto('#f-fuels-0-price-amount', '3.8');
+    // a run that ends: the same seed gives the CLI's probabilities exactly
+    await typeInto('#f-uncertainty-draws', '3000');
+    await tab('verdict');
+    await settled();
+    await page.waitForFunction(() => document.querySelector('#uncertainty')?.dataset.state === 'done', null, { timeout: 30_000 });
+    assert.ok(Number(await page.getAttribute('#verdict-body', 'data-draw-progress')) > 0.5, 'progress was reported');
+    const expected = await page.evaluate(async () => {
+      const { toScenario } = await import('./scenario.js');
+      const ws = (await import('./demo.js')).demoWorkspace();
+      ws.uncertainty = { ...ws.uncertainty, enabled: true, draws: 3000, seed: 42 };
+      ws.fuels[0].spread = 0.25;
+      return toScenario(ws);
+    });
+    assert.deepEqual(expected.uncertainty, { draws: 3000, seed: 42, form: 'lognormal', spread: { 'heating-oil-2': 0.25 } });
+    const cli = await cliEvaluate(expected);
+    assert.deepEqual(cli.errors, []);
+    const shown = await page.$$eval('#uncertainty-table button[data-key="p_cheapest"]', (bs) => Object.fromEntries(bs.map((b) => [b.dataset.option, Number(b.dataset.value)])));
+    for (const o of cli.uncertainty.options) {
+      assert.equal(shown[o.id], o.p_cheapest, `${o.id}: P(cheapest) ${shown[o.id]} vs the CLI's ${o.p_cheapest}`);
+    }
+    const p90 = Number(await page.getAttribute(`#uncertainty-table button[data-key="annual_cost_p90"][data-option="${cli.uncertainty.options[0].id}"]`, 'data-value'));
+    assert.ok(close(p90, cli.uncertainty.options[0].annual_cost_p90));
+    assert.match(await page.textContent('#mc-status'), /^3,000 draws, seed 42/);
+    await page.tap(`#uncertainty-table button[data-key="p_cheapest"][data-option="${cli.uncertainty.options[0].id}"]`);
+    await page.waitForSelector('#trace-dialog[open] #trace-steps li');
+    assert.ok((await page.textContent('#trace-steps')).includes(cli.uncertainty.notes[0]));
+    await page.tap('#trace-close');
+    await page.locator('#uncertainty').screenshot({ path: join(ARTIFACTS, 'chromium-draws.png') });
+    // a bad number of draws is shown next to its field
+    await tab('fuels');
+    await typeInto('#f-uncertainty-draws', '5');
+    await page.waitForFunction(() => !document.querySelector('[data-field="/uncertainty/draws"] .field-msg').hidden, null, { timeout: 10_000 });
+    await typeInto('#f-uncertainty-draws', '3000');
+    await page.tap('label[for="f-uncertainty-enabled"]');
+    await tab('verdict');
+    await settled();
+    assert.equal(await page.locator('#uncertainty').count(), 0);
+    assert.deepEqual(consoleErrors, []);
   });
 
   test('a scenario typed in gives the CLI\'s numbers', { timeout: TIMEOUT }, async () => {
@@ -354,6 +550,44 @@ describe('Chromium, tablet portrait 820x1180 with touch', () => {
     } finally {
       await context.setOffline(false);
     }
+    assert.deepEqual(consoleErrors, []);
+  });
+  test('bills are drawn against degree-days with the fitted line', { timeout: TIMEOUT }, async () => {
+    const file = join(root, 'data/examples/fjordvik-oil-bills.json');
+    const { json: cli } = await cliJson('evaluate', file);
+    await tab('saved');
+    await page.setInputFiles('#import-file', file);
+    await page.waitForSelector('#import-msg.ok');
+    await tab('verdict');
+    await settled();
+    await page.waitForSelector('#chart-bills svg line.fit');
+    assert.equal(await page.locator('#chart-bills circle.bill').count(), cli.demand.fit.points.length);
+    const values = await page.$$eval('#chart-bills button[data-trace="bills"]', (bs) => bs.map((b) => Number(b.dataset.value)));
+    assert.ok(close(values[0], cli.demand.fit.base_per_day) && close(values[1], cli.demand.fit.slope), values.join(' '));
+    await page.tap('#chart-bills button[data-trace="bills"]');
+    await page.waitForSelector('#trace-dialog[open] #trace-steps li');
+    assert.ok((await page.textContent('#trace-steps')).includes('PRISM'));
+    await page.tap('#trace-close');
+    await page.locator('#chart-bills').screenshot({ path: join(ARTIFACTS, 'chromium-bills.png') });
+    assert.deepEqual(consoleErrors, []);
+  });
+
+  test('the tornado of the bins example is the core\'s', { timeout: TIMEOUT }, async () => {
+    const file = join(root, 'data/examples/maple-hollow-heat-pump-bins.json');
+    await tab('saved');
+    await page.setInputFiles('#import-file', file);
+    await page.waitForSelector('#import-msg.ok');
+    await tab('verdict');
+    await settled();
+    await analysed();
+    const doc = JSON.parse(readFileSync(file, 'utf8'));
+    delete doc.uncertainty;
+    const plain = join(ARTIFACTS, 'bins-without-draws.json');
+    writeFileSync(plain, JSON.stringify(doc));
+    const { json: tornado } = await cliJson('tornado', plain, '--basis', 'annual', '--change', '0.2');
+    assert.deepEqual(tornado.errors, []);
+    await checkTornado(tornado);
+    await page.locator('#chart-tornado').screenshot({ path: join(ARTIFACTS, 'chromium-tornado.png') });
     assert.deepEqual(consoleErrors, []);
   });
 });

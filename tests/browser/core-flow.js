@@ -1,7 +1,8 @@
 // The core flow every engine runs (WebKit and Firefox through small drivers,
-// Chromium has its own fuller test): load and show the demo verdict, enter a
-// scenario, check the verdict numbers against the native CLI, save and
-// reload, and reload offline from the service worker.
+// Chromium has its own fuller test): load and show the demo verdict, its costs
+// over the years and a price Monte Carlo against the native CLI, enter a
+// scenario, check the verdict numbers against the CLI, save and reload, and
+// reload offline from the service worker.
 //
 // A driver offers: go(url), js(expression) -> JSON-able value (the expression
 // may be async), click(css), type(css, text), select(css, value), screenshot(path).
@@ -41,6 +42,9 @@ const ROWS = `(() => Object.fromEntries([...document.querySelectorAll('#verdict-
   perUseful: Number(tr.querySelector('[data-key="cost_per_useful"]').dataset.value),
   fuel: Number(tr.querySelector('[data-key="fuel_quantity"]').dataset.value) }])))()`;
 
+const ECONOMICS = `(() => Object.fromEntries([...document.querySelectorAll('#economics-table tbody tr')].map((tr) => [tr.dataset.option,
+  Object.fromEntries([...tr.querySelectorAll('button.num')].map((b) => [b.dataset.key, { value: Number(b.dataset.value), text: b.textContent }]))])))()`;
+
 async function checkAgainstCli(driver, scenario) {
   const cli = await cliEvaluate(scenario);
   assert.deepEqual(cli.errors, []);
@@ -66,6 +70,43 @@ export const CORE_FLOW = [
     const cautions = await driver.js(`[...document.querySelectorAll('#verdict-cautions li')].map((li) => li.textContent)`);
     assert.ok(cautions.length > 0, 'cautions are shown with the verdict');
     if (env.shots) await driver.screenshot(env.shot('demo'));
+  }],
+  ['the demo\'s costs over the years and its price draws equal the CLI', async (driver, env) => {
+    const scenario = await driver.js(`(async () => (await import('./scenario.js')).toScenario((await import('./demo.js')).demoWorkspace()))()`);
+    const cli = await cliEvaluate(scenario);
+    const rows = await driver.js(ECONOMICS);
+    assert.deepEqual(Object.keys(rows), cli.ranking_life_cycle.map((r) => r.id), 'rows in the core\'s life-cycle order');
+    for (const o of cli.options) {
+      for (const key of ['npv', 'life_cycle_cost', 'simple_payback_years', 'annual_saving']) {
+        const shown = rows[o.id][key];
+        if (o[key] === null) assert.equal(shown.text, '—', `${o.id}.${key}`);
+        else assert.ok(close(shown.value, o[key]), `${o.id}.${key}: ${shown.value} vs ${o[key]}`);
+      }
+    }
+    await driver.click('#tab-fuels');
+    // (centred first: at the foot of the window the summary bar would cover it)
+    await driver.js(`document.querySelector('#f-uncertainty-enabled').scrollIntoView({ block: 'center' })`);
+    await driver.click('#f-uncertainty-enabled');
+    await waitFor(driver, `!!document.querySelector('#f-uncertainty-draws')`);
+    await driver.type('#f-uncertainty-draws', '2000');
+    await driver.type('#f-uncertainty-seed', '7');
+    await driver.click('#tab-verdict');
+    await waitFor(driver, `document.querySelector('#uncertainty')?.dataset.state === 'done'`, { timeout: 25_000, what: 'the price draws' });
+    assert.ok(await driver.js(`Number(document.querySelector('#verdict-body').dataset.drawProgress) > 0`), 'progress was reported');
+    const expected = await driver.js(`(async () => { const ws = (await import('./demo.js')).demoWorkspace();
+      ws.uncertainty = { ...ws.uncertainty, enabled: true, draws: 2000, seed: 7 };
+      return (await import('./scenario.js')).toScenario(ws); })()`);
+    const drawn = await cliEvaluate(expected);
+    assert.deepEqual(drawn.errors, []);
+    const shown = await driver.js(`Object.fromEntries([...document.querySelectorAll('#uncertainty-table button[data-key="p_cheapest"]')].map((b) => [b.dataset.option, Number(b.dataset.value)]))`);
+    for (const o of drawn.uncertainty.options) assert.equal(shown[o.id], o.p_cheapest, `${o.id}: P(cheapest)`);
+    if (env.shots) await driver.screenshot(env.shot('draws'));
+    await driver.click('#tab-fuels');
+    await driver.js(`document.querySelector('#f-uncertainty-enabled').scrollIntoView({ block: 'center' })`);
+    await driver.click('#f-uncertainty-enabled');
+    await waitFor(driver, `!document.querySelector('#f-uncertainty-draws')`);
+    await driver.click('#tab-verdict');
+    await settled(driver);
   }],
   ['a scenario entered in the page gives the CLI\'s numbers', async (driver) => {
     await driver.click('#tab-saved');
