@@ -57,3 +57,15 @@ set_tests_properties(browser_chromium browser_webkit browser_firefox PROPERTIES
   LABELS browser
   TIMEOUT 240
   RESOURCE_LOCK browser_site)
+
+# The built site behind nginx with deploy/nginx.conf (nginx in the foreground on a
+# free loopback port, temporary prefix), and the kiosk in Chromium against it.
+find_program(FW_NGINX nginx PATHS /usr/sbin /usr/local/sbin)
+add_test(NAME kiosk_nginx
+  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/deploy/kiosk-nginx.test.js"
+  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+set_tests_properties(kiosk_nginx PROPERTIES
+  ENVIRONMENT "${FW_BROWSER_ENV};FUELWRIGHT_NGINX=${FW_NGINX}"
+  LABELS "browser;deploy"
+  TIMEOUT 180
+  RESOURCE_LOCK browser_site)
