@@ -131,6 +131,11 @@ export async function startKiosk(core) {
   const restart = () => {
     clearTimeout(timer);
     generation++;
+    // a kiosk runs for days: a file that has expired since it was read now carries the banner
+    if (k.check.expires && k.check.expires < today() && !k.verdict.expired) {
+      k.verdict = { ...k.verdict, expired: true };
+      document.body.dataset.kiosk = 'expired';
+    }
     state = { visitor: blankVisitor(), result: null, errors: [], missing: [], pending: false };
     document.querySelector('#trace-dialog')?.close();
     if (document.activeElement instanceof HTMLElement) document.activeElement.blur();

@@ -23,7 +23,7 @@ export function renderQuotes(container, ctx, state) {
   const undo = state.undo ? h('div', { class: 'toast', id: 'undo-toast', role: 'status' },
     h('span', { text: `Deleted the quote for ${state.undo.customer || 'no customer'}.` }),
     h('button', { type: 'button', class: 'secondary', dataset: { action: 'undo-delete' }, text: 'Undo' })) : null;
-  container.replaceChildren(
+  container.replaceChildren(...[
     h('div', { class: 'card-actions start' },
       h('button', { type: 'button', class: 'primary', dataset: { action: 'new-quote' }, text: 'New quote' }),
       h('button', { type: 'button', class: 'secondary', dataset: { action: 'new-quote-keep' }, text: 'New quote with these prices and systems' }),
@@ -39,7 +39,7 @@ export function renderQuotes(container, ctx, state) {
         h('input', { id: 'import-file', type: 'file', accept: '.json,application/json', class: 'visually-hidden' })),
       h('p', { class: state.importMessage?.ok ? 'field-msg ok' : 'field-msg', id: 'import-msg', role: 'status',
         hidden: !state.importMessage, text: state.importMessage?.text ?? '' })),
-    h('p', { class: 'hint', id: 'storage-kind', text: `Saved automatically on this device (${state.storageKind}).` }));
+    h('p', { class: 'hint', id: 'storage-kind', text: `Saved automatically on this device (${state.storageKind}).` })].filter(Boolean));
   const input = container.querySelector('#quote-search');
   input.addEventListener('input', () => ctx.onSearch(input.value));
 }

@@ -149,7 +149,7 @@ function economicsSection(result, ws, ctx) {
     `Life-cycle cost${isNum(n) ? ` (${n} years)` : ''}`, `Cost of heat per ${energyUnit} over the years`, 'CO2e avoided (t)', 'Cost per tonne CO2e avoided'];
   const basis = e.basis === 'nominal' ? 'future (nominal) money' : 'today\'s (real) money';
   const intro = baseline
-    ? `Against the existing ${baseline.label ?? baseline.id}, over ${n ?? '—'} years at ${isNum(e.discount_rate) ? format.percent(e.discount_rate, 1) : '—'} a year, in ${basis}.`
+    ? `Against ${baseline.label ?? baseline.id} (the system in the house now), over ${n ?? '—'} years at ${isNum(e.discount_rate) ? format.percent(e.discount_rate, 1) : '—'} a year, in ${basis}.`
     : `Over ${n ?? '—'} years at ${isNum(e.discount_rate) ? format.percent(e.discount_rate, 1) : '—'} a year, in ${basis}. Mark the system in the house now as existing to see savings and payback.`;
   return h('section', { class: 'chart-card', id: 'economics' }, h('h3', { text: 'Costs over the years' }),
     h('p', { class: 'hint', text: intro }),
@@ -175,9 +175,10 @@ function headline(result, ws, ctx, by) {
   if (baseline && best.id !== baseline && isNum(best.annual_saving)) {
     const base = list.find((o) => o.id === baseline);
     const pay = isNum(best.simple_payback_years) ? `, paying back in ${years(best.simple_payback_years, format)}` : '';
+    const now = `${base?.label ?? baseline}, the system in the house now`;
     lines.push(h('p', { id: 'switch-line' }, best.annual_saving >= 0
-      ? `Against the existing ${base?.label ?? baseline} it saves ${format.money(best.annual_saving)} a year${pay}.`
-      : `It costs ${format.money(-best.annual_saving)} a year more to run than the existing ${base?.label ?? baseline}.`));
+      ? `Against ${now}, it saves ${format.money(best.annual_saving)} a year${pay}.`
+      : `It costs ${format.money(-best.annual_saving)} a year more to run than ${now}.`));
   }
   if (greenest && greenest.id !== best.id) {
     lines.push(h('p', {}, 'Lowest emissions: ', h('strong', { text: greenest.label ?? greenest.id }),
@@ -431,6 +432,19 @@ function cautionsBlock(result) {
     h('ul', {}, cautions.map((c) => h('li', { text: c }))));
 }
 
+// Sections that depend only on the analyses, the price draws or the bins are kept
+// between repaints while what they show is unchanged, so a price edit repaints
+// the verdict without rebuilding every chart (the charts follow when the core's
+// new analyses arrive).
+const kept = new Map();
+function keep(name, key, build) {
+  const hit = kept.get(name);
+  if (hit && hit.key.length === key.length && hit.key.every((k, i) => k === key[i])) return hit.node;
+  const node = build();
+  kept.set(name, { key, node });
+  return node;
+}
+
 /**
  * Renders the verdict from the latest result. `state` = {result, errors (unplaced), fieldErrorCount, by,
  * analysis: {state, fuelIndex, sweep, breakEven, pair, tornado}, mc: {state, fraction, uncertainty, stale}}.
@@ -470,11 +484,16 @@ export function renderVerdict(container, ctx, state, { kiosk = false } = {}) {
     const costRows = rankedOptions(result, by).map((o) => ({ id: o.id, label: o.label ?? o.id, energy: o.energy_cost, fixed: o.fixed_cost }));
     parts.push(h('section', { class: 'chart-card', id: 'chart-cost' }, h('h3', { text: 'Cost per year' }),
       costBars(costRows, { money: ctx.format.money, title: 'Annual cost: energy and fixed charges' })));
-    if (ws.fuels.length && !kiosk) parts.push(sweepSection(result, ws, ctx, state.analysis));
-    if (!kiosk) parts.push(tornadoSection(result, ctx, state.analysis));
-    parts.push(binsSection(result, ws, ctx));
+    const labels = (result.options ?? []).map((o) => `${o.id}\u0000${o.label ?? ''}`).join('\u0001');
+    const fuels = ws.fuels.map((f) => fuelName(f, ctx.catalog)).join('\u0001');
+    const shown = [ctx.format, ws.settings.currency, ws.settings.units, labels];
+    if (ws.fuels.length && !kiosk) parts.push(keep('sweep', [state.analysis, fuels, ...shown], () => sweepSection(result, ws, ctx, state.analysis)));
+    if (!kiosk) parts.push(keep('tornado', [state.analysis, ...shown], () => tornadoSection(result, ctx, state.analysis)));
+    const bins = (result.options ?? []).filter((o) => Array.isArray(o.bins)).map((o) => JSON.stringify([o.bins, o.seasonal_cop, o.backup_share,
+      o.changeover, o.bin_cop_range, o.hours_below_balance_point, o.backup_option])).join('\u0001');
+    parts.push(keep('bins', [bins, result.climate?.unit, ...shown], () => binsSection(result, ws, ctx)));
     parts.push(billsSection(result, ctx));
-    if (!kiosk) parts.push(uncertaintySection(result, ws, ctx, state.mc));
+    if (!kiosk) parts.push(keep('draws', [state.mc, state.mc?.state, ws.uncertainty?.enabled, ...shown], () => uncertaintySection(result, ws, ctx, state.mc)));
   }
   const warnings = result.warnings ?? [];
   if (warnings.length) {
