@@ -123,7 +123,9 @@ export function renderSystems(container, ctx) {
     e.enabled ? h('div', { class: 'grid two' },
       numberField(ctx, { label: 'Years to compare', path: '/economics/analysis_years', value: e.analysis_years, unit: 'years' }),
       numberField(ctx, { label: 'Discount rate', path: '/economics/discount_rate', value: e.discount_rate, scale: 100, unit: '%' }),
-      numberField(ctx, { label: 'Energy prices rise by', path: '/economics/escalation_default', value: e.escalation_default, scale: 100, unit: '% a year' }),
+      numberField(ctx, { label: 'Energy prices rise by', path: '/economics/escalation_default', value: e.escalation_default, scale: 100, unit: '% a year',
+        hint: 'Each fuel\'s own rise can be set on its card (Fuels).' }),
+      numberField(ctx, { label: 'Maintenance costs rise by (optional)', path: '/economics/maintenance_escalation', value: e.maintenance_escalation, scale: 100, unit: '% a year' }),
       selectField(ctx, { label: 'Money in', path: '/economics/basis', value: e.basis ?? 'real',
         choices: [['real', 'today\'s money (real)'], ['nominal', 'future money (nominal)']] })) : null);
   container.replaceChildren(...[
