@@ -301,34 +301,14 @@ std::string evaluate_json(const std::string& scenario_json) noexcept {
 
 std::string evaluate_json_with_progress(const std::string& scenario_json,
                                         const std::function<bool(double)>& progress) noexcept {
-    try {
-        const auto out = evaluate(parse_request(scenario_json), progress);
-        require_finite_output(out);
-        return dump_text(out);
-    } catch (const input_error& error) {
-        return error_response({{error.path(), error.message()}});
-    } catch (const std::exception& error) {
-        return error_response({{"", std::string("internal error: ") + error.what()}});
-    } catch (...) {
-        return error_response({{"", "internal error"}});
-    }
+    return guarded_entry(scenario_json, [&](const json& document, std::vector<issue>&) { return evaluate(document, progress); });
 }
 
 std::string climate_json(const std::string& request_json) noexcept {
-    try {
-        const auto request = parse_request(request_json);
+    return guarded_entry(request_json, [](const json& request, std::vector<issue>&) {
         require_object(request, "");
-        const auto& climate = request.contains("climate") ? request.at("climate") : request;
-        auto out = climate_result(read_climate(climate));
-        require_finite_output(out);
-        out["errors"] = json::array();
-        out["warnings"] = json::array();
-        return dump_text(out);
-    } catch (const input_error& error) {
-        return error_response({{error.path(), error.message()}});
-    } catch (const std::exception& error) {
-        return error_response({{"", std::string("internal error: ") + error.what()}});
-    }
+        return climate_result(read_climate(request.contains("climate") ? request.at("climate") : request));
+    });
 }
 
 std::string catalog_json() noexcept {

@@ -48,14 +48,7 @@ season_cost run(const scenario& input, const scenario_option& option, const std:
 }  // namespace
 
 option_result evaluate_heat_pump_option(const scenario& input, const scenario_option& option) {
-    option_result r;
-    r.id = option.id;
-    r.label = option.label;
-    r.fuel_id = option.fuel.id;
-    r.fuel_name = option.fuel.name;
-    r.useful_heat_kwh = input.annual_useful_heat_kwh;
-    r.fuel_unit = option.price_unit;
-    r.price_per_unit = option.price_per_unit;
+    option_result r = result_for(input, option);
     const auto& climate = *input.climate;
     const bool f = climate.fahrenheit;
     const auto temp_text = [&](double c) {

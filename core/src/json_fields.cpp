@@ -61,6 +61,19 @@ std::optional<bool> optional_bool(const nlohmann::json& obj, const std::string& 
     return value.get<bool>();
 }
 
+double quantity_in(const nlohmann::json& obj, const std::string& path, dimension kind, const std::string& to) {
+    require_object(obj, path);
+    const auto value = optional_number(obj, "value", path);
+    const auto unit = optional_string(obj, "unit", path);
+    const std::string article = kind == dimension::energy ? "an " : "a ";
+    const std::string what = article + std::string(dimension_name(kind)) + " unit";
+    if (!value) throw input_error(path + "/value", "is required (a number)");
+    if (!unit) throw input_error(path + "/unit", "is required (" + what + ": " + accepted_units(kind) + ")");
+    if (find_unit(*unit, path + "/unit").kind != kind)
+        throw input_error(path + "/unit", "must be " + what + ": " + accepted_units(kind));
+    return convert(*value, *unit, to, path + "/value");
+}
+
 double parse_number_text(const std::string& text, const std::string& path, const std::string& what) {
     const char* begin = text.c_str();
     char* end = nullptr;

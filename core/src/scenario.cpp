@@ -151,22 +151,12 @@ fuel_record read_custom_fuel(const json& fuel, const std::string& path, std::vec
 
 /// A temperature {value, unit} in degC.
 double read_temperature_c(const json& value, const std::string& path) {
-    require_object(value, path);
-    const double number = required_number(value, "value", path);
-    const auto unit = required_string(value, "unit", path);
-    if (find_unit(unit, path + "/unit").kind != dimension::temperature)
-        throw input_error(path + "/unit", "must be a temperature unit: " + accepted_units(dimension::temperature));
-    return convert(number, unit, "degC", path + "/value");
+    return quantity_in(value, path, dimension::temperature, "degC");
 }
 
 /// A power {value, unit} in kW.
 double read_power_kw(const json& value, const std::string& path) {
-    require_object(value, path);
-    const double number = required_number(value, "value", path);
-    const auto unit = required_string(value, "unit", path);
-    if (find_unit(unit, path + "/unit").kind != dimension::power)
-        throw input_error(path + "/unit", "must be a power unit: " + accepted_units(dimension::power));
-    return convert(number, unit, "kW", path + "/value");
+    return quantity_in(value, path, dimension::power, "kW");
 }
 
 void read_heat_pump_fields(const json& system, const std::string& path, scenario_option& option) {
@@ -639,12 +629,7 @@ double priced_cost(const scenario_option& option, double quantity) {
     return cost;
 }
 
-option_result evaluate_option(const scenario& input, const scenario_option& option) {
-    if (option.system.kind == system_kind::air_source_heat_pump && input.climate)
-        return evaluate_heat_pump_option(input, option);
-    if (!option.efficiency_given)
-        throw input_error(option.path + "/system/ratings",
-                          "data-sheet points need a climate (for the temperature bins); without one give efficiency");
+option_result result_for(const scenario& input, const scenario_option& option) {
     option_result r;
     r.id = option.id;
     r.label = option.label;
@@ -653,6 +638,16 @@ option_result evaluate_option(const scenario& input, const scenario_option& opti
     r.useful_heat_kwh = input.annual_useful_heat_kwh;
     r.fuel_unit = option.price_unit;
     r.price_per_unit = option.price_per_unit;
+    return r;
+}
+
+option_result evaluate_option(const scenario& input, const scenario_option& option) {
+    if (option.system.kind == system_kind::air_source_heat_pump && input.climate)
+        return evaluate_heat_pump_option(input, option);
+    if (!option.efficiency_given)
+        throw input_error(option.path + "/system/ratings",
+                          "data-sheet points need a climate (for the temperature bins); without one give efficiency");
+    option_result r = result_for(input, option);
     const auto units = input.settings.units;
     const auto& currency = input.settings.currency;
 

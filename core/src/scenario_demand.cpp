@@ -17,27 +17,7 @@ namespace {
 
 /// [degC] from a {value, unit} temperature.
 double temperature_c(const json& obj, const std::string& path) {
-    require_object(obj, path);
-    const auto value = optional_number(obj, "value", path);
-    const auto unit = optional_string(obj, "unit", path);
-    if (!value) throw input_error(path + "/value", "is required (a number)");
-    if (!unit) throw input_error(path + "/unit", "is required (degC, degF or K)");
-    if (find_unit(*unit, path + "/unit").kind != dimension::temperature)
-        throw input_error(path + "/unit", "must be a temperature unit: " + accepted_units(dimension::temperature));
-    return convert(*value, *unit, "degC", path + "/value");
-}
-
-/// A {value, unit} quantity of `kind` converted to `to`.
-double quantity(const json& obj, const std::string& path, dimension kind, const std::string& to) {
-    require_object(obj, path);
-    const auto value = optional_number(obj, "value", path);
-    const auto unit = optional_string(obj, "unit", path);
-    if (!value) throw input_error(path + "/value", "is required (a number)");
-    if (!unit) throw input_error(path + "/unit", "is required");
-    if (find_unit(*unit, path + "/unit").kind != kind)
-        throw input_error(path + "/unit", "must be " + std::string(kind == dimension::energy ? "an " : "a ") +
-                                              std::string(dimension_name(kind)) + " unit: " + accepted_units(kind));
-    return convert(*value, *unit, to, path + "/value");
+    return quantity_in(obj, path, dimension::temperature, "degC");
 }
 
 std::array<double, 12> twelve_numbers(const json& obj, const std::string& key, const std::string& path) {
@@ -155,7 +135,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             throw input_error("/demand/annual_useful_heat", "is required ({\"value\": ..., \"unit\": \"MMBtu\"})");
         const auto& heat = demand.at("annual_useful_heat");
         require_object(heat, "/demand/annual_useful_heat");
-        const double kwh = quantity(heat, "/demand/annual_useful_heat", dimension::energy, "kWh");
+        const double kwh = quantity_in(heat, "/demand/annual_useful_heat", dimension::energy, "kWh");
         if (kwh <= 0)
             throw input_error("/demand/annual_useful_heat/value", "must be > 0, got " + format_number(heat.at("value").get<double>()));
         out.space_heat_kwh = kwh;
@@ -179,7 +159,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             if (ua <= 0) throw input_error("/demand/ua/value", "must be > 0, got " + format_number(*number));
             out.demand_trace.push_back("UA " + format_number(*number) + " " + unit + " = " + format_fixed(ua, 1) + " W/K");
         } else if (demand.contains("design_heat_loss")) {
-            const double watts = quantity(demand.at("design_heat_loss"), "/demand/design_heat_loss", dimension::power, "W");
+            const double watts = quantity_in(demand.at("design_heat_loss"), "/demand/design_heat_loss", dimension::power, "W");
             if (watts <= 0) throw input_error("/demand/design_heat_loss/value", "must be > 0");
             if (!indoor_c) throw input_error("/demand/indoor", "is required with design_heat_loss");
             const double outdoor_c = demand.contains("design_outdoor")
@@ -200,7 +180,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             out.demand_trace.push_back("balance point " + temp_text(*out.balance_point_c) + " as given");
         } else if (demand.contains("internal_gains")) {
             if (!indoor_c) throw input_error("/demand/indoor", "is required with internal_gains");
-            const double gains = quantity(demand.at("internal_gains"), "/demand/internal_gains", dimension::power, "W");
+            const double gains = quantity_in(demand.at("internal_gains"), "/demand/internal_gains", dimension::power, "W");
             if (gains < 0) throw input_error("/demand/internal_gains/value", "must be >= 0");
             out.balance_point_c = *indoor_c - gains / ua;
             out.demand_trace.push_back("balance point = indoor " + temp_text(*indoor_c) + " - gains " + format_fixed(gains, 0) +
@@ -364,7 +344,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         throw input_error("/demand/method", "unknown demand method \"" + method + "\"; accepted: direct, heat-loss, bills");
     }
     if (demand.contains("hot_water")) {
-        out.hot_water_kwh = quantity(demand.at("hot_water"), "/demand/hot_water", dimension::energy, "kWh");
+        out.hot_water_kwh = quantity_in(demand.at("hot_water"), "/demand/hot_water", dimension::energy, "kWh");
         if (out.hot_water_kwh < 0) throw input_error("/demand/hot_water/value", "must be >= 0");
         out.demand_trace.push_back("plus domestic hot water " + energy_text(out.hot_water_kwh) + " useful per year");
     }

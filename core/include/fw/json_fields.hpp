@@ -7,6 +7,7 @@
 #include <vector>
 
 #include "fw/error.hpp"
+#include "fw/units.hpp"
 
 namespace fw::json_fields {
 
@@ -24,6 +25,9 @@ std::optional<std::string> optional_string(const nlohmann::json& obj, const std:
 
 /// A boolean at obj[key], or nullopt when absent; throws when present but not a boolean.
 std::optional<bool> optional_bool(const nlohmann::json& obj, const std::string& key, const std::string& path);
+
+/// A {value, unit} quantity of `kind` converted to unit `to`; throws input_error naming the field.
+double quantity_in(const nlohmann::json& obj, const std::string& path, dimension kind, const std::string& to);
 
 /// Parses a whole string as a finite decimal number ("0.95", "-3e2"); throws input_error otherwise.
 double parse_number_text(const std::string& text, const std::string& path, const std::string& what);
@@ -56,7 +60,7 @@ std::string guarded_entry(const std::string& request_text, Body body) noexcept {
         std::vector<issue> warnings;
         nlohmann::json out = body(parse_request(request_text), warnings);
         if (!out.contains("errors")) out["errors"] = nlohmann::json::array();
-        out["warnings"] = issues_json(warnings);
+        if (!out.contains("warnings")) out["warnings"] = issues_json(warnings);
         require_finite_output(out);
         return dump_text(out);
     } catch (const input_error& error) {

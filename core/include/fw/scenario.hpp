@@ -188,6 +188,9 @@ struct emissions {
 };
 emissions emissions_of(const fuel_record& fuel, double fuel_kwh_hhv, const scenario_settings& settings);
 
+/// An option's result with what it is and what it serves filled in (id, label, fuel, useful heat, price).
+option_result result_for(const scenario& input, const scenario_option& option);
+
 /// A heat-pump option on the climate's temperature bins (evaluate_option calls it when a climate is given).
 option_result evaluate_heat_pump_option(const scenario& input, const scenario_option& option);
 
