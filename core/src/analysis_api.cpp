@@ -261,7 +261,9 @@ json sweep(const json& request, std::vector<issue>& warnings) {
     auto context = read_context(request);
     const auto v = read_variable(context, request, 0);
     const double from = optional_number(request, "from", "").value_or(v.current * 0.5);
-    const double to = optional_number(request, "to", "").value_or(v.current * 1.5);
+    // By default half to one and a half times today's value; an efficiency stops at its rating's limit.
+    const double limit = v.kind == "efficiency" ? upper_limit(context.input.options[v.options.front()]) : INFINITY;
+    const double to = optional_number(request, "to", "").value_or(std::min(v.current * 1.5, limit));
     const double points = optional_number(request, "points", "").value_or(50);
     if (points != std::floor(points) || points < 2 || points > 500)
         throw input_error("/points", "must be a whole number from 2 to 500, got " + format_number(points));
@@ -352,7 +354,9 @@ json tornado(const json& request, std::vector<issue>& warnings) {
                        "the price of " + context.input.options[i].fuel.name + " (" + context.input.options[i].id + ")"};
         if (price.current > 0) add(price);
         const auto& option = context.input.options[i];
-        if (option.efficiency_given && !(input_has_bins(context.input, option))) {
+        // Electric resistance is 100 % by definition: nothing to vary.
+        if (option.efficiency_given && !input_has_bins(context.input, option) &&
+            option.system.kind != system_kind::electric_resistance) {
             variable efficiency{"efficiency", {i}, option.system.efficiency_value, std::string(rating_name(option.system.rating)),
                                 "the efficiency of " + option.label};
             // +20 % may exceed a percentage rating's limit: cap it there.

@@ -273,3 +273,22 @@ TEST(economics_errors, messages) {
 }
 
 }  // namespace
+
+namespace {
+
+TEST(economics, tornado_and_efficiency_sweep_respect_fixed_and_limited_efficiencies) {
+    // Electric resistance is COP 1 by definition: the tornado varies its price, not its efficiency.
+    auto s = switching_scenario();
+    s["options"].push_back({{"id", "baseboard"}, {"fuel", "electricity"}, {"price", {{"amount", 0.14}, {"per", "kWh"}}},
+                            {"system", {{"kind", "electric-resistance"}, {"efficiency", {{"value", 1}, {"rating", "COP"}}}}}});
+    const auto tornado = json::parse(fw::tornado_json(json{{"scenario", s}}.dump()));
+    ASSERT_TRUE(tornado.at("errors").empty()) << tornado.dump();
+    for (const auto& input : tornado.at("inputs"))
+        EXPECT_FALSE(input.at("vary") == "efficiency" && input.at("of") == "baseboard") << input.dump();
+    // A 95 % AFUE furnace swept by efficiency stops at 100 % rather than 142.5 %.
+    const auto sweep = json::parse(fw::sweep_json(json{{"scenario", s}, {"vary", "efficiency"}, {"of", "lp"}}.dump()));
+    ASSERT_TRUE(sweep.at("errors").empty()) << sweep.dump();
+    EXPECT_DOUBLE_EQ(sweep.at("x").back().get<double>(), 100.0);
+}
+
+}  // namespace

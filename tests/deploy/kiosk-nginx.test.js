@@ -176,13 +176,12 @@ describe('the site behind nginx (deploy/nginx.conf)', () => {
 
     const workerResponse = await fetch(`${base}worker.js`);
     const worker = await workerResponse.text();
-    // the worker's own policy: the page's, with eval allowed only while the module's glue needs it
+    // the worker's own policy is the page's strict one: the module is linked without eval
     const glue = await (await fetch(`${base}fuelwright_core.mjs`)).text();
+    assert.ok(!glue.includes('new Function'), 'the module glue builds no code at run time (-sDYNAMIC_EXECUTION=0)');
     const workerPolicy = directives(workerResponse.headers.get('content-security-policy'));
     const strict = "script-src 'self' 'wasm-unsafe-eval'";
-    const withEval = `${strict} 'unsafe-eval'`;
-    if (glue.includes('new Function')) assert.ok(workerPolicy.includes(withEval), `the module's glue needs eval: ${workerPolicy.join('; ')}`);
-    else assert.ok(workerPolicy.includes(strict) || workerPolicy.includes(withEval), workerPolicy.join('; '));
+    assert.ok(workerPolicy.includes(strict) && !workerPolicy.join(';').includes("'unsafe-eval'"), workerPolicy.join('; '));
     for (const directive of directives(meta).filter((d) => !d.startsWith('script-src'))) assert.ok(workerPolicy.includes(directive), directive);
     const wasmName = /const WASM_FILE = '([^']+)';/.exec(worker)[1];
     const mjsName = /from '\.\/([^']+\.mjs)';/.exec(worker)[1];

@@ -25,7 +25,8 @@ set_target_properties(nlohmann_json::nlohmann_json PROPERTIES
 # Safari 15.2+, Firefox 100+, Node 17+) replace the JavaScript-based ones of -fexceptions, which
 # route every call inside a try block through JS: measured on the heavy benchmark scenario,
 # 503 -> 340 ms, and -O2 instead of -Os 340 -> 290 ms at the same gzip size (~215 KB).
-# -flto lets the linker drop and merge template code across files.
+# -flto lets the linker drop and merge template code across files. -sDYNAMIC_EXECUTION=0 keeps
+# eval and new Function out of the glue, so the page's Content-Security-Policy needs no 'unsafe-eval'.
 set(FW_WASM_COMPILE_OPTIONS -O2 -flto -fwasm-exceptions)
 # Link flags of the module: an ES6 factory `createFuelwrightCore`, web only
 # (Node tests pass the .wasm bytes as `wasmBinary`), no virtual file system.
@@ -39,7 +40,8 @@ set(FW_WASM_LINK_OPTIONS
   -sEXPORT_NAME=createFuelwrightCore
   -sENVIRONMENT=web
   -sALLOW_MEMORY_GROWTH=1
-  -sFILESYSTEM=0)
+  -sFILESYSTEM=0
+  -sDYNAMIC_EXECUTION=0)
 
 target_compile_options(core PRIVATE ${FW_WASM_COMPILE_OPTIONS})
 
