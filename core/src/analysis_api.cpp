@@ -26,6 +26,7 @@ struct variable {
     double current = 0;        ///< in `unit`
     std::string unit;
     std::string label;         ///< "the price of propane", ...
+    std::string of;            ///< the option id or fuel id the request named (or the default option's id)
 };
 
 struct analysis_context {
@@ -108,12 +109,14 @@ variable read_variable(const analysis_context& context, const json& request, std
             v.options.push_back(of ? option_index(input, *of, "/of") : default_option);
         }
         const auto& first = input.options[v.options.front()];
+        v.of = of.value_or(first.id);
         v.current = first.price_per_unit;
         v.unit = currency + "/" + first.price_unit;
         v.label = "the price of " + first.fuel.name;
     } else if (v.kind == "efficiency") {
         v.options.push_back(of ? option_index(input, *of, "/of") : default_option);
         const auto& option = input.options[v.options.front()];
+        v.of = option.id;
         if (!option.efficiency_given || (!option.ratings.empty() && input.climate))
             throw input_error("/of", option.id + " follows a data sheet on temperature bins and has no single efficiency "
                                                  "to vary; vary its price instead");
@@ -182,9 +185,15 @@ crossing find_crossing(const analysis_context& context, const variable& v, std::
     if (std::fabs(f1 - f0) <= 1e-12 * scale)
         return {std::nullopt, "the two costs change equally with " + v.label + ": the lines never cross"};
     const double y = y0 - f0 * (y1 - y0) / (f1 - f0);
-    if (!(y > 0) && (reciprocal || y < 0))
-        return {std::nullopt, "the lines would cross only at a negative " + std::string(reciprocal ? "efficiency" : "price") +
-                                  " (" + format_number(to_x(y)) + ")"};
+    const std::string quantity = reciprocal ? "efficiency" : v.kind == "demand" ? "annual useful heat" : "price";
+    if (!reciprocal && std::fabs(y) <= 1e-9 * y1) {
+        // Both costs are proportional to the variable (same fuel, no fixed charges): they meet only at zero.
+        const auto& cheaper = context.input.options[f1 < 0 ? a : b];
+        return {std::nullopt, "the costs meet only where the " + quantity + " is zero: at any " + quantity + " above zero, " +
+                                  cheaper.label + " stays cheaper"};
+    }
+    if (!(y > 0))
+        return {std::nullopt, "the lines would cross only at a negative " + quantity + " (" + format_number(to_x(y)) + ")"};
     double x = to_x(y);
     const double limit = v.kind == "efficiency" ? upper_limit(context.input.options[v.options.front()]) : INFINITY;
     if (x > limit)
@@ -233,7 +242,7 @@ json break_even(const json& request, std::vector<issue>& warnings) {
     json out = {{"a", *a_id},
                 {"b", *b_id},
                 {"vary", v.kind},
-                {"of", v.kind == "demand" ? json(nullptr) : json(context.input.options[v.options.front()].id)},
+                {"of", v.kind == "demand" ? json(nullptr) : json(v.of)},
                 {"basis", context.cost_basis == basis::annual ? "annual" : "life-cycle"},
                 {"current", {{"value", v.current}, {"unit", v.unit}}}};
     if (!found.value) {
@@ -341,7 +350,7 @@ json tornado(const json& request, std::vector<issue>& warnings) {
         const double m_low = low[runner] - low[winner], m_high = high[runner] - high[winner];
         inputs.push_back({{"input", v.label},
                           {"vary", v.kind},
-                          {"of", v.kind == "demand" ? json(nullptr) : json(context.input.options[v.options.front()].id)},
+                          {"of", v.kind == "demand" ? json(nullptr) : json(v.of)},
                           {"margin_low", m_low},
                           {"margin_high", m_high},
                           {"change_low", m_low - margin},
@@ -351,20 +360,21 @@ json tornado(const json& request, std::vector<issue>& warnings) {
     for (std::size_t i = 0; i < context.input.options.size(); ++i) {
         variable price{"price", {i}, context.input.options[i].price_per_unit,
                        context.input.settings.currency + "/" + context.input.options[i].price_unit,
-                       "the price of " + context.input.options[i].fuel.name + " (" + context.input.options[i].id + ")"};
+                       "the price of " + context.input.options[i].fuel.name + " (" + context.input.options[i].id + ")",
+                       context.input.options[i].id};
         if (price.current > 0) add(price);
         const auto& option = context.input.options[i];
         // Electric resistance is 100 % by definition: nothing to vary.
         if (option.efficiency_given && !input_has_bins(context.input, option) &&
             option.system.kind != system_kind::electric_resistance) {
             variable efficiency{"efficiency", {i}, option.system.efficiency_value, std::string(rating_name(option.system.rating)),
-                                "the efficiency of " + option.label};
+                                "the efficiency of " + option.label, option.id};
             // +20 % may exceed a percentage rating's limit: cap it there.
             const double limit = upper_limit(option);
             if (efficiency.current * (1 + step) <= limit) add(efficiency);
         }
     }
-    add({"demand", {}, context.input.annual_useful_heat_kwh, "kWh", "the annual useful heat"});
+    add({"demand", {}, context.input.annual_useful_heat_kwh, "kWh", "the annual useful heat", ""});
     std::vector<json> sorted(inputs.begin(), inputs.end());
     std::stable_sort(sorted.begin(), sorted.end(),
                      [](const json& x, const json& y) { return x.at("swing").get<double>() > y.at("swing").get<double>(); });

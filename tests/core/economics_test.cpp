@@ -164,6 +164,27 @@ TEST(economics, break_even_price_gives_equal_costs) {
     const auto never = json::parse(fw::break_even_json(json{{"scenario", same}, {"a", "oil"}, {"b", "oil2"}, {"vary", "price"}, {"of", "heating-oil-2"}}.dump()));
     EXPECT_TRUE(never.at("break_even").is_null()) << never.dump();
     EXPECT_EQ(never.at("reason"), "the two costs change equally with the price of No. 2 heating oil: the lines never cross");
+    // The same fuel at two efficiencies, no fixed charges: both costs are proportional to the price
+    // and meet only at zero, so there is no break-even price, and the more efficient one stays cheaper.
+    auto proportional = switching_scenario();
+    proportional["options"][2] = proportional["options"][0];
+    proportional["options"][2]["id"] = "oil-new";
+    proportional["options"][2]["label"] = "Condensing oil boiler";
+    proportional["options"][2]["existing"] = false;
+    proportional["options"][2]["system"]["efficiency"]["value"] = 90;
+    const auto at_zero = json::parse(fw::break_even_json(
+        json{{"scenario", proportional}, {"a", "oil"}, {"b", "oil-new"}, {"vary", "price"}, {"of", "heating-oil-2"}}.dump()));
+    ASSERT_TRUE(at_zero.at("errors").empty()) << at_zero.dump();
+    EXPECT_TRUE(at_zero.at("break_even").is_null()) << at_zero.dump();
+    EXPECT_FALSE(at_zero.contains("statement"));
+    EXPECT_EQ(at_zero.at("of"), "heating-oil-2");  // the fuel the request named, not one of its options
+    EXPECT_EQ(at_zero.at("reason"), "the costs meet only where the price is zero: at any price above zero, Condensing oil boiler stays cheaper");
+    const auto demand_zero = json::parse(fw::break_even_json(
+        json{{"scenario", proportional}, {"a", "oil"}, {"b", "oil-new"}, {"vary", "demand"}}.dump()));
+    EXPECT_TRUE(demand_zero.at("break_even").is_null()) << demand_zero.dump();
+    EXPECT_EQ(demand_zero.at("reason"),
+              "the costs meet only where the annual useful heat is zero: at any annual useful heat above zero, Condensing oil boiler "
+              "stays cheaper");
     // Break-even efficiency of the oil boiler against the heat pump.
     const auto efficiency = json::parse(fw::break_even_json(
         json{{"scenario", switching_scenario()}, {"a", "oil"}, {"b", "lp"}, {"vary", "efficiency"}}.dump()));
