@@ -10,10 +10,11 @@ import { isKiosk } from './kiosk-scenario.js';
 import { registerServiceWorker } from './offline.js';
 import { renderQuoteSheet } from './print.js';
 import {
-  HEAT_PUMP_KINDS, blankWorkspace, fromScenario, fuelId, newFuelKey, toScenario, today, uniqueSystemId, withoutUncertainty,
+  HEAT_PUMP_KINDS, blankWorkspace, fuelId, newFuelKey, toScenario, today, uniqueSystemId, withoutUncertainty,
 } from './scenario.js';
 import {
-  currentQuoteId, isCurrentRecord, loadPreferences, makeRecord, newId, openQuotes, savePreferences, setCurrentQuoteId,
+  currentQuoteId, loadPreferences, makeRecord, migrateRecord, newId, notDeletedMessage, notMigratedMessage, notRestoredMessage,
+  notSavedMessage, openQuotes, recordProblem, savePreferences, setCurrentQuoteId, verdictSummary, workspaceFromFile, workspaceOf,
 } from './storage.js';
 import { Store } from './store.js';
 import { DISPLAY, convert, convertQuantity, convertTemperature, convertTemperatureDifference, unitLabel } from './units.js';
@@ -46,9 +47,12 @@ const panels = {};
 const prefs = { locale: 'en-US', tab: 'house', ...loadPreferences() };
 if (!isLocale(prefs.locale)) prefs.locale = 'en-US';
 
-const verdict = { result: null, errors: [], analysis: null, mc: { state: 'off' }, by: 'annual', fieldErrorCount: 0, sweepFuel: null };
+// `key`: the scenario (without its draws) that `result` answers, so a saved summary always matches its quote
+const verdict = { result: null, key: null, errors: [], analysis: null, mc: { state: 'off' }, by: 'annual', fieldErrorCount: 0, sweepFuel: null };
 const quotes = { records: [], currentId: null, query: '', storageKind: '', undo: null };
 let storage = null;
+/** The persistent message about a write to this device that failed: {kind, text}, or null. */
+let storageAlert = null;
 let evaluateTimer = 0;
 let analysisTimer = 0;
 let drawsTimer = 0;
@@ -163,6 +167,7 @@ function setTab(name) {
   }
   for (const [key, panel] of Object.entries(panels)) panel.classList.toggle('active', key === name);
   document.body.dataset.tab = name;
+  if (name === 'saved' && panels.saved) paintQuotes();  // saves made meanwhile (a summary, a date) are shown
 }
 
 // ---------------------------------------------------------------------------
@@ -201,6 +206,7 @@ async function evaluate() {
   verdictBody.dataset.state = 'loading';
   if (!ws.systems.length) {
     verdict.result = null;
+    verdict.key = null;
     verdict.analysis = null;
     showErrors();
     paintVerdict();
@@ -216,6 +222,7 @@ async function evaluate() {
     const result = await core.evaluate(scenario);
     if (gen !== generation) return;
     verdict.result = result;
+    verdict.key = JSON.stringify(scenario);
     showErrors();
     paintVerdict();
     paintSheet();
@@ -224,9 +231,11 @@ async function evaluate() {
     setProgress(null);
     if (!result.errors?.length) scheduleAnalyses();
     scheduleDraws();
+    if (summaryOutdated()) scheduleSave();
   } catch (failure) {
     if (gen !== generation) return;
     verdict.result = null;
+    verdict.key = null;
     verdict.errors = [{ path: '', message: failure.message }];
     paintVerdict();
     verdictBody.dataset.state = 'failed';
@@ -391,15 +400,56 @@ function scheduleSave() {
   saveTimer = setTimeout(saveNow, SAVE_DEBOUNCE_MS);
 }
 
+/** The summary of the verdict for a scenario: the one on screen if it answers this scenario, else null. */
+function summaryFor(scenario) {
+  return verdict.key === JSON.stringify(withoutUncertainty(scenario)) ? verdictSummary(verdict.result) : null;
+}
+
+/** Whether the saved record of the open quote lacks the summary of the verdict now on screen. */
+function summaryOutdated() {
+  const saved = quotes.records.find((r) => r.id === quotes.currentId);
+  return JSON.stringify(saved?.summary ?? null) !== JSON.stringify(summaryFor(toScenario(store.state)));
+}
+
+/** Shows the persistent message about a failed write (or, with null, hides it). */
+function setStorageAlert(kind, text) {
+  if (storageAlert?.kind === kind && storageAlert?.text === text) return;
+  storageAlert = text ? { kind, text } : null;
+  const box = $('#storage-alert');
+  if (!box) return;
+  box.hidden = !text;
+  const notSaved = kind === 'not-saved';
+  box.replaceChildren(...(text ? [
+    h('p', { id: 'storage-alert-text', text }),
+    h('div', { class: 'card-actions start' },
+      notSaved && h('button', { type: 'button', class: 'secondary', dataset: { action: 'export-json' }, text: 'Export the quote file' }),
+      h('button', { type: 'button', class: 'secondary', dataset: { tab: 'saved' }, text: 'Saved quotes' }),
+      notSaved && h('button', { type: 'button', class: 'secondary', dataset: { action: 'retry-save' }, text: 'Try saving again' })),
+  ] : []));
+}
+
+/** Hides the storage message if it is of one of `kinds`. */
+function clearStorageAlert(...kinds) {
+  if (storageAlert && kinds.includes(storageAlert.kind)) setStorageAlert(null, null);
+}
+
 async function saveNow() {
   clearTimeout(saveTimer);
   if (!storage) return;
   const ws = store.state;
+  const scenario = toScenario(ws);
   const existing = quotes.records.find((r) => r.id === quotes.currentId);
-  const record = makeRecord({ id: quotes.currentId ?? newId(), createdAt: existing?.created_at, workspace: structuredClone(ws), scenario: toScenario(ws) });
+  const record = makeRecord({ id: quotes.currentId ?? newId(), createdAt: existing?.created_at, workspace: structuredClone(ws), scenario, summary: summaryFor(scenario) });
   quotes.currentId = record.id;
   setCurrentQuoteId(record.id);
-  await storage.put(record);
+  try {
+    await storage.put(record);
+  } catch (failure) {
+    // the work stays in the store (memory); the message stays until a save succeeds
+    setStorageAlert('not-saved', notSavedMessage(failure));
+    return;
+  }
+  clearStorageAlert('not-saved', 'not-migrated', 'not-deleted', 'not-restored');
   const i = quotes.records.findIndex((r) => r.id === record.id);
   if (i >= 0) quotes.records[i] = record;
   else quotes.records.push(record);
@@ -621,7 +671,7 @@ function fileStem(ws) {
 async function importFile(file) {
   try {
     const doc = JSON.parse(await file.text());
-    const ws = fromScenario(doc);
+    const ws = workspaceFromFile(doc);
     await openWorkspace(ws);
     quotes.importMessage = { ok: true, text: `Imported “${file.name}”.` };
   } catch (failure) {
@@ -689,15 +739,15 @@ const ACTIONS = {
   'load-demo': () => openWorkspace(demoWorkspace()).then(() => setTab('verdict')),
   'open-quote': async (d) => {
     const record = await storage.get(d.id);
-    if (!record) return;
-    const ws = isCurrentRecord(record) ? record.workspace : fromScenario(record.scenario);
+    if (!record || recordProblem(record)) return;
+    const ws = workspaceOf(record);
     await openWorkspace(ws, { id: record.id, save: false });
     setTab('verdict');
   },
   'duplicate-quote': async (d) => {
     const record = await storage.get(d.id);
-    if (!record) return;
-    const ws = structuredClone(isCurrentRecord(record) ? record.workspace : fromScenario(record.scenario));
+    if (!record || recordProblem(record)) return;
+    const ws = structuredClone(workspaceOf(record));
     ws.quote.customer = ws.quote.customer ? `${ws.quote.customer} (copy)` : '(copy)';
     ws.quote.date = today();
     await openWorkspace(ws);
@@ -709,14 +759,21 @@ const ACTIONS = {
       clearTimeout(saveTimer);
       saveTimer = 0;
     }
-    await storage.delete(d.id);
+    try {
+      await storage.delete(d.id);
+    } catch (failure) {
+      setStorageAlert('not-deleted', notDeletedMessage(record.customer, failure));
+      if (d.id === quotes.currentId) scheduleSave();
+      return;
+    }
+    clearStorageAlert('not-deleted');
     quotes.records = quotes.records.filter((r) => r.id !== d.id);
     quotes.undo = record;
     clearTimeout(undoTimer);
     undoTimer = setTimeout(() => { quotes.undo = null; paintQuotes(); }, 10_000);
     if (d.id === quotes.currentId) {
-      const next = quotes.records.sort((a, b) => (b.updated_at ?? '').localeCompare(a.updated_at ?? ''))[0];
-      if (next) await openWorkspace(isCurrentRecord(next) ? next.workspace : fromScenario(next.scenario), { id: next.id, save: false });
+      const next = quotes.records.filter((r) => !recordProblem(r)).sort((a, b) => (b.updated_at ?? '').localeCompare(a.updated_at ?? ''))[0];
+      if (next) await openWorkspace(workspaceOf(next), { id: next.id, save: false });
       else await openWorkspace(blankWorkspace({ units: store.state.settings.units, currency: store.state.settings.currency }));
     }
     paintQuotes();
@@ -725,12 +782,21 @@ const ACTIONS = {
   'undo-delete': async () => {
     const record = quotes.undo;
     if (!record) return;
-    quotes.undo = null;
     clearTimeout(undoTimer);
-    await storage.put(record);
+    try {
+      await storage.put(record);
+    } catch (failure) {
+      // the deleted record stays in memory with its Undo button until it is written back
+      setStorageAlert('not-restored', notRestoredMessage(record.customer, failure));
+      paintQuotes();
+      return;
+    }
+    clearStorageAlert('not-restored');
+    quotes.undo = null;
     quotes.records.push(record);
     paintQuotes();
   },
+  'retry-save': () => saveNow(),
 };
 
 function onClick(event) {
@@ -856,6 +922,31 @@ function indexCatalog(catalog) {
   return catalog;
 }
 
+/** The stored records: earlier versions migrated and written back once; records this version cannot read kept as they are. */
+async function loadRecords() {
+  const records = (await storage.list()).filter((r) => r && r.id);
+  let failed = 0;
+  let lastFailure = null;
+  for (const [i, record] of records.entries()) {
+    let current;
+    try {
+      current = migrateRecord(record);
+    } catch {
+      continue;  // listed as not openable with its reason (views/quotes.js), never rewritten
+    }
+    if (current === record) continue;
+    records[i] = current;
+    try {
+      await storage.put(current);
+    } catch (failure) {
+      failed += 1;
+      lastFailure = failure;
+    }
+  }
+  if (failed) setStorageAlert('not-migrated', notMigratedMessage(failed, lastFailure));
+  return records;
+}
+
 async function start() {
   for (const panel of document.querySelectorAll('[data-panel]')) panels[panel.dataset.panel] = panel;
   verdictBody = $('#verdict-body');
@@ -868,6 +959,9 @@ async function start() {
   $('.tabs').addEventListener('keydown', onTabKeys);
   for (const name of ['house', 'fuels', 'systems']) bindFields(panels[name], ctx, localErrors);
   wireHeader();
+  // every worker loads with the page: once it is up, using it fetches nothing (offline or not)
+  charts.warm();
+  draws.warm();
   setTab(['house', 'fuels', 'systems', 'verdict', 'saved'].includes(prefs.tab) ? prefs.tab : 'verdict');
 
   try {
@@ -878,12 +972,13 @@ async function start() {
   }
   storage = await openQuotes();
   quotes.storageKind = storage.kind;
-  quotes.records = (await storage.list()).filter((r) => r && r.id);
+  quotes.records = await loadRecords();
   const id = currentQuoteId();
   const record = id ? quotes.records.find((r) => r.id === id) : null;
   let ws;
   try {
-    ws = record ? (isCurrentRecord(record) ? record.workspace : fromScenario(record.scenario)) : null;
+    // a record this version cannot read is never opened, so it is never saved over
+    ws = record ? workspaceOf(record) : null;
   } catch {
     ws = null;
   }

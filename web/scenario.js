@@ -6,8 +6,11 @@
 // carrying its fuel's price. It also keeps the fields of every demand method and
 // climate form, so switching the method picker loses nothing; only the chosen
 // method's fields are sent. Every entered quantity keeps its own unit.
+import { unreadableVersionMessage } from './versions.js';
 
-export const SCENARIO_SCHEMA = 'fuelwright.scenario/1';
+export const SCENARIO_FAMILY = 'fuelwright.scenario';
+export const SCENARIO_VERSION = 1;
+export const SCENARIO_SCHEMA = `${SCENARIO_FAMILY}/${SCENARIO_VERSION}`;
 export const WORKSPACE_VERSION = 1;
 
 /** Option fields that belong to the fuel and its price (kept in `fuels`). */
@@ -388,6 +391,9 @@ function systemFromScenario(sys = {}) {
 /** Builds a workspace from a scenario document (an imported file or an example). */
 export function fromScenario(doc) {
   if (!doc || typeof doc !== 'object' || doc.schema !== SCENARIO_SCHEMA) {
+    if (typeof doc?.schema === 'string' && doc.schema.startsWith(`${SCENARIO_FAMILY}/`)) {
+      throw new Error(unreadableVersionMessage(doc.schema, { family: SCENARIO_FAMILY, newest: SCENARIO_VERSION, what: 'scenarios', field: 'schema' }));
+    }
     throw new Error(`not a Fuelwright scenario: "schema" must be "${SCENARIO_SCHEMA}"`);
   }
   if (!Array.isArray(doc.options)) throw new Error('the scenario has no "options" list');

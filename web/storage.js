@@ -2,10 +2,18 @@
 // "quotes"), or localStorage when IndexedDB is unavailable. Each record carries
 // a schema version. Nothing leaves the device.
 //
-// record: {record_schema, id, created_at, updated_at, customer, site, date, title,
-//          workspace (the page's form state), scenario (fuelwright.scenario/1)}
+// record (fuelwright.saved-quote/2): {record_schema, id, created_at, updated_at,
+//   customer, site, date, title, workspace (the page's form state), scenario
+//   (fuelwright.scenario/1), summary (the verdict when it was saved, or null)}
+// A fuelwright.saved-quote/1 record is the same without `summary`; migrateRecord
+// turns it into a version 2 record. Newer or unknown records are refused, never
+// rewritten.
+import { fromScenario } from './scenario.js';
+import { unreadableVersionMessage, versionOf } from './versions.js';
 
-export const RECORD_SCHEMA = 'fuelwright.saved-quote/1';
+export const RECORD_FAMILY = 'fuelwright.saved-quote';
+export const RECORD_VERSION = 2;
+export const RECORD_SCHEMA = `${RECORD_FAMILY}/${RECORD_VERSION}`;
 const DB_NAME = 'fuelwright';
 const STORE = 'quotes';
 const LS_PREFIX = 'fuelwright.quote.';
@@ -39,8 +47,29 @@ class IdbQuotes {
   #store(mode) { return this.db.transaction(STORE, mode).objectStore(STORE); }
   list() { return request(this.#store('readonly').getAll()); }
   get(id) { return request(this.#store('readonly').get(id)); }
-  async put(record) { await request(this.#store('readwrite').put(record)); return record; }
-  async delete(id) { await request(this.#store('readwrite').delete(id)); }
+  async put(record) { await this.#write((store) => store.put(record)); return record; }
+  async delete(id) { await this.#write((store) => store.delete(id)); }
+  /** Runs one write and settles when it is committed: a full disk or quota aborts the transaction after the request itself succeeded. */
+  #write(fn) {
+    const tx = this.db.transaction(STORE, 'readwrite');
+    const done = committed(tx);
+    try {
+      fn(tx.objectStore(STORE));
+    } catch (failure) {
+      try { tx.abort(); } catch { /* already finished */ }
+      done.catch(() => {});
+      throw failure;
+    }
+    return done;
+  }
+}
+
+/** Resolves when a transaction commits; rejects with its error when it aborts. */
+function committed(tx) {
+  return new Promise((resolve, reject) => {
+    tx.oncomplete = () => resolve();
+    tx.onabort = () => reject(tx.error ?? new DOMException('The write was aborted', 'AbortError'));
+  });
 }
 
 class LocalQuotes {
@@ -97,8 +126,8 @@ export function newId() {
   return `q-${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 10)}`;
 }
 
-/** Makes a record for a workspace and its scenario document. */
-export function makeRecord({ id = newId(), createdAt, workspace, scenario }) {
+/** Makes a record for a workspace, its scenario document and the summary of its verdict (null when there is none). */
+export function makeRecord({ id = newId(), createdAt, workspace, scenario, summary = null }) {
   const now = new Date().toISOString();
   return {
     record_schema: RECORD_SCHEMA,
@@ -111,20 +140,119 @@ export function makeRecord({ id = newId(), createdAt, workspace, scenario }) {
     title: workspace.title ?? '',
     workspace,
     scenario,
+    summary,
   };
 }
 
-/** Whether a stored record can be opened by this version of the page. */
-export const isCurrentRecord = (record) => record?.record_schema === RECORD_SCHEMA && record.workspace;
+/** The summary kept with a record: the cheapest option a year, its cost and currency, how many options; null without a clean verdict. */
+export function verdictSummary(result) {
+  if (!result || result.errors?.length || !Array.isArray(result.options) || !result.ranking?.length) return null;
+  const best = result.options.find((o) => o.id === result.ranking[0].id);
+  if (!best || !Number.isFinite(best.annual_cost)) return null;
+  return {
+    best_id: best.id,
+    best_label: best.label || best.id,
+    annual_cost: best.annual_cost,
+    currency: result.settings?.currency ?? '',
+    option_count: result.options.length,
+  };
+}
+
+/** Whether a record's workspace has the parts the page edits. */
+const usableWorkspace = (ws) => Boolean(ws && typeof ws === 'object' && ws.quote && ws.settings && ws.demand
+  && Array.isArray(ws.fuels) && Array.isArray(ws.systems));
+
+/** Thrown for a record this version of the page cannot read; `schema` is what the record says it is. */
+export class UnreadableRecordError extends Error {
+  name = 'UnreadableRecordError';
+  constructor(message, schema) {
+    super(message);
+    this.schema = schema;
+  }
+}
+
+/**
+ * A stored record as this version reads it: version 1 becomes version 2 (summary
+ * null, every other field kept, the workspace rebuilt from the scenario when it
+ * is missing or damaged); version 2 is returned as it is; a newer or unknown
+ * record throws UnreadableRecordError. Pure: the record passed in is not changed.
+ */
+export function migrateRecord(record) {
+  const schema = record && typeof record === 'object' ? record.record_schema : undefined;
+  const version = versionOf(schema, RECORD_FAMILY);
+  if (version === RECORD_VERSION) return record;
+  if (version !== 1) {
+    throw new UnreadableRecordError(unreadableVersionMessage(schema, { family: RECORD_FAMILY, newest: RECORD_VERSION, what: 'saved quotes', field: 'record_schema' }), schema);
+  }
+  const workspace = usableWorkspace(record.workspace) ? structuredClone(record.workspace) : fromScenario(record.scenario);
+  return { ...structuredClone(record), record_schema: RECORD_SCHEMA, workspace, summary: null };
+}
+
+/** Why a stored record cannot be opened by this version, or null when it can. */
+export function recordProblem(record) {
+  try {
+    workspaceOf(record);
+    return null;
+  } catch (failure) {
+    return failure.message;
+  }
+}
+
+/** The workspace to open for a record (migrated first; a damaged version 2 workspace is rebuilt from its scenario). */
+export function workspaceOf(record) {
+  const current = migrateRecord(record);
+  return usableWorkspace(current.workspace) ? current.workspace : fromScenario(current.scenario);
+}
+
+/** The workspace in an imported file: a scenario document, or a saved-quote record of a version this page reads. */
+export function workspaceFromFile(doc) {
+  if (doc && typeof doc === 'object' && 'record_schema' in doc) return structuredClone(workspaceOf(doc));
+  return fromScenario(doc);
+}
+
+/** Whether a storage failure means the device's storage for this page is full. */
+export const isQuotaError = (failure) => ['QuotaExceededError', 'NS_ERROR_DOM_QUOTA_REACHED'].includes(failure?.name) || failure?.code === 22;
+
+/** Why a write failed, in words for the user. */
+function writeFailure(failure) {
+  if (isQuotaError(failure)) return 'the storage for this page on this device is full';
+  return `the browser refused to store it (${failure?.message || failure?.name || String(failure)})`;
+}
+
+/** The message shown while the open quote could not be saved. */
+export function notSavedMessage(failure) {
+  return `This quote was NOT saved on this device: ${writeFailure(failure)}. Your work is still here while this page stays open. `
+    + 'Export the quote file to keep it, and delete old saved quotes to make room.';
+}
+
+/** The message shown when a deleted quote could not be put back. */
+export function notRestoredMessage(customer, failure) {
+  return `The deleted quote for ${customer || 'no customer'} was NOT put back on this device: ${writeFailure(failure)}. `
+    + 'Delete other old quotes to make room, then press Undo again.';
+}
+
+/** The message shown when a quote could not be deleted. */
+export function notDeletedMessage(customer, failure) {
+  return `The quote for ${customer || 'no customer'} was NOT deleted from this device: ${writeFailure(failure)}.`;
+}
+
+/** The message shown when records of an earlier version could not be written back in the new form. */
+export function notMigratedMessage(count, failure) {
+  const quotes = count === 1 ? '1 saved quote' : `${count} saved quotes`;
+  return `${quotes} from an earlier version of Fuelwright could not be updated on this device: ${writeFailure(failure)}. `
+    + 'They still open as before, and the update is tried again the next time this page starts.';
+}
 
 function local(key) {
   try { return localStorage.getItem(key); } catch { return null; }
 }
+// Best-effort on purpose: a lost preference or current-quote pointer only means
+// the page starts on its defaults (or another quote); no quote is lost with it.
 function setLocal(key, value) {
   try {
     if (value === null) localStorage.removeItem(key);
     else localStorage.setItem(key, value);
-  } catch { /* private mode: not kept */ }
+  } catch { /* private mode or full storage: not kept, see above */ }
 }
 
 export const currentQuoteId = () => local(CURRENT_KEY);

@@ -52,7 +52,11 @@ add_test(NAME browser_webkit
 add_test(NAME browser_firefox
   COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/firefox.test.js"
   WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
-set_tests_properties(browser_chromium browser_webkit browser_firefox PROPERTIES
+# Saved quotes of earlier and later record versions, and a full storage, in Chromium.
+add_test(NAME browser_storage
+  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/storage.test.js"
+  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+set_tests_properties(browser_chromium browser_webkit browser_firefox browser_storage PROPERTIES
   ENVIRONMENT "${FW_BROWSER_ENV}"
   LABELS browser
   TIMEOUT 240
