@@ -864,8 +864,9 @@ function onTabKeys(event) {
 
 function applyPaper() {
   const paper = store.state.settings.paper === 'a4' ? 'a4' : 'letter';
-  $('#paper-letter').disabled = paper !== 'letter';
-  $('#paper-a4').disabled = paper !== 'a4';
+  // both sheets load with the page; the choice only says which one applies (media), so printing fetches nothing
+  $('#paper-letter').media = paper === 'letter' ? 'print' : 'not all';
+  $('#paper-a4').media = paper === 'a4' ? 'print' : 'not all';
   document.documentElement.dataset.paper = paper;
 }
 

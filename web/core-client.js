@@ -93,6 +93,11 @@ export class CoreClient {
     return this.start('evaluateWithProgress', scenario, { onProgress, timeoutMs });
   }
 
+  /** Starts the worker (which loads the module) ahead of the first call, so that the call itself fetches nothing. */
+  warm() {
+    this.#ensureWorker();
+  }
+
   /** Stops the worker (and rejects what is pending); the next call starts a new one. */
   terminate() {
     if (this.#worker) this.#fail(this.#worker, new CancelledError('stopped'));

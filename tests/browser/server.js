@@ -5,10 +5,14 @@ import { createInterface } from 'node:readline';
 
 const PYTHON = process.env.FUELWRIGHT_PYTHON ?? 'python3';
 
-/** Starts the server; resolves to {url, close()} once it listens. */
+/**
+ * Starts the server; resolves to {url, requests, close()} once it listens.
+ * `requests` grows with "GET /path" for every request the server answered.
+ */
 export function serve(dir, { timeoutMs = 10_000 } = {}) {
   const child = spawn(PYTHON, ['-u', '-m', 'http.server', '0', '--bind', '127.0.0.1', '--directory', dir],
     { stdio: ['ignore', 'pipe', 'pipe'] });
+  const requests = [];
   return new Promise((resolve, reject) => {
     const timer = setTimeout(() => {
       child.kill();
@@ -30,6 +34,7 @@ export function serve(dir, { timeoutMs = 10_000 } = {}) {
       child.removeAllListeners('exit');
       resolve({
         url: `http://127.0.0.1:${match[1]}/`,
+        requests,
         close: () => new Promise((done) => {
           if (child.exitCode !== null) return done();
           child.once('exit', () => done());
@@ -37,6 +42,10 @@ export function serve(dir, { timeoutMs = 10_000 } = {}) {
         }),
       });
     });
-    child.stderr.resume();  // request log
+    // the request log: 127.0.0.1 - - [date] "GET /index.html HTTP/1.1" 200 -
+    createInterface({ input: child.stderr }).on('line', (line) => {
+      const request = /"([A-Z]+) (\S+) HTTP\/[\d.]+"/.exec(line);
+      if (request) requests.push(`${request[1]} ${request[2]}`);
+    });
   });
 }

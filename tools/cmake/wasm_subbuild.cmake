@@ -62,6 +62,17 @@ set_tests_properties(browser_chromium browser_webkit browser_firefox browser_sto
   TIMEOUT 240
   RESOURCE_LOCK browser_site)
 
+# Text typed in, imported or read from a price file shown as text and never run;
+# requests only to the site's own origin, and none once the page has loaded offline.
+add_test(NAME browser_security
+  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/security.test.js"
+  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+set_tests_properties(browser_security PROPERTIES
+  ENVIRONMENT "${FW_BROWSER_ENV}"
+  LABELS browser
+  TIMEOUT 240
+  RESOURCE_LOCK browser_site)
+
 # The built site behind nginx with deploy/nginx.conf (nginx in the foreground on a
 # free loopback port, temporary prefix), and the kiosk in Chromium against it.
 find_program(FW_NGINX nginx PATHS /usr/sbin /usr/local/sbin)
