@@ -8,6 +8,7 @@
 #include "fw/api.hpp"
 #include "fw/appraisal.hpp"
 #include "fw/json_fields.hpp"
+#include "fw/roots.hpp"
 #include "fw/units.hpp"
 
 namespace fw {
@@ -173,8 +174,8 @@ struct crossing {
 /// Where cost(a) = cost(b) as the variable changes; linear in price (in 1/efficiency), polished by bisection.
 crossing find_crossing(const analysis_context& context, const variable& v, std::size_t a, std::size_t b) {
     const auto difference = [&](double x) {
-        const auto c = costs(context, with_value(context.input, v, x));
-        return c[a] - c[b];
+        const auto at = with_value(context.input, v, x);
+        return option_cost(context, at, a) - option_cost(context, at, b);
     };
     const bool reciprocal = v.kind == "efficiency";
     const auto to_x = [&](double y) { return reciprocal ? 1.0 / y : y; };
@@ -210,19 +211,7 @@ crossing find_crossing(const analysis_context& context, const variable& v, std::
             flo = difference(lo);
             fhi = difference(hi);
         }
-        if (flo * fhi <= 0) {
-            for (int i = 0; i < 200 && hi - lo > 1e-13 * hi; ++i) {
-                const double mid = 0.5 * (lo + hi);
-                const double fm = difference(mid);
-                if ((fm < 0) == (flo < 0)) {
-                    lo = mid;
-                    flo = fm;
-                } else {
-                    hi = mid;
-                }
-            }
-            x = 0.5 * (lo + hi);
-        }
+        if (flo * fhi <= 0) x = illinois_root(difference, lo, hi, flo, fhi, 1e-12 * scale);
     }
     return {x, ""};
 }

@@ -151,8 +151,19 @@ uncertainty_result monte_carlo(const scenario& input, const evaluation& evaluate
         out.notes.push_back("demand: normal factor with the bills fit's relative standard error " + format_number(demand_cv));
     const std::size_t count = evaluated.results.size();
     std::vector<std::vector<double>> annual(count), lcc(count);
+    for (std::size_t i = 0; i < count; ++i) {
+        annual[i].reserve(static_cast<std::size_t>(std::max(0, u.draws)));
+        lcc[i].reserve(static_cast<std::size_t>(std::max(0, u.draws)));
+    }
     std::vector<int> cheapest(count, 0);
     std::vector<double> lcc_sum(count, 0), lcc_sq(count, 0);
+    // Each cost part's index into `fuels`, found once rather than in every draw.
+    std::vector<std::vector<std::size_t>> part_fuel(count);
+    for (std::size_t i = 0; i < count; ++i)
+        for (const auto& part : evaluated.results[i].cost_parts)
+            part_fuel[i].push_back(static_cast<std::size_t>(std::find(fuels.begin(), fuels.end(), part.fuel_id) - fuels.begin()));
+    std::vector<double> spread;
+    for (const auto& fuel : fuels) spread.push_back(u.spread_of(fuel));
     random_stream random(u.seed);
     std::vector<double> factor(fuels.size());
     const int report_every = std::max(1, u.draws / 100);
@@ -163,7 +174,7 @@ uncertainty_result monte_carlo(const scenario& input, const evaluation& evaluate
             break;
         }
         for (std::size_t f = 0; f < fuels.size(); ++f) {
-            const double s = u.spread_of(fuels[f]);
+            const double s = spread[f];
             if (u.triangular) {
                 // Symmetric triangular on [1 - s, 1 + s] by inverse CDF.
                 const double p = random.uniform();
@@ -181,8 +192,7 @@ uncertainty_result monte_carlo(const scenario& input, const evaluation& evaluate
             double a = 0, pv = x.net_installed_cost + x.replacement_pv - x.residual_pv + x.maintenance_pv;
             for (std::size_t k = 0; k < r.cost_parts.size(); ++k) {
                 const auto& part = r.cost_parts[k];
-                const auto f = std::find(fuels.begin(), fuels.end(), part.fuel_id) - fuels.begin();
-                const double energy = part.energy_cost * factor[f] * demand;
+                const double energy = part.energy_cost * factor[part_fuel[i][k]] * demand;
                 a += energy + part.fixed_cost;
                 pv += (energy + part.fixed_cost) * x.part_upw[k];
             }
@@ -203,15 +213,15 @@ uncertainty_result monte_carlo(const scenario& input, const evaluation& evaluate
         option_uncertainty o;
         o.id = evaluated.results[i].id;
         if (done > 0) {
-            std::sort(annual[i].begin(), annual[i].end());
-            std::sort(lcc[i].begin(), lcc[i].end());
             o.p_cheapest = static_cast<double>(cheapest[i]) / done;
-            o.annual_cost_p10 = quantile_sorted(annual[i], 0.10);
-            o.annual_cost_p50 = quantile_sorted(annual[i], 0.50);
-            o.annual_cost_p90 = quantile_sorted(annual[i], 0.90);
-            o.life_cycle_cost_p10 = quantile_sorted(lcc[i], 0.10);
-            o.life_cycle_cost_p50 = quantile_sorted(lcc[i], 0.50);
-            o.life_cycle_cost_p90 = quantile_sorted(lcc[i], 0.90);
+            const auto a = quantiles(annual[i], {0.10, 0.50, 0.90});
+            const auto l = quantiles(lcc[i], {0.10, 0.50, 0.90});
+            o.annual_cost_p10 = a[0];
+            o.annual_cost_p50 = a[1];
+            o.annual_cost_p90 = a[2];
+            o.life_cycle_cost_p10 = l[0];
+            o.life_cycle_cost_p50 = l[1];
+            o.life_cycle_cost_p90 = l[2];
             o.life_cycle_cost_mean = lcc_sum[i] / done;
             const double variance = std::max(0.0, lcc_sq[i] / done - o.life_cycle_cost_mean * o.life_cycle_cost_mean);
             o.life_cycle_cost_standard_error = std::sqrt(variance / done);

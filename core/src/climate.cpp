@@ -185,22 +185,27 @@ std::vector<temperature_bin> hourly_bins(const climate_model& climate, double wi
     }
     const long first = static_cast<long>(std::floor(low / width_k));
     const long last = static_cast<long>(std::ceil(high / width_k));
-    std::vector<temperature_bin> bins;
-    for (long k = first; k <= last; ++k) {
-        const double centre = k * width_k;
-        const double lower = k == first ? -INFINITY : centre - width_k / 2;
-        const double upper = k == last ? INFINITY : centre + width_k / 2;
-        double hours = 0;
-        for (int m = 0; m < 12; ++m)
-            for (int h = 1; h <= 24; ++h) {
-                const double offset = daily_range_k * diurnal_fraction(h);
-                const double mean = climate.monthly_mean_c[m] + offset;
-                const double above_lower = std::isinf(lower) ? 0.0 : logistic_cdf(lower, mean, climate.daily_sd_k[m]);
-                const double below_upper = std::isinf(upper) ? 1.0 : logistic_cdf(upper, mean, climate.daily_sd_k[m]);
-                hours += days[m] * (below_upper - above_lower);
+    const auto bin_count = static_cast<std::size_t>(last - first + 1);
+    // Hours below each inner edge centre +/- width/2, summed over every month and hour of the day;
+    // a bin's hours are the difference of its two edges (the outer bins take the tails).
+    std::vector<double> below(bin_count + 1, 0.0);
+    below.back() = 24.0 * std::accumulate(days.begin(), days.end(), 0);
+    double offset_k[24];
+    for (int h = 1; h <= 24; ++h) offset_k[h - 1] = daily_range_k * diurnal_fraction(h);
+    for (int m = 0; m < 12; ++m) {
+        const double scale = logistic_scale(climate.daily_sd_k[m]);
+        for (double offset : offset_k) {
+            const double mean = climate.monthly_mean_c[m] + offset;
+            for (std::size_t e = 1; e < bin_count; ++e) {
+                const double edge = (first + static_cast<long>(e)) * width_k - width_k / 2;
+                below[e] += days[m] / (1.0 + std::exp(-(edge - mean) / scale));
             }
-        bins.push_back({centre, hours});
+        }
     }
+    std::vector<temperature_bin> bins;
+    bins.reserve(bin_count);
+    for (std::size_t k = 0; k < bin_count; ++k)
+        bins.push_back({(first + static_cast<long>(k)) * width_k, below[k + 1] - below[k]});
     // Drop empty tails (the outermost bins carry the tails of the distribution).
     while (bins.size() > 1 && bins.front().hours < 1e-6) {
         bins[1].hours += bins.front().hours;
@@ -217,12 +222,12 @@ double design_temperature(const climate_model& climate, double fraction) {
     const double daily_range_k = climate.daily_range_k;
     const auto days = days_in_months(climate.leap_year);
     const double total = 24.0 * std::accumulate(days.begin(), days.end(), 0);
+    double offset_k[24];
+    for (int h = 1; h <= 24; ++h) offset_k[h - 1] = daily_range_k * diurnal_fraction(h);
     const auto share_below = [&](double t) {
         double hours = 0;
         for (int m = 0; m < 12; ++m)
-            for (int h = 1; h <= 24; ++h)
-                hours += days[m] * logistic_cdf(t, climate.monthly_mean_c[m] + daily_range_k * diurnal_fraction(h),
-                                                climate.daily_sd_k[m]);
+            for (double offset : offset_k) hours += days[m] * logistic_cdf(t, climate.monthly_mean_c[m] + offset, climate.daily_sd_k[m]);
         return hours / total;
     };
     return bisect(share_below, fraction, -90.0, 60.0);

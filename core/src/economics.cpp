@@ -1,5 +1,6 @@
 #include "fw/economics.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 namespace fw {
@@ -81,6 +82,24 @@ double quantile_sorted(const std::vector<double>& sorted, double p) {
     const auto lo = static_cast<std::size_t>(std::floor(h));
     const auto hi = std::min(lo + 1, sorted.size() - 1);
     return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
+}
+
+std::vector<double> quantiles(std::vector<double>& values, const std::vector<double>& ascending_p) {
+    std::vector<double> out;
+    if (values.empty()) return std::vector<double>(ascending_p.size(), 0.0);
+    // After each selection the values from the p-th order statistic on lie at or after it.
+    auto from = values.begin();
+    for (double p : ascending_p) {
+        const double h = (values.size() - 1) * p;
+        const auto lo = static_cast<std::ptrdiff_t>(std::floor(h));
+        const auto nth = values.begin() + lo;
+        std::nth_element(from, nth, values.end());
+        const double a = *nth;
+        const double b = nth + 1 == values.end() ? a : *std::min_element(nth + 1, values.end());
+        out.push_back(a + (h - static_cast<double>(lo)) * (b - a));
+        from = nth;
+    }
+    return out;
 }
 
 }  // namespace fw

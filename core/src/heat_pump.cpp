@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "fw/error.hpp"
+#include "fw/roots.hpp"
 
 namespace fw {
 
@@ -107,13 +108,13 @@ double region_iv_seasonal_cop(const std::vector<heat_pump_point>& points) {
 }
 
 std::vector<heat_pump_point> default_points_for_seasonal_cop(double seasonal_cop, double capacity_47_kw) {
-    double lo = 1.0, hi = 12.0;
-    for (int i = 0; i < 100; ++i) {
-        const double mid = 0.5 * (lo + hi);
-        if (region_iv_seasonal_cop(default_points(mid, capacity_47_kw)) < seasonal_cop) lo = mid;
-        else hi = mid;
-    }
-    return default_points(0.5 * (lo + hi), capacity_47_kw);
+    // The seasonal COP rises monotonically with the COP at 47 degF; solve on [1, 12].
+    const auto gap = [&](double cop_47) { return region_iv_seasonal_cop(default_points(cop_47, capacity_47_kw)) - seasonal_cop; };
+    const double lo = 1.0, hi = 12.0;
+    const double g_lo = gap(lo), g_hi = gap(hi);
+    if (g_lo >= 0) return default_points(lo, capacity_47_kw);
+    if (g_hi <= 0) return default_points(hi, capacity_47_kw);
+    return default_points(illinois_root(gap, lo, hi, g_lo, g_hi, 1e-13 * seasonal_cop), capacity_47_kw);
 }
 
 }  // namespace fw

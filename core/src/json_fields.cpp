@@ -20,17 +20,31 @@ nlohmann::json parse_request(const std::string& text) {
     }
 }
 
-static void check_finite(const nlohmann::json& value, const std::string& path) {
-    if (value.is_number_float() && !std::isfinite(value.get<double>()))
-        throw input_error(path, "internal error: a result came out as " + format_number(value.get<double>()) +
-                                    "; please report the scenario");
-    if (value.is_object())
-        for (const auto& item : value.items()) check_finite(item.value(), path + "/" + item.key());
-    if (value.is_array())
-        for (std::size_t i = 0; i < value.size(); ++i) check_finite(value[i], path + "/" + std::to_string(i));
+struct non_finite {
+    std::string path;  ///< JSON pointer below the walked value
+    double value;
+};
+
+/// The first non-finite number under `value`, if any; the path is built only on the way back from a
+/// find, so a clean walk allocates nothing.
+static std::optional<non_finite> first_non_finite(const nlohmann::json& value) {
+    if (value.is_number_float()) {
+        if (!std::isfinite(value.get<double>())) return non_finite{"", value.get<double>()};
+    } else if (value.is_object()) {
+        for (auto it = value.begin(); it != value.end(); ++it)
+            if (auto below = first_non_finite(it.value())) return non_finite{"/" + it.key() + below->path, below->value};
+    } else if (value.is_array()) {
+        for (std::size_t i = 0; i < value.size(); ++i)
+            if (auto below = first_non_finite(value[i])) return non_finite{"/" + std::to_string(i) + below->path, below->value};
+    }
+    return std::nullopt;
 }
 
-void require_finite_output(const nlohmann::json& value) { check_finite(value, ""); }
+void require_finite_output(const nlohmann::json& value) {
+    if (const auto bad = first_non_finite(value))
+        throw input_error(bad->path, "internal error: a result came out as " + format_number(bad->value) +
+                                         "; please report the scenario");
+}
 
 void require_object(const nlohmann::json& value, const std::string& path) {
     if (!value.is_object()) throw input_error(path, "must be a JSON object, got " + std::string(value.type_name()));

@@ -55,6 +55,27 @@ TEST(economics, random_stream_is_the_standard_mt19937_64) {
     EXPECT_NEAR(sq / 1e5, 1.0, 0.02);
 }
 
+
+TEST(economics, quantiles_by_selection_match_the_sorted_definition) {
+    // Hyndman & Fan type 7 (R's and NumPy's default): the 0.1-quantile of 1..10 is 1.9 and the
+    // median 5.5 (NumPy's numpy.quantile documentation, from memory).
+    std::vector<double> ten = {7, 3, 10, 1, 9, 2, 8, 4, 6, 5};
+    const auto q = fw::quantiles(ten, {0.10, 0.50, 0.90});
+    EXPECT_DOUBLE_EQ(q[0], 1.9);
+    EXPECT_DOUBLE_EQ(q[1], 5.5);
+    EXPECT_DOUBLE_EQ(q[2], 9.1);
+    // Identity with sort + quantile_sorted on random data with ties, for several sizes.
+    fw::random_stream random(7);
+    for (std::size_t n : {1u, 2u, 3u, 10u, 1001u}) {
+        std::vector<double> values;
+        for (std::size_t i = 0; i < n; ++i) values.push_back(std::floor(random.uniform() * 50));
+        auto sorted = values;
+        std::sort(sorted.begin(), sorted.end());
+        const std::vector<double> ps = {0.0, 0.10, 0.25, 0.50, 0.90, 1.0};
+        const auto selected = fw::quantiles(values, ps);
+        for (std::size_t k = 0; k < ps.size(); ++k) EXPECT_EQ(selected[k], fw::quantile_sorted(sorted, ps[k])) << n << " " << ps[k];
+    }
+}
 json switching_scenario(const json& patch = json::object()) {
     json s = {{"schema", "fuelwright.scenario/1"},
               {"settings", {{"units", "us"}, {"currency", "USD"}, {"electricity_co2e_kg_per_kwh", 0.4}}},

@@ -133,6 +133,19 @@ TEST(properties, no_output_field_is_nan_or_infinite) {
     EXPECT_EQ(big.at("errors")[0].at("message"), "the converted value is too large to represent");
 }
 
+TEST(properties, a_non_finite_result_is_refused_with_its_path) {
+    // The guard every entry point runs on its answer before it is written.
+    EXPECT_NO_THROW(fw::json_fields::require_finite_output(json{{"a", {1.5, 2}}, {"b", {{"c", "text"}}}}));
+    json bad = {{"options", {{{"id", "x"}, {"cost", 1.0}}, {{"id", "y"}, {"cost", {1.0, std::nan("")}}}}}};
+    try {
+        fw::json_fields::require_finite_output(bad);
+        ADD_FAILURE() << "a NaN passed";
+    } catch (const fw::input_error& error) {
+        EXPECT_EQ(error.path(), "/options/1/cost/1");
+        EXPECT_EQ(error.message(), "internal error: a result came out as NaN; please report the scenario");
+    }
+}
+
 TEST(properties, limits_have_clear_errors) {
     const std::string huge(fw::json_fields::max_request_bytes + 1, ' ');
     const auto result = json::parse(fw::evaluate_json(huge));
