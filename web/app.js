@@ -58,6 +58,8 @@ let analysisTimer = 0;
 let drawsTimer = 0;
 let saveTimer = 0;
 let generation = 0;
+let evaluationsRunning = 0;
+let lastEvaluateStart = -Infinity;
 let analysisGeneration = 0;
 let undoTimer = 0;
 let verdictBody = null;
@@ -195,12 +197,28 @@ function setProgress(state) {
   $('#verdict-state').textContent = state.label ?? 'Working out…';
 }
 
-function scheduleEvaluate(delay = EVALUATE_DEBOUNCE_MS) {
+/**
+ * Evaluates after an edit: at once when the core is idle and has not started a run in the last
+ * EVALUATE_DEBOUNCE_MS, so a single edit repaints in the same few frames; otherwise (typing) once
+ * the edits pause, so a burst of keystrokes costs one run.
+ */
+function scheduleEvaluate(delay) {
   clearTimeout(evaluateTimer);
-  evaluateTimer = setTimeout(evaluate, delay);
+  const idle = evaluationsRunning === 0 && performance.now() - lastEvaluateStart >= EVALUATE_DEBOUNCE_MS;
+  evaluateTimer = setTimeout(evaluate, delay ?? (idle ? 0 : EVALUATE_DEBOUNCE_MS));
 }
 
 async function evaluate() {
+  evaluationsRunning += 1;
+  lastEvaluateStart = performance.now();
+  try {
+    await evaluateNow();
+  } finally {
+    evaluationsRunning -= 1;
+  }
+}
+
+async function evaluateNow() {
   const ws = store.state;
   const gen = ++generation;
   verdictBody.dataset.state = 'loading';

@@ -1,4 +1,4 @@
-// Service worker: precaches everything the site ships into a versioned cache
+// Service worker: precaches everything the page runs on into a versioned cache
 // on install, deletes older caches on activate and answers GETs cache-first.
 // tools/build-site replaces the MANIFEST line below with the list of shipped
 // files and a hash of their contents; unbuilt, it precaches nothing.

@@ -35,6 +35,7 @@ struct analysis_context {
     economics_settings economics;
     basis cost_basis = basis::annual;
     std::vector<issue> warnings;
+    std::vector<double> today_costs;  ///< every option's annual or life-cycle cost at today's inputs [currency]
 };
 
 analysis_context read_context(const json& request) {
@@ -52,6 +53,17 @@ analysis_context read_context(const json& request) {
         throw input_error("/basis", "must be annual or life-cycle, got \"" + basis_text + "\"");
     context.cost_basis = basis_text == "annual" ? basis::annual : basis::life_cycle;
     context.economics = context.input.economics.value_or(economics_settings{});
+    if (context.cost_basis == basis::annual) {
+        for (const auto& r : evaluated.results) context.today_costs.push_back(r.annual_cost);
+    } else {
+        for (std::size_t k = 0; k < evaluated.results.size(); ++k) {
+            // One option at a time, as option_cost appraises it.
+            evaluation one;
+            one.results.push_back(evaluated.results[k]);
+            one.options.push_back(&context.input.options[k]);
+            context.today_costs.push_back(appraise(context.input, one, context.economics, std::nullopt).front().life_cycle_cost);
+        }
+    }
     if (context.cost_basis == basis::life_cycle && !context.economics.given)
         context.warnings.push_back({"/scenario/economics", "no economics given: " + std::to_string(context.economics.analysis_years) +
                                                                " years at " + format_number(100 * context.economics.discount_rate) +
@@ -155,6 +167,17 @@ scenario with_value(const scenario& input, const variable& v, double x) {
     return out;
 }
 
+/// Whether option k's cost can change with the variable: its own price or efficiency, that of its dual-fuel
+/// backup, or the demand. An option that cannot keeps today's cost at every value.
+bool depends_on(const scenario& input, const variable& v, std::size_t k) {
+    if (v.kind == "demand") return true;
+    const auto varied = [&](std::size_t i) { return std::find(v.options.begin(), v.options.end(), i) != v.options.end(); };
+    if (varied(k)) return true;
+    for (std::size_t i = 0; i < input.options.size(); ++i)
+        if (varied(i) && input.options[i].id == input.options[k].backup) return true;
+    return false;
+}
+
 /// The largest value the rating allows (efficiencies), or infinity.
 double upper_limit(const scenario_option& option) {
     switch (option.system.rating) {
@@ -173,9 +196,12 @@ struct crossing {
 
 /// Where cost(a) = cost(b) as the variable changes; linear in price (in 1/efficiency), polished by bisection.
 crossing find_crossing(const analysis_context& context, const variable& v, std::size_t a, std::size_t b) {
+    const auto cost_of = [&](const scenario& at, std::size_t k) {
+        return depends_on(context.input, v, k) ? option_cost(context, at, k) : context.today_costs[k];
+    };
     const auto difference = [&](double x) {
         const auto at = with_value(context.input, v, x);
-        return option_cost(context, at, a) - option_cost(context, at, b);
+        return cost_of(at, a) - cost_of(at, b);
     };
     const bool reciprocal = v.kind == "efficiency";
     const auto to_x = [&](double y) { return reciprocal ? 1.0 / y : y; };
@@ -283,6 +309,10 @@ json sweep(const json& request, std::vector<issue>& warnings) {
     const int checks[] = {0, (n - 1) / 3, 2 * (n - 1) / 3, n - 1};
     for (int i : checks) probes.push_back(with_value(context.input, v, grid[i]));
     for (std::size_t k = 0; k < context.input.options.size(); ++k) {
+        if (!depends_on(context.input, v, k)) {
+            series[k] = json(std::vector<double>(static_cast<std::size_t>(n), context.today_costs[k]));
+            continue;
+        }
         double c[4];
         for (int j = 0; j < 4; ++j) c[j] = option_cost(context, probes[j], k);
         const double u0 = coordinate(grid[checks[0]]), u3 = coordinate(grid[checks[3]]);
