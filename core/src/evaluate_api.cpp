@@ -65,9 +65,10 @@ json option_json(const option_result& r, const scenario& input) {
             out["backup_fuel_quantity"] = {{"value", r.backup_fuel_quantity}, {"unit", r.backup_fuel_unit}};
         }
         out["bin_cop_range"] = {r.season->lowest_bin_cop, r.season->highest_bin_cop};
+        // The bins where the house needs heat (below the balance point); result.climate.bins has them all.
         json bins = json::array();
         for (const auto& bin : r.season->bins)
-            bins.push_back({{"t", convert(bin.t_c, "degC", unit)},
+            if (bin.load_kw > 0) bins.push_back({{"t", convert(bin.t_c, "degC", unit)},
                             {"hours", bin.hours},
                             {"load_kw", bin.load_kw},
                             {"capacity_kw", bin.capacity_kw},

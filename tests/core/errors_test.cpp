@@ -1,9 +1,13 @@
 // Bad input: every message is part of the interface, so the tests pin the text.
 #include <gtest/gtest.h>
 
+#include <cmath>
+#include <cstdio>
 #include <nlohmann/json.hpp>
 
 #include "fw/api.hpp"
+#include "fw/economics.hpp"
+#include "fw/error.hpp"
 
 namespace {
 
@@ -153,6 +157,28 @@ TEST(errors, conversions) {
     const auto good = json::parse(fw::convert_json(R"({"value": 1, "from": "therm", "to": "kWh"})"));
     EXPECT_EQ(good.at("unit"), "kWh");
     EXPECT_DOUBLE_EQ(good.at("value").get<double>(), 105505585.262 / 3.6e6);
+}
+
+}  // namespace
+
+namespace {
+
+TEST(errors, numbers_in_messages_are_printed_as_printf_would) {
+    // The C library's printf (%.*f, %.6g) is the reference the message text was written against.
+    const auto printf_text = [](const char* format, auto... args) {
+        char buffer[512];
+        std::snprintf(buffer, sizeof buffer, format, args...);
+        return std::string(buffer);
+    };
+    fw::random_stream random(11);
+    std::vector<double> values = {0.0, -0.0, 0.5, 1.5, 2.5, 0.125, 1e-7, 123456.5, 999999.5, 1e21, -3.75, 1e300, 5e-324};
+    for (int i = 0; i < 2000; ++i) values.push_back((random.uniform() - 0.5) * std::pow(10.0, std::floor(random.uniform() * 30 - 12)));
+    for (double v : values) {
+        for (int decimals : {0, 1, 2, 3, 6}) EXPECT_EQ(fw::format_fixed(v, decimals), printf_text("%.*f", decimals, v)) << v;
+        EXPECT_EQ(fw::format_number(v), printf_text("%.6g", v)) << v;
+    }
+    EXPECT_EQ(fw::format_number(std::nan("")), "NaN");
+    EXPECT_EQ(fw::format_number(-INFINITY), "-Infinity");
 }
 
 }  // namespace
