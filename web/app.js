@@ -215,7 +215,20 @@ async function evaluate() {
     await evaluateNow();
   } finally {
     evaluationsRunning -= 1;
+    warmHelpers();
   }
+}
+
+let helpersWarm = false;
+/**
+ * Starts the charts' and the draws' workers once the first verdict is painted (not before, so their
+ * module loads do not compete with the first verdict's): from then on, using them fetches nothing.
+ */
+function warmHelpers() {
+  if (helpersWarm) return;
+  helpersWarm = true;
+  charts.warm();
+  draws.warm();
 }
 
 async function evaluateNow() {
@@ -978,9 +991,6 @@ async function start() {
   $('.tabs').addEventListener('keydown', onTabKeys);
   for (const name of ['house', 'fuels', 'systems']) bindFields(panels[name], ctx, localErrors);
   wireHeader();
-  // every worker loads with the page: once it is up, using it fetches nothing (offline or not)
-  charts.warm();
-  draws.warm();
   setTab(['house', 'fuels', 'systems', 'verdict', 'saved'].includes(prefs.tab) ? prefs.tab : 'verdict');
 
   try {
