@@ -141,8 +141,14 @@ function paintQuotes() {
   keepingFocus(() => renderQuotes(panels.saved, ctx, quotes));
 }
 
+/** The quote sheet, with the break-even and the price draws only when they belong to the verdict it shows. */
 function paintSheet() {
-  renderQuoteSheet($('#quote-sheet'), ctx, verdict.result);
+  const a = verdict.analysis;
+  const shown = Number(verdictBody?.dataset.generation);
+  const breakEven = a?.state === 'done' && a.gen === shown ? a.breakEven : null;
+  const mc = verdict.mc;
+  const draws = mc?.state === 'done' && mc.key === JSON.stringify(toScenario(store.state)) ? mc.uncertainty : null;
+  renderQuoteSheet($('#quote-sheet'), ctx, verdict.result, { breakEven, draws });
 }
 
 function showErrors() {
@@ -329,8 +335,9 @@ async function runAnalyses() {
     if (gen !== generation || run !== analysisGeneration) return;
     verdict.analysis = sweep.errors?.length
       ? { state: 'error', fuelIndex, message: sweep.errors.map((e) => e.message).join('; ') }
-      : { state: 'done', fuelIndex, fuelName: name, of, basis, sweep, breakEven, pair: { a, b }, tornado };
+      : { state: 'done', gen, fuelIndex, fuelName: name, of, basis, sweep, breakEven, pair: { a, b }, tornado };
     paintVerdict();
+    paintSheet();
     verdictBody.dataset.analysis = String(gen);
     verdictBody.dataset.sweep = String(gen);
   } catch (failure) {
@@ -421,6 +428,7 @@ async function runDraws() {
   verdictBody.dataset.draws = verdict.mc.state;
   showErrors();
   paintVerdict();
+  paintSheet();
 }
 
 // ---------------------------------------------------------------------------

@@ -1,6 +1,7 @@
 // The quote sheet: a print-only page (@media print, A4 or US Letter) with the
 // customer and site, date, assumptions, the results table, the annual-cost
-// chart, the cautions and a disclaimer. Printed or saved as PDF by the browser.
+// chart, what could change the ranking (the break-even price of the two leading
+// options, the price draws), the cautions and a disclaimer. Printed or saved as PDF by the browser.
 import { h } from './dom.js';
 import { costBars } from './charts.js';
 import { fuelName } from './views/fuels.js';
@@ -57,8 +58,28 @@ function resultsTable(ws, result, ctx) {
     })));
 }
 
-/** Rebuilds the quote sheet into `sheet` from the workspace and the latest result. */
-export function renderQuoteSheet(sheet, ctx, result) {
+/** A message of the core as a sentence: capital first letter, full stop. */
+const sentence = (text) => (text ? `${text[0].toUpperCase()}${text.slice(1)}${/[.!?]$/.test(text) ? '' : '.'}` : '');
+
+/** What could change the ranking: the break-even price of the two leading options and the price draws. */
+function sensitivity(result, ctx, { breakEven, draws }) {
+  const lines = [];
+  if (breakEven && !(breakEven.errors ?? []).length) lines.push(sentence(breakEven.break_even ? breakEven.statement : breakEven.reason));
+  const best = draws?.options?.length ? [...draws.options].sort((a, b) => (b.p_cheapest ?? 0) - (a.p_cheapest ?? 0))[0] : null;
+  if (best && draws.draws > 0) {
+    const label = result.options.find((o) => o.id === best.id)?.label ?? best.id;
+    lines.push(`In ${ctx.format.number(draws.draws)} random draws of the fuel prices, ${label} had the lowest life-cycle cost `
+      + `${ctx.format.percent(best.p_cheapest, 1)} of the time.`);
+  }
+  return lines.length ? h('section', { id: 'sheet-sensitivity' }, h('h2', { text: 'What could change the ranking' }),
+    h('ul', {}, lines.map((text) => h('li', { text })))) : null;
+}
+
+/**
+ * Rebuilds the quote sheet into `sheet` from the workspace and the latest result; `extra` carries the
+ * break-even answer and the price draws when they belong to that result.
+ */
+export function renderQuoteSheet(sheet, ctx, result, extra = {}) {
   const ws = ctx.store.state;
   const { format } = ctx;
   const q = ws.quote;
@@ -75,6 +96,8 @@ export function renderQuoteSheet(sheet, ctx, result) {
     parts.push(h('section', {}, h('h2', { text: 'Results' }), resultsTable(ws, result, ctx)));
     const rows = rankedOptions(result, 'annual').map((o) => ({ id: o.id, label: o.label ?? o.id, energy: o.energy_cost, fixed: o.fixed_cost }));
     parts.push(h('section', { class: 'sheet-chart' }, h('h2', { text: 'Cost per year' }), costBars(rows, { money: format.money, title: 'Annual cost: energy and fixed charges' })));
+    const changes = sensitivity(result, ctx, extra);
+    if (changes) parts.push(changes);
   } else {
     parts.push(h('p', { text: 'The comparison is not complete: see the workspace for the entries that need attention.' }));
   }

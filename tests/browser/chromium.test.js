@@ -258,13 +258,27 @@ describe('Chromium, tablet portrait 820x1180 with touch', () => {
     await typeInto('#f-fuels-0-spread', '25');
     await tab('verdict');
     // a long run: progress moves, then Cancel stops it (the worker is replaced: this server does not isolate the page)
-    await page.waitForFunction(() => document.querySelector('#uncertainty')?.dataset.state === 'running'
-      && Number(document.querySelector('#mc-progress')?.getAttribute('aria-valuenow')) > 0, null, { timeout: 20_000 });
-    assert.ok(await page.isVisible('#mc-progress'));
-    assert.match(await page.textContent('#mc-status'), /Drawing prices… \d+%/);
-    await page.locator('#uncertainty').screenshot({ path: join(ARTIFACTS, 'chromium-draws-running.png') });
+    // 200,000 draws of the demo take about a second: the progress is read and Cancel pressed in the
+    // page itself, in the frame where the progress first moves, so the run cannot end in between.
+    const running = await page.evaluate(() => new Promise((resolve, reject) => {
+      const until = performance.now() + 20_000;
+      const look = () => {
+        const bar = document.querySelector('#mc-progress');
+        if (document.querySelector('#uncertainty')?.dataset.state === 'running' && Number(bar?.getAttribute('aria-valuenow')) > 0) {
+          const seen = { visible: bar.getClientRects().length > 0 && !bar.closest('[hidden]'), status: document.querySelector('#mc-status').textContent };
+          document.querySelector('#mc-cancel').click();
+          resolve(seen);
+        } else if (performance.now() > until) {
+          reject(new Error('the draws never showed progress'));
+        } else {
+          requestAnimationFrame(look);
+        }
+      };
+      look();
+    }));
     const startedCancel = Date.now();
-    await page.tap('#mc-cancel');
+    assert.ok(running.visible, 'the progress bar shows while the draws run');
+    assert.match(running.status, /Drawing prices… \d+%/);
     await page.waitForFunction(() => document.querySelector('#uncertainty')?.dataset.state === 'cancelled', null, { timeout: 3000 });
     assert.ok(Date.now() - startedCancel < 3000);
     assert.equal(await page.textContent('#mc-status'), 'Cancelled.');
@@ -528,6 +542,12 @@ describe('Chromium, tablet portrait 820x1180 with touch', () => {
       assert.deepEqual(cautions, cli.cautions);
       assert.ok(cautions.every((c) => c.length > 0));
       assert.equal(await page.textContent('#sheet-customer'), 'Pat and Robin Example (invented)');
+      // The sheet repeats the verdict's break-even statement once the charts' analyses are in.
+      await page.waitForSelector('#break-even-statement', { state: 'attached' });
+      const statement = await page.textContent('#break-even-statement');
+      const sheetLines = await page.$$eval('#sheet-sensitivity li', (items) => items.map((li) => li.textContent));
+      assert.ok(statement.length > 20);
+      assert.equal(sheetLines[0], statement);
       assert.equal(await page.locator('#quote-sheet .sheet-chart svg').count(), 1);
     } finally {
       await page.emulateMedia({ media: 'screen' });
