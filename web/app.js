@@ -26,7 +26,6 @@ import { KIND_NAMES, renderSystems } from './views/systems.js';
 import { openTrace } from './views/trace.js';
 import { bindVerdict, rankedOptions, renderVerdict, resultsCsv, showDrawProgress } from './views/verdict.js';
 
-const EVALUATE_DEBOUNCE_MS = 150;
 const ANALYSIS_DEBOUNCE_MS = 350;
 const DRAWS_DEBOUNCE_MS = 1200;
 const SAVE_DEBOUNCE_MS = 400;
@@ -58,8 +57,8 @@ let analysisTimer = 0;
 let drawsTimer = 0;
 let saveTimer = 0;
 let generation = 0;
-let evaluationsRunning = 0;
-let lastEvaluateStart = -Infinity;
+let evaluationRunning = false;
+let evaluateQueued = false;
 let analysisGeneration = 0;
 let undoTimer = 0;
 let verdictBody = null;
@@ -204,25 +203,32 @@ function setProgress(state) {
 }
 
 /**
- * Evaluates after an edit: at once when the core is idle and has not started a run in the last
- * EVALUATE_DEBOUNCE_MS, so a single edit repaints in the same few frames; otherwise (typing) once
- * the edits pause, so a burst of keystrokes costs one run.
+ * Evaluates after an edit: at once when the core is idle, so a single edit repaints within a few
+ * frames. An edit made while a run is under way drops that run's (now stale) answer and queues one
+ * more run, started as soon as the current one ends: a burst of keystrokes costs at most two runs,
+ * and the verdict reads 'loading' from the first keystroke to the answer for the last.
  */
-function scheduleEvaluate(delay) {
+function scheduleEvaluate() {
   clearTimeout(evaluateTimer);
-  const idle = evaluationsRunning === 0 && performance.now() - lastEvaluateStart >= EVALUATE_DEBOUNCE_MS;
-  evaluateTimer = setTimeout(evaluate, delay ?? (idle ? 0 : EVALUATE_DEBOUNCE_MS));
+  if (verdictBody) verdictBody.dataset.state = 'loading';
+  if (evaluationRunning) {
+    generation += 1;  // the running answer is for an older state: not painted
+    evaluateQueued = true;
+    return;
+  }
+  evaluateTimer = setTimeout(evaluate, 0);
 }
 
 async function evaluate() {
-  evaluationsRunning += 1;
-  lastEvaluateStart = performance.now();
+  evaluationRunning = true;
+  evaluateQueued = false;
   try {
     await evaluateNow();
   } finally {
-    evaluationsRunning -= 1;
+    evaluationRunning = false;
     warmHelpers();
   }
+  if (evaluateQueued) evaluate();
 }
 
 let helpersWarm = false;
