@@ -52,7 +52,6 @@ const quotes = { records: [], currentId: null, query: '', storageKind: '', undo:
 let storage = null;
 /** The persistent message about a write to this device that failed: {kind, text}, or null. */
 let storageAlert = null;
-let evaluateTimer = 0;
 let analysisTimer = 0;
 let drawsTimer = 0;
 let saveTimer = 0;
@@ -209,14 +208,13 @@ function setProgress(state) {
  * and the verdict reads 'loading' from the first keystroke to the answer for the last.
  */
 function scheduleEvaluate() {
-  clearTimeout(evaluateTimer);
   if (verdictBody) verdictBody.dataset.state = 'loading';
   if (evaluationRunning) {
     generation += 1;  // the running answer is for an older state: not painted
     evaluateQueued = true;
     return;
   }
-  evaluateTimer = setTimeout(evaluate, 0);
+  evaluate();  // posts to the worker before this task goes on painting, so the two overlap
 }
 
 async function evaluate() {
@@ -946,6 +944,7 @@ function wireHeader() {
 }
 
 function onStoreChange(change) {
+  scheduleEvaluate();
   if (change.reason === 'load' || change.reason === 'display') {
     refreshFormat();
     paintHeader();
@@ -955,7 +954,6 @@ function onStoreChange(change) {
   } else if (change.reason === 'structure') {
     paintInputs();
   }
-  scheduleEvaluate();
   scheduleSave();
 }
 
