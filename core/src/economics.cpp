@@ -84,20 +84,40 @@ double quantile_sorted(const std::vector<double>& sorted, double p) {
     return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
 }
 
+namespace {
+
+/// Puts the order statistics at the sorted indices [first, last) of `values` in place, within [lo, hi):
+/// selects the middle one, then the others in the part below or above it (Hoare's multiselect).
+void multiselect(std::vector<double>& values, std::size_t lo, std::size_t hi, const std::size_t* first, const std::size_t* last) {
+    if (first == last || hi - lo < 2) return;
+    const std::size_t* middle = first + (last - first) / 2;
+    std::nth_element(values.begin() + static_cast<std::ptrdiff_t>(lo), values.begin() + static_cast<std::ptrdiff_t>(*middle),
+                     values.begin() + static_cast<std::ptrdiff_t>(hi));
+    multiselect(values, lo, *middle, first, middle);
+    multiselect(values, *middle + 1, hi, middle + 1, last);
+}
+
+}  // namespace
+
 std::vector<double> quantiles(std::vector<double>& values, const std::vector<double>& ascending_p) {
-    std::vector<double> out;
     if (values.empty()) return std::vector<double>(ascending_p.size(), 0.0);
-    // After each selection the values from the p-th order statistic on lie at or after it.
-    auto from = values.begin();
-    for (double p : ascending_p) {
-        const double h = (values.size() - 1) * p;
-        const auto lo = static_cast<std::ptrdiff_t>(std::floor(h));
-        const auto nth = values.begin() + lo;
-        std::nth_element(from, nth, values.end());
-        const double a = *nth;
-        const double b = nth + 1 == values.end() ? a : *std::min_element(nth + 1, values.end());
-        out.push_back(a + (h - static_cast<double>(lo)) * (b - a));
-        from = nth;
+    // Each quantile needs the order statistics k = floor(h) and k + 1, h = (n - 1) p: the k are selected,
+    // and each k + 1 is the smallest value between its k and the next selected one.
+    const std::size_t n = values.size();
+    std::vector<std::size_t> ks;
+    for (double p : ascending_p) ks.push_back(static_cast<std::size_t>(std::floor((n - 1) * p)));
+    std::vector<std::size_t> distinct = ks;
+    distinct.erase(std::unique(distinct.begin(), distinct.end()), distinct.end());
+    multiselect(values, 0, n, distinct.data(), distinct.data() + distinct.size());
+    std::vector<double> out;
+    for (std::size_t i = 0; i < ks.size(); ++i) {
+        const std::size_t k = ks[i];
+        const auto next = std::upper_bound(distinct.begin(), distinct.end(), k);
+        const std::size_t end = next == distinct.end() ? n : *next;
+        const auto begin = values.begin() + static_cast<std::ptrdiff_t>(k + 1);
+        const double a = values[k];
+        const double b = k + 1 >= n ? a : k + 1 == end ? values[end] : *std::min_element(begin, values.begin() + static_cast<std::ptrdiff_t>(end));
+        out.push_back(a + ((n - 1) * ascending_p[i] - static_cast<double>(k)) * (b - a));
     }
     return out;
 }

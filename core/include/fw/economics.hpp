@@ -46,7 +46,7 @@ private:
 /// [value] The p-quantile (0..1) of sorted data, linear between order statistics (Hyndman & Fan type 7).
 double quantile_sorted(const std::vector<double>& sorted, double p);
 
-/// [value] The same quantiles of unsorted data for ascending p, found by selection (std::nth_element) rather
+/// [value] The same quantiles of unsorted data for ascending p, found by selection (multiselect over std::nth_element) rather
 /// than a full sort: O(n) per quantile; `values` is reordered.
 std::vector<double> quantiles(std::vector<double>& values, const std::vector<double>& ascending_p);
 
