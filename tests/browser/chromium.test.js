@@ -12,14 +12,13 @@ import { after, before, describe, test } from 'node:test';
 
 import { chromium } from 'playwright-core';
 
+import { CHROMIUM, CHROMIUM_ARGS, verdictSettled, watchPage } from './chromium-page.js';
+
 import { cliJson, siteDir } from '../node/helpers.js';
 import { serve } from './server.js';
 import { TYPED, cliEvaluate, close, money, typedScenario } from './scenario-fixture.js';
 
 const TIMEOUT = 30_000;
-const CHROMIUM = process.env.FUELWRIGHT_CHROMIUM ?? '/usr/bin/chromium';
-const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
-  '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 const ARTIFACTS = resolve(process.env.FUELWRIGHT_ARTIFACTS ?? join(siteDir, '..', 'test-artifacts'));
 const MMBTU_KWH = 293.07107017222222;
 const root = resolve(import.meta.dirname ?? new URL('.', import.meta.url).pathname, '../..');
@@ -37,14 +36,12 @@ before(async () => {
   server = await serve(siteDir);
   profile = mkdtempSync(join(tmpdir(), 'fuelwright-chromium-'));
   context = await chromium.launchPersistentContext(profile, {
-    executablePath: CHROMIUM, headless: true, args: ARGS, viewport: { width: 820, height: 1180 },
+    executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS, viewport: { width: 820, height: 1180 },
     hasTouch: true, isMobile: true, deviceScaleFactor: 1, acceptDownloads: true, timeout: TIMEOUT,
   });
   context.setDefaultTimeout(TIMEOUT);
   page = context.pages()[0] ?? await context.newPage();
-  page.on('console', (message) => { if (message.type() === 'error') consoleErrors.push(message.text()); });
-  page.on('pageerror', (error) => consoleErrors.push(String(error)));
-  page.on('dialog', (dialog) => { dialogs.push(dialog.message()); dialog.dismiss(); });
+  watchPage(page, { consoleErrors, dialogs });
 }, { timeout: TIMEOUT });
 
 after(async () => {
@@ -54,14 +51,7 @@ after(async () => {
 }, { timeout: TIMEOUT });
 
 /** Waits until the verdict shows the result of the latest edit. */
-async function settled(state = 'done') {
-  await page.waitForFunction((want) => {
-    const body = document.querySelector('#verdict-body');
-    return body && body.dataset.state === want && document.querySelector('#progress').hidden;
-  }, state);
-  await page.waitForTimeout(250);  // past the debounce of any later keystroke
-  await page.waitForFunction((want) => document.querySelector('#verdict-body').dataset.state === want, state);
-}
+const settled = (state = 'done') => verdictSettled(page, state);
 
 async function tab(name) {
   await page.tap(`#tab-${name}`);

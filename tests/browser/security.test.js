@@ -7,14 +7,13 @@ import { after, before, beforeEach, describe, test } from 'node:test';
 
 import { chromium } from 'playwright-core';
 
+import { CHROMIUM, CHROMIUM_ARGS, verdictSettled, watchPage } from './chromium-page.js';
+
 import { cliJson, siteDir } from '../node/helpers.js';
 import { cliEvaluate } from './scenario-fixture.js';
 import { serve } from './server.js';
 
 const TIMEOUT = 90_000;
-const CHROMIUM = process.env.FUELWRIGHT_CHROMIUM ?? '/usr/bin/chromium';
-const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
-  '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 const root = resolve(import.meta.dirname ?? new URL('.', import.meta.url).pathname, '../..');
 
 // Markup and script that would run, or leave an element behind, if text were parsed as HTML or used as a URL.
@@ -139,7 +138,7 @@ before(async () => {
   origin = new URL(server.url).origin;
   profile = join(work, 'profile');
   context = await chromium.launchPersistentContext(profile, {
-    executablePath: CHROMIUM, headless: true, args: ARGS, viewport: { width: 820, height: 1180 },
+    executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS, viewport: { width: 820, height: 1180 },
     hasTouch: true, isMobile: true, deviceScaleFactor: 1, acceptDownloads: true, timeout: TIMEOUT,
   });
   context.setDefaultTimeout(30_000);
@@ -148,9 +147,7 @@ before(async () => {
   context.on('request', recordRequest(requests));
   page = context.pages()[0] ?? await context.newPage();
   page.on('request', recordRequest(pageRequests));
-  page.on('console', (message) => { if (message.type() === 'error') consoleErrors.push(message.text()); });
-  page.on('pageerror', (error) => consoleErrors.push(String(error)));
-  page.on('dialog', (dialog) => { dialogs.push(dialog.message()); dialog.dismiss(); });
+  watchPage(page, { consoleErrors, dialogs });
 }, { timeout: TIMEOUT });
 
 after(async () => {
@@ -163,15 +160,7 @@ after(async () => {
 // Waiting for the page
 
 /** Waits until the verdict shows the result of the latest edit. */
-async function settled(state = 'done') {
-  const ready = (want) => {
-    const body = document.querySelector('#verdict-body');
-    return body && body.dataset.state === want && document.querySelector('#progress').hidden;
-  };
-  await page.waitForFunction(ready, state);
-  await page.waitForTimeout(250);  // past the debounce of any later keystroke
-  await page.waitForFunction(ready, state);
-}
+const settled = (state = 'done') => verdictSettled(page, state);
 
 /** Waits until the charts (sweep, break-even, tornado) show the latest verdict. */
 async function analysed() {

@@ -13,14 +13,13 @@ import { after, before, describe, test } from 'node:test';
 
 import { chromium } from 'playwright-core';
 
+import { CHROMIUM, CHROMIUM_ARGS, verdictSettled, watchPage } from './chromium-page.js';
+
 import { siteDir } from '../node/helpers.js';
 import { serve } from './server.js';
 import { cliEvaluate, close, money } from './scenario-fixture.js';
 
 const TIMEOUT = 60_000;
-const CHROMIUM = process.env.FUELWRIGHT_CHROMIUM ?? '/usr/bin/chromium';
-const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
-  '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 const ARTIFACTS = resolve(process.env.FUELWRIGHT_ARTIFACTS ?? join(siteDir, '..', 'test-artifacts'));
 const root = resolve(import.meta.dirname ?? new URL('.', import.meta.url).pathname, '../..');
 const fixturesDir = join(root, 'tests/fixtures/saved-quotes');
@@ -49,12 +48,11 @@ before(async () => {
   server = await serve(siteDir);
   profile = mkdtempSync(join(tmpdir(), 'fuelwright-storage-'));
   context = await chromium.launchPersistentContext(profile, {
-    executablePath: CHROMIUM, headless: true, args: ARGS, viewport: { width: 820, height: 1180 }, acceptDownloads: true, timeout: TIMEOUT,
+    executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS, viewport: { width: 820, height: 1180 }, acceptDownloads: true, timeout: TIMEOUT,
   });
   context.setDefaultTimeout(30_000);
   page = context.pages()[0] ?? await context.newPage();
-  page.on('console', (message) => { if (message.type() === 'error') consoleErrors.push(message.text()); });
-  page.on('pageerror', (error) => consoleErrors.push(String(error)));
+  watchPage(page, { consoleErrors });
 }, { timeout: TIMEOUT });
 
 after(async () => {
@@ -64,15 +62,7 @@ after(async () => {
 }, { timeout: TIMEOUT });
 
 /** Waits until the verdict shows the result of the latest edit. */
-async function settled(state = 'done') {
-  const ready = (want) => {
-    const body = document.querySelector('#verdict-body');
-    return body && body.dataset.state === want && document.querySelector('#progress').hidden;
-  };
-  await page.waitForFunction(ready, state);
-  await page.waitForTimeout(300);
-  await page.waitForFunction(ready, state);
-}
+const settled = (state = 'done') => verdictSettled(page, state);
 
 /** Every record in the page's store (IndexedDB "fuelwright", store "quotes"), by id. */
 function storedRecords() {

@@ -16,15 +16,14 @@ import { after, before, describe, test } from 'node:test';
 
 import { chromium } from 'playwright-core';
 
+import { CHROMIUM, CHROMIUM_ARGS, watchPage } from '../browser/chromium-page.js';
+
 import { cliJson, siteDir } from '../node/helpers.js';
 import { cliEvaluate, close, money } from '../browser/scenario-fixture.js';
 
 const TIMEOUT = 30_000;
 const root = resolve(import.meta.dirname ?? new URL('.', import.meta.url).pathname, '../..');
 const NGINX = process.env.FUELWRIGHT_NGINX ?? '/usr/sbin/nginx';
-const CHROMIUM = process.env.FUELWRIGHT_CHROMIUM ?? '/usr/bin/chromium';
-const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
-  '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 const ARTIFACTS = resolve(process.env.FUELWRIGHT_ARTIFACTS ?? join(siteDir, '..', 'test-artifacts'));
 const sleep = (ms) => new Promise((done) => setTimeout(done, ms));
 
@@ -125,13 +124,12 @@ before(async () => {
 
   profile = mkdtempSync(join(tmpdir(), 'fuelwright-kiosk-'));
   context = await chromium.launchPersistentContext(profile, {
-    executablePath: CHROMIUM, headless: true, args: ARGS, viewport: { width: 820, height: 1180 },
+    executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS, viewport: { width: 820, height: 1180 },
     hasTouch: true, isMobile: true, deviceScaleFactor: 1, timeout: TIMEOUT,
   });
   context.setDefaultTimeout(TIMEOUT);
   page = context.pages()[0] ?? await context.newPage();
-  page.on('console', (message) => { if (message.type() === 'error') consoleErrors.push(message.text()); });
-  page.on('pageerror', (error) => consoleErrors.push(String(error)));
+  watchPage(page, { consoleErrors });
 }, { timeout: TIMEOUT });
 
 after(async () => {

@@ -7,6 +7,7 @@ import { join, dirname } from 'node:path';
 import { tmpdir } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { chromium } from 'playwright-core';
+import { CHROMIUM, CHROMIUM_ARGS } from '../../tests/browser/chromium-page.js';
 import { serve } from '../../tests/browser/server.js';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '../..');
@@ -51,14 +52,12 @@ async function transferGzip(paths) {
 async function pageTimes() {
   const server = await serve(site);
   await writeFile(join(site, 'bench-blank.html'), '<!doctype html><title>blank</title><p>blank</p>');
-  const args = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
-    '--disable-background-networking', '--disable-component-update', '--disable-sync'];
   const loads = [], blanks = [], edits = [];
   const requested = [];
   try {
     for (let i = 0; i < Math.max(3, Math.floor(repeats / 2)); i++) {
       const profile = await mkdtemp(join(tmpdir(), 'fw-bench-'));
-      const context = await chromium.launchPersistentContext(profile, { executablePath: '/usr/bin/chromium', headless: true, args,
+      const context = await chromium.launchPersistentContext(profile, { executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS,
         viewport: { width: 820, height: 1180 } });
       const page = context.pages()[0] ?? await context.newPage();
       let t0 = performance.now();

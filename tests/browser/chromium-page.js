@@ -1,0 +1,27 @@
+// Shared by the tests that drive Debian's Chromium with playwright-core: where it is, how it is
+// started on a machine with no network, what a page reports, and waiting for the verdict.
+
+/** The browser (FUELWRIGHT_CHROMIUM, default Debian's /usr/bin/chromium). */
+export const CHROMIUM = process.env.FUELWRIGHT_CHROMIUM ?? '/usr/bin/chromium';
+
+/** Headless, no GPU, and none of the browser's own network traffic (updates, sync, QUIC). */
+export const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+  '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+
+/** Collects the page's console errors and uncaught errors, and dismisses (and collects) its dialogs. */
+export function watchPage(page, { consoleErrors, dialogs }) {
+  page.on('console', (message) => { if (message.type() === 'error') consoleErrors.push(message.text()); });
+  page.on('pageerror', (error) => consoleErrors.push(String(error)));
+  if (dialogs) page.on('dialog', (dialog) => { dialogs.push(dialog.message()); dialog.dismiss(); });
+}
+
+/** Waits until the verdict shows `state` with no progress bar, twice 250 ms apart (a later edit restarts it). */
+export async function verdictSettled(page, state = 'done') {
+  const ready = (want) => {
+    const body = document.querySelector('#verdict-body');
+    return body && body.dataset.state === want && document.querySelector('#progress').hidden;
+  };
+  await page.waitForFunction(ready, state);
+  await page.waitForTimeout(250);
+  await page.waitForFunction(ready, state);
+}
