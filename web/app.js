@@ -224,19 +224,19 @@ async function evaluate() {
     await evaluateNow();
   } finally {
     evaluationRunning = false;
-    warmHelpers();
+    warmSideWorkers();
   }
   if (evaluateQueued) evaluate();
 }
 
-let helpersWarm = false;
+let sideWorkersWarm = false;
 /**
  * Starts the charts' and the draws' workers once the first verdict is painted (not before, so their
  * module loads do not compete with the first verdict's): from then on, using them fetches nothing.
  */
-function warmHelpers() {
-  if (helpersWarm) return;
-  helpersWarm = true;
+function warmSideWorkers() {
+  if (sideWorkersWarm) return;
+  sideWorkersWarm = true;
   charts.warm();
   draws.warm();
 }

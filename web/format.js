@@ -108,6 +108,9 @@ export function createFormat({ locale, currency }) {
 }
 
 /** Short month names of the locale, January first. */
+/** A message of the core ("the lines never cross") as a sentence: capital first letter, full stop. */
+export const asSentence = (text) => (text ? `${text[0].toUpperCase()}${text.slice(1)}${/[.!?]$/.test(text) ? '' : '.'}` : '');
+
 export function monthNames(locale) {
   const format = new Intl.DateTimeFormat(locale, { month: 'short', timeZone: 'UTC' });
   return Array.from({ length: 12 }, (_, m) => format.format(Date.UTC(2025, m, 15)));

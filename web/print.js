@@ -4,6 +4,7 @@
 // options, the price draws), the cautions and a disclaimer. Printed or saved as PDF by the browser.
 import { h } from './dom.js';
 import { costBars } from './charts.js';
+import { asSentence } from './format.js';
 import { fuelName } from './views/fuels.js';
 import { KIND_NAMES } from './views/systems.js';
 import { displayValues, rankedOptions } from './views/verdict.js';
@@ -58,13 +59,10 @@ function resultsTable(ws, result, ctx) {
     })));
 }
 
-/** A message of the core as a sentence: capital first letter, full stop. */
-const sentence = (text) => (text ? `${text[0].toUpperCase()}${text.slice(1)}${/[.!?]$/.test(text) ? '' : '.'}` : '');
-
 /** What could change the ranking: the break-even price of the two leading options and the price draws. */
 function sensitivity(result, ctx, { breakEven, draws }) {
   const lines = [];
-  if (breakEven && !(breakEven.errors ?? []).length) lines.push(sentence(breakEven.break_even ? breakEven.statement : breakEven.reason));
+  if (breakEven && !(breakEven.errors ?? []).length) lines.push(asSentence(breakEven.break_even ? breakEven.statement : breakEven.reason));
   const best = draws?.options?.length ? [...draws.options].sort((a, b) => (b.p_cheapest ?? 0) - (a.p_cheapest ?? 0))[0] : null;
   if (best && draws.draws > 0) {
     const label = result.options.find((o) => o.id === best.id)?.label ?? best.id;

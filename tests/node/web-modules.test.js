@@ -66,6 +66,16 @@ describe('web/format.js reads numbers in the locale', () => {
     assert.equal(format.parseNumber('', 'en-US'), null);
     assert.equal(format.formatInput(1.25, 'de-DE'), '1,25');
   });
+  test('a reason from the core reads as a sentence', async () => {
+    const scenario = JSON.parse(await readFile(join(root, 'data/examples/maple-hollow-gas-vs-heat-pump.json'), 'utf8'));
+    scenario.options.push({ ...scenario.options[4], id: 'baseboard-2', label: 'Second baseboard', fixed_charges: [] });
+    scenario.options[4].fixed_charges = [];
+    const answer = JSON.parse(core.breakEven(JSON.stringify({ scenario, a: 'baseboard', b: 'baseboard-2', vary: 'price', of: 'electricity' })));
+    assert.equal(answer.break_even, null);
+    assert.equal(format.asSentence(answer.reason), `${answer.reason[0].toUpperCase()}${answer.reason.slice(1)}.`);
+    assert.equal(format.asSentence('Done.'), 'Done.');
+    assert.equal(format.asSentence(''), '');
+  });
 });
 
 describe('web/scenario.js keeps every example', () => {

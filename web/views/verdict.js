@@ -7,13 +7,12 @@
 // cautions. Every number is a button that opens its trace.
 import { h } from '../dom.js';
 import { billsChart, binsChart, costBars, priceLines, probabilityBars, rangeChart, tornadoChart } from '../charts.js';
+import { asSentence } from '../format.js';
 import { ENERGY_KWH, UA_W_PER_K, co2In, convertTemperature, unitLabel } from '../units.js';
 import { fuelName } from './fuels.js';
 import { openTrace } from './trace.js';
 
 const isNum = (v) => typeof v === 'number' && Number.isFinite(v);
-/** A message of the core ("the lines never cross") as a sentence: capital first letter, full stop. */
-const sentence = (text) => (text ? `${text[0].toUpperCase()}${text.slice(1)}${/[.!?]$/.test(text) ? '' : '.'}` : '');
 
 /** The values a verdict row shows, in the display units of `ws.settings`. */
 export function displayValues(option, ws) {
@@ -283,7 +282,7 @@ function sweepSection(result, ws, ctx, analysis) {
     if (be && !(be.errors ?? []).length) {
       parts.push(h('p', { class: 'statement', id: 'break-even-statement', dataset: { a: analysis.pair?.a ?? '', b: analysis.pair?.b ?? '',
         ...(isNum(be.break_even?.value) ? { value: String(be.break_even.value) } : {}) } },
-      be.break_even ? `${be.statement}.` : sentence(be.reason ?? be.statement ?? '')));
+      be.break_even ? `${be.statement}.` : asSentence(be.reason ?? be.statement ?? '')));
     }
     parts.push(h('button', { type: 'button', class: 'quiet', dataset: { trace: 'sweep-all' }, text: 'How this chart was worked out' }));
   } else if (analysis?.state === 'none') {
