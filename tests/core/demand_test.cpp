@@ -278,6 +278,28 @@ TEST(heat_pump_scenario, dual_fuel_optimal_changeover_is_the_cheapest) {
     EXPECT_EQ(optimal.at("options").at(1).at("backup_fuel_quantity").at("unit"), "kWh");
 }
 
+TEST(heat_pump_scenario, a_sweep_of_the_backup_fuel_moves_the_dual_fuel_option) {
+    // A sweep keeps today's cost for options the varied price cannot reach; a dual-fuel heat pump burns
+    // the varied gas in its backup, so its series must equal full evaluations at each price.
+    const auto base = heat_pump_scenario({{"backup", "gas"}, {"changeover", "optimal"}});
+    const auto sweep = json::parse(fw::sweep_json(
+        json{{"scenario", base}, {"vary", "price"}, {"of", "natural-gas"}, {"from", 0.02}, {"to", 0.30}, {"points", 8}}.dump()));
+    ASSERT_TRUE(sweep.at("errors").empty()) << sweep.dump();
+    const auto& hp_costs = sweep.at("series").at(1).at("cost");
+    for (std::size_t i = 0; i < sweep.at("x").size(); ++i) {
+        auto at = base;
+        at["options"][0]["price"]["amount"] = sweep.at("x")[i];
+        const auto result = evaluate(at);
+        EXPECT_NEAR(hp_costs[i].get<double>() / result.at("options").at(1).at("annual_cost").get<double>() - 1, 0.0, 1e-12) << i;
+    }
+    EXPECT_NE(hp_costs.front(), hp_costs.back());
+    // The same heat pump with resistance backup does not burn gas: its cost stays today's at every price.
+    const auto alone = json::parse(fw::sweep_json(
+        json{{"scenario", heat_pump_scenario(json::object())}, {"vary", "price"}, {"of", "natural-gas"}, {"points", 5}}.dump()));
+    const auto today = evaluate(heat_pump_scenario(json::object())).at("options").at(1).at("annual_cost").get<double>();
+    for (const auto& cost : alone.at("series").at(1).at("cost")) EXPECT_EQ(cost.get<double>(), today);
+}
+
 TEST(heat_pump_scenario, errors) {
     auto error_of = [](const json& scenario) {
         const auto result = evaluate(scenario);

@@ -8,6 +8,7 @@
 
 #include "fw/api.hpp"
 #include "fw/economics.hpp"
+#include "fw/roots.hpp"
 
 namespace {
 
@@ -331,6 +332,26 @@ TEST(economics, tornado_and_efficiency_sweep_respect_fixed_and_limited_efficienc
     const auto sweep = json::parse(fw::sweep_json(json{{"scenario", s}, {"vary", "efficiency"}, {"of", "lp"}}.dump()));
     ASSERT_TRUE(sweep.at("errors").empty()) << sweep.dump();
     EXPECT_DOUBLE_EQ(sweep.at("x").back().get<double>(), 100.0);
+}
+
+}  // namespace
+
+namespace {
+
+TEST(economics, illinois_root_keeps_its_bracket) {
+    // The cube root of 2 (1.2599210498948732, to double precision) as the root of x^3 - 2 on [1, 2].
+    int calls = 0;
+    const auto cube = [&](double x) { ++calls; return x * x * x - 2; };
+    EXPECT_NEAR(fw::illinois_root(cube, 1.0, 2.0, cube(1.0), cube(2.0)), std::cbrt(2.0), 1e-12);
+    EXPECT_LT(calls, 20);  // superlinear: bisection would take about 40 steps to 1e-12
+    // A piecewise-linear cost difference with a kink, as a dual-fuel changeover gives: root at 3.
+    const auto kinked = [](double x) { return x < 2 ? 0.5 * (x - 2) - 1 : 2 * (x - 3); };
+    EXPECT_NEAR(fw::illinois_root(kinked, 0.0, 10.0, kinked(0.0), kinked(10.0)), 3.0, 1e-12);
+    // A jump across zero (no root, only a sign change at 1.5): the answer stays at the jump, inside the bracket.
+    const auto jump = [](double x) { return x < 1.5 ? -1.0 : 1.0; };
+    EXPECT_NEAR(fw::illinois_root(jump, 1.0, 2.0, -1.0, 1.0), 1.5, 1e-12);
+    // An end that is already a root is returned as it is.
+    EXPECT_EQ(fw::illinois_root(cube, std::cbrt(2.0), 2.0, 0.0, 6.0), std::cbrt(2.0));
 }
 
 }  // namespace
