@@ -38,6 +38,16 @@ struct analysis_context {
     std::vector<double> today_costs;  ///< every option's annual or life-cycle cost at today's inputs [currency]
 };
 
+/// Option k's evaluated result as a cost on the context's basis: annual, or life-cycle with option k appraised
+/// alone [currency].
+double cost_on_basis(const analysis_context& context, const scenario& input, std::size_t k, option_result result) {
+    if (context.cost_basis == basis::annual) return result.annual_cost;
+    evaluation one;
+    one.results.push_back(std::move(result));
+    one.options.push_back(&input.options[k]);
+    return appraise(input, one, context.economics, std::nullopt).front().life_cycle_cost;
+}
+
 analysis_context read_context(const json& request) {
     require_object(request, "");
     if (!request.contains("scenario")) throw input_error("/scenario", "is required (the scenario to analyse)");
@@ -53,17 +63,8 @@ analysis_context read_context(const json& request) {
         throw input_error("/basis", "must be annual or life-cycle, got \"" + basis_text + "\"");
     context.cost_basis = basis_text == "annual" ? basis::annual : basis::life_cycle;
     context.economics = context.input.economics.value_or(economics_settings{});
-    if (context.cost_basis == basis::annual) {
-        for (const auto& r : evaluated.results) context.today_costs.push_back(r.annual_cost);
-    } else {
-        for (std::size_t k = 0; k < evaluated.results.size(); ++k) {
-            // One option at a time, as option_cost appraises it.
-            evaluation one;
-            one.results.push_back(evaluated.results[k]);
-            one.options.push_back(&context.input.options[k]);
-            context.today_costs.push_back(appraise(context.input, one, context.economics, std::nullopt).front().life_cycle_cost);
-        }
-    }
+    for (std::size_t k = 0; k < evaluated.results.size(); ++k)
+        context.today_costs.push_back(cost_on_basis(context, context.input, k, evaluated.results[k]));
     if (context.cost_basis == basis::life_cycle && !context.economics.given)
         context.warnings.push_back({"/scenario/economics", "no economics given: " + std::to_string(context.economics.analysis_years) +
                                                                " years at " + format_number(100 * context.economics.discount_rate) +
@@ -95,15 +96,11 @@ std::vector<double> costs(const analysis_context& context, const scenario& input
 
 /// Annual or life-cycle cost of option k alone [currency].
 double option_cost(const analysis_context& context, const scenario& input, std::size_t k) {
-    evaluation one;
     try {
-        one.results.push_back(evaluate_option(input, input.options[k]));
+        return cost_on_basis(context, input, k, evaluate_option(input, input.options[k]));
     } catch (const input_error& error) {
         throw input_error("/scenario" + error.path(), error.message());
     }
-    one.options.push_back(&input.options[k]);
-    if (context.cost_basis == basis::annual) return one.results.front().annual_cost;
-    return appraise(input, one, context.economics, std::nullopt).front().life_cycle_cost;
 }
 
 variable read_variable(const analysis_context& context, const json& request, std::size_t default_option) {
@@ -194,7 +191,8 @@ struct crossing {
     std::string reason;
 };
 
-/// Where cost(a) = cost(b) as the variable changes; linear in price (in 1/efficiency), polished by bisection.
+/// Where cost(a) = cost(b) as the variable changes; linear in price (in 1/efficiency), polished by the Illinois
+/// method where it is not.
 crossing find_crossing(const analysis_context& context, const variable& v, std::size_t a, std::size_t b) {
     const auto cost_of = [&](const scenario& at, std::size_t k) {
         return depends_on(context.input, v, k) ? option_cost(context, at, k) : context.today_costs[k];

@@ -18,9 +18,10 @@ double softplus(double x) { return std::max(x, 0.0) + std::log1p(std::exp(-std::
 /// [K] Logistic scale s from a standard deviation: SD = s pi / sqrt(3).
 double logistic_scale(double sd) { return sd * std::sqrt(3.0) / pi; }
 
-double logistic_cdf(double x, double mean, double sd) {
-    return 1.0 / (1.0 + std::exp(-(x - mean) / logistic_scale(sd)));
-}
+/// Logistic CDF at x with the scale s already worked out (logistic_scale).
+double logistic_cdf_scaled(double x, double mean, double scale) { return 1.0 / (1.0 + std::exp(-(x - mean) / scale)); }
+
+double logistic_cdf(double x, double mean, double sd) { return logistic_cdf_scaled(x, mean, logistic_scale(sd)); }
 
 double sd_of(const std::array<double, 12>& values) {
     const double mean = std::accumulate(values.begin(), values.end(), 0.0) / 12.0;
@@ -175,6 +176,17 @@ double diurnal_fraction(int hour) {
            0.0138 * std::cos(4 * t - 3.513);
 }
 
+namespace {
+
+/// [K] The offset of each hour of the day (1..24) from the daily mean, for a daily range [K].
+std::array<double, 24> diurnal_offsets_k(double daily_range_k) {
+    std::array<double, 24> out{};
+    for (int h = 1; h <= 24; ++h) out[h - 1] = daily_range_k * diurnal_fraction(h);
+    return out;
+}
+
+}  // namespace
+
 std::vector<temperature_bin> hourly_bins(const climate_model& climate, double width_k) {
     const double daily_range_k = climate.daily_range_k;
     const auto days = days_in_months(climate.leap_year);
@@ -190,15 +202,14 @@ std::vector<temperature_bin> hourly_bins(const climate_model& climate, double wi
     // a bin's hours are the difference of its two edges (the outer bins take the tails).
     std::vector<double> below(bin_count + 1, 0.0);
     below.back() = 24.0 * std::accumulate(days.begin(), days.end(), 0);
-    double offset_k[24];
-    for (int h = 1; h <= 24; ++h) offset_k[h - 1] = daily_range_k * diurnal_fraction(h);
+    const auto offset_k = diurnal_offsets_k(daily_range_k);
     for (int m = 0; m < 12; ++m) {
         const double scale = logistic_scale(climate.daily_sd_k[m]);
         for (double offset : offset_k) {
             const double mean = climate.monthly_mean_c[m] + offset;
             for (std::size_t e = 1; e < bin_count; ++e) {
                 const double edge = (first + static_cast<long>(e)) * width_k - width_k / 2;
-                below[e] += days[m] / (1.0 + std::exp(-(edge - mean) / scale));
+                below[e] += days[m] * logistic_cdf_scaled(edge, mean, scale);
             }
         }
     }
@@ -222,8 +233,7 @@ double design_temperature(const climate_model& climate, double fraction) {
     const double daily_range_k = climate.daily_range_k;
     const auto days = days_in_months(climate.leap_year);
     const double total = 24.0 * std::accumulate(days.begin(), days.end(), 0);
-    double offset_k[24];
-    for (int h = 1; h <= 24; ++h) offset_k[h - 1] = daily_range_k * diurnal_fraction(h);
+    const auto offset_k = diurnal_offsets_k(daily_range_k);
     const auto share_below = [&](double t) {
         double hours = 0;
         for (int m = 0; m < 12; ++m)
