@@ -145,7 +145,7 @@ function paintSheet() {
   const shown = Number(verdictBody?.dataset.generation);
   const breakEven = a?.state === 'done' && a.gen === shown ? a.breakEven : null;
   const mc = verdict.mc;
-  const draws = mc?.state === 'done' && mc.key === JSON.stringify(toScenario(store.state)) ? mc.uncertainty : null;
+  const draws = mc?.state === 'done' && mc.key === drawsKey(store.state) ? mc.uncertainty : null;
   renderQuoteSheet($('#quote-sheet'), ctx, verdict.result, { breakEven, draws });
 }
 

@@ -1,5 +1,6 @@
 // Shared by the tests that drive Debian's Chromium with playwright-core: where it is, how it is
 // started on a machine with no network, what a page reports, and waiting for the verdict.
+import { chromium } from 'playwright-core';
 
 /** The browser (FUELWRIGHT_CHROMIUM, default Debian's /usr/bin/chromium). */
 export const CHROMIUM = process.env.FUELWRIGHT_CHROMIUM ?? '/usr/bin/chromium';
@@ -24,4 +25,20 @@ export async function verdictSettled(page, state = 'done') {
   await page.waitForFunction(ready, state);
   await page.waitForTimeout(250);
   await page.waitForFunction(ready, state);
+}
+
+/** A phone-or-tablet touch screen at one device pixel per CSS pixel, as the tablet tests use. */
+export const TOUCH = { hasTouch: true, isMobile: true, deviceScaleFactor: 1 };
+
+/**
+ * Chromium on its own profile folder with a tablet's portrait viewport (820x1180): {context, page}, with
+ * 30 s for every wait; `options` add to or override playwright-core's launch options.
+ */
+export async function launchTablet(profileDir, options = {}) {
+  const context = await chromium.launchPersistentContext(profileDir, {
+    executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS, viewport: { width: 820, height: 1180 }, timeout: 30_000, ...options,
+  });
+  context.setDefaultTimeout(30_000);
+  const page = context.pages()[0] ?? await context.newPage();
+  return { context, page };
 }

@@ -10,10 +10,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { after, before, describe, test } from 'node:test';
 
-import { chromium } from 'playwright-core';
-
-import { CHROMIUM, CHROMIUM_ARGS, verdictSettled, watchPage } from './chromium-page.js';
-
+import { TOUCH, launchTablet, verdictSettled, watchPage } from './chromium-page.js';
 import { cliJson, siteDir } from '../node/helpers.js';
 import { serve } from './server.js';
 import { TYPED, cliEvaluate, close, money, typedScenario } from './scenario-fixture.js';
@@ -35,12 +32,7 @@ before(async () => {
   mkdirSync(ARTIFACTS, { recursive: true });
   server = await serve(siteDir);
   profile = mkdtempSync(join(tmpdir(), 'fuelwright-chromium-'));
-  context = await chromium.launchPersistentContext(profile, {
-    executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS, viewport: { width: 820, height: 1180 },
-    hasTouch: true, isMobile: true, deviceScaleFactor: 1, acceptDownloads: true, timeout: TIMEOUT,
-  });
-  context.setDefaultTimeout(TIMEOUT);
-  page = context.pages()[0] ?? await context.newPage();
+  ({ context, page } = await launchTablet(profile, { ...TOUCH, acceptDownloads: true }));
   watchPage(page, { consoleErrors, dialogs });
 }, { timeout: TIMEOUT });
 

@@ -5,10 +5,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { after, before, beforeEach, describe, test } from 'node:test';
 
-import { chromium } from 'playwright-core';
-
-import { CHROMIUM, CHROMIUM_ARGS, verdictSettled, watchPage } from './chromium-page.js';
-
+import { TOUCH, launchTablet, verdictSettled, watchPage } from './chromium-page.js';
 import { cliJson, siteDir } from '../node/helpers.js';
 import { cliEvaluate } from './scenario-fixture.js';
 import { serve } from './server.js';
@@ -137,15 +134,10 @@ before(async () => {
   server = await serve(served);
   origin = new URL(server.url).origin;
   profile = join(work, 'profile');
-  context = await chromium.launchPersistentContext(profile, {
-    executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS, viewport: { width: 820, height: 1180 },
-    hasTouch: true, isMobile: true, deviceScaleFactor: 1, acceptDownloads: true, timeout: TIMEOUT,
-  });
-  context.setDefaultTimeout(30_000);
+  ({ context, page } = await launchTablet(profile, { ...TOUCH, acceptDownloads: true, timeout: TIMEOUT }));
   await context.exposeFunction('__fwNote', (kind, detail) => { seen[kind].push(detail); });
   await context.addInitScript(watchDocument);
   context.on('request', recordRequest(requests));
-  page = context.pages()[0] ?? await context.newPage();
   page.on('request', recordRequest(pageRequests));
   watchPage(page, { consoleErrors, dialogs });
 }, { timeout: TIMEOUT });

@@ -11,10 +11,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { after, before, describe, test } from 'node:test';
 
-import { chromium } from 'playwright-core';
-
-import { CHROMIUM, CHROMIUM_ARGS, verdictSettled, watchPage } from './chromium-page.js';
-
+import { launchTablet, verdictSettled, watchPage } from './chromium-page.js';
 import { siteDir } from '../node/helpers.js';
 import { serve } from './server.js';
 import { cliEvaluate, close, money } from './scenario-fixture.js';
@@ -47,11 +44,7 @@ before(async () => {
   mkdirSync(ARTIFACTS, { recursive: true });
   server = await serve(siteDir);
   profile = mkdtempSync(join(tmpdir(), 'fuelwright-storage-'));
-  context = await chromium.launchPersistentContext(profile, {
-    executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS, viewport: { width: 820, height: 1180 }, acceptDownloads: true, timeout: TIMEOUT,
-  });
-  context.setDefaultTimeout(30_000);
-  page = context.pages()[0] ?? await context.newPage();
+  ({ context, page } = await launchTablet(profile, { acceptDownloads: true, timeout: TIMEOUT }));
   watchPage(page, { consoleErrors });
 }, { timeout: TIMEOUT });
 

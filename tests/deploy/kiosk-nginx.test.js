@@ -14,10 +14,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { after, before, describe, test } from 'node:test';
 
-import { chromium } from 'playwright-core';
-
-import { CHROMIUM, CHROMIUM_ARGS, watchPage } from '../browser/chromium-page.js';
-
+import { TOUCH, launchTablet, watchPage } from '../browser/chromium-page.js';
 import { cliJson, siteDir } from '../node/helpers.js';
 import { cliEvaluate, close, money } from '../browser/scenario-fixture.js';
 
@@ -123,12 +120,7 @@ before(async () => {
   base = `http://127.0.0.1:${port}/`;
 
   profile = mkdtempSync(join(tmpdir(), 'fuelwright-kiosk-'));
-  context = await chromium.launchPersistentContext(profile, {
-    executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS, viewport: { width: 820, height: 1180 },
-    hasTouch: true, isMobile: true, deviceScaleFactor: 1, timeout: TIMEOUT,
-  });
-  context.setDefaultTimeout(TIMEOUT);
-  page = context.pages()[0] ?? await context.newPage();
+  ({ context, page } = await launchTablet(profile, TOUCH));
   watchPage(page, { consoleErrors });
 }, { timeout: TIMEOUT });
 
