@@ -711,14 +711,18 @@ function fileStem(ws) {
   return `fuelwright-${base.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60) || 'quote'}`;
 }
 
+let importsStarted = 0;
+
+/** Opens a picked quote file; the message carries the import's number, so the same message twice is told apart. */
 async function importFile(file) {
+  const seq = ++importsStarted;
   try {
     const doc = JSON.parse(await file.text());
     const ws = workspaceFromFile(doc);
     await openWorkspace(ws);
-    quotes.importMessage = { ok: true, text: `Imported “${file.name}”.` };
+    quotes.importMessage = { ok: true, text: `Imported “${file.name}”.`, seq };
   } catch (failure) {
-    quotes.importMessage = { ok: false, text: `Could not import “${file.name}”: ${failure.message}` };
+    quotes.importMessage = { ok: false, text: `Could not import “${file.name}”: ${failure.message}`, seq };
   }
   paintQuotes();
 }

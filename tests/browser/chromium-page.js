@@ -42,3 +42,17 @@ export async function launchTablet(profileDir, options = {}) {
   const page = context.pages()[0] ?? await context.newPage();
   return { context, page };
 }
+
+/**
+ * Gives `file` (a path or playwright-core's {name, mimeType, buffer}) to the import input `input`, or to
+ * the saved panel's, and waits for that import's own message (the panel numbers them): {ok, text}.
+ */
+export async function importAndWait(page, file, input = '#import-file') {
+  const before = await page.getAttribute('#import-msg', 'data-seq');
+  await (typeof input === 'string' ? page.setInputFiles(input, file) : input.setInputFiles(file));
+  await page.waitForFunction((seq) => {
+    const msg = document.querySelector('#import-msg');
+    return msg && !msg.hidden && msg.dataset.seq !== seq;
+  }, before);
+  return page.$eval('#import-msg', (msg) => ({ ok: msg.classList.contains('ok'), text: msg.textContent }));
+}

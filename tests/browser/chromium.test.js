@@ -10,7 +10,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { after, before, describe, test } from 'node:test';
 
-import { TOUCH, launchTablet, verdictSettled, watchPage } from './chromium-page.js';
+import { TOUCH, importAndWait, launchTablet, verdictSettled, watchPage } from './chromium-page.js';
 import { cliJson, siteDir } from '../node/helpers.js';
 import { serve } from './server.js';
 import { TYPED, cliEvaluate, close, money, typedScenario } from './scenario-fixture.js';
@@ -418,8 +418,7 @@ describe('Chromium, tablet portrait 820x1180 with touch', () => {
     await download.saveAs(file);
     const exported = JSON.parse(readFileSync(file, 'utf8'));
     assert.deepEqual(exported, typedScenario());
-    await page.setInputFiles('#import-file', file);
-    await page.waitForSelector('#import-msg.ok');
+    assert.deepEqual(await importAndWait(page, file), { ok: true, text: 'Imported “exported-quote.json”.' });
     await settled();
     const [again] = await Promise.all([page.waitForEvent('download'), page.tap('[data-action="export-json"]')]);
     const file2 = join(ARTIFACTS, 'reexported-quote.json');
@@ -438,9 +437,9 @@ describe('Chromium, tablet portrait 820x1180 with touch', () => {
     const bad = join(ARTIFACTS, 'not-a-scenario.json');
     writeFileSync(bad, JSON.stringify({ schema: 'something-else' }));
     await tab('saved');
-    await page.setInputFiles('#import-file', bad);
-    await page.waitForSelector('#import-msg:not(.ok):not([hidden])');
-    assert.match(await page.textContent('#import-msg'), /not a Fuelwright scenario/);
+    const refused = await importAndWait(page, bad);
+    assert.equal(refused.ok, false);
+    assert.match(refused.text, /^Could not import “not-a-scenario\.json”: .*not a Fuelwright scenario/);
   });
 
   test('saved quotes survive a reload and can be found, duplicated, deleted and restored', { timeout: TIMEOUT }, async () => {
@@ -554,12 +553,28 @@ describe('Chromium, tablet portrait 820x1180 with touch', () => {
     }
     assert.deepEqual(consoleErrors, []);
   });
+  test('a file picked while the saved list repaints is still imported', { timeout: TIMEOUT }, async () => {
+    const file = join(root, 'data/examples/maple-hollow-heat-pump-bins.json');
+    await tab('saved');
+    // the input that opened the picker; a search typed meanwhile repaints the list around it
+    const picker = await page.$('#import-file');
+    await page.fill('#quote-search', 'no such customer');
+    await page.waitForSelector('#quote-empty');
+    await page.fill('#quote-search', '');
+    await page.waitForSelector('#quote-list');
+    assert.deepEqual(await importAndWait(page, file, picker), { ok: true, text: 'Imported “maple-hollow-heat-pump-bins.json”.' });
+    await settled();
+    const { json: cli } = await cliJson('evaluate', file);
+    const shown = await page.$$eval('#verdict-table tbody tr', (rows) => rows.map((r) => r.dataset.option));
+    assert.deepEqual(shown.sort(), cli.options.map((o) => o.id).sort(), 'the verdict is the imported file\'s');
+    assert.deepEqual(consoleErrors, []);
+  });
+
   test('bills are drawn against degree-days with the fitted line', { timeout: TIMEOUT }, async () => {
     const file = join(root, 'data/examples/fjordvik-oil-bills.json');
     const { json: cli } = await cliJson('evaluate', file);
     await tab('saved');
-    await page.setInputFiles('#import-file', file);
-    await page.waitForSelector('#import-msg.ok');
+    assert.equal((await importAndWait(page, file)).ok, true);
     await tab('verdict');
     await settled();
     await page.waitForSelector('#chart-bills svg line.fit');
@@ -577,8 +592,7 @@ describe('Chromium, tablet portrait 820x1180 with touch', () => {
   test('the tornado of the bins example is the core\'s', { timeout: TIMEOUT }, async () => {
     const file = join(root, 'data/examples/maple-hollow-heat-pump-bins.json');
     await tab('saved');
-    await page.setInputFiles('#import-file', file);
-    await page.waitForSelector('#import-msg.ok');
+    assert.equal((await importAndWait(page, file)).ok, true);
     await tab('verdict');
     await settled();
     await analysed();

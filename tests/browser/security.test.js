@@ -5,7 +5,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { after, before, beforeEach, describe, test } from 'node:test';
 
-import { TOUCH, launchTablet, verdictSettled, watchPage } from './chromium-page.js';
+import { TOUCH, importAndWait, launchTablet, verdictSettled, watchPage } from './chromium-page.js';
 import { cliJson, siteDir } from '../node/helpers.js';
 import { cliEvaluate } from './scenario-fixture.js';
 import { serve } from './server.js';
@@ -599,9 +599,10 @@ describe('an imported quote file stays text', () => {
     return doc;
   }
 
+  /** Imports a file of that name and text from the saved panel: that import's {ok, text}. */
   async function importFile(name, text) {
     await tab('saved');
-    await page.setInputFiles('#import-file', { name, mimeType: 'application/json', buffer: Buffer.from(text) });
+    return importAndWait(page, { name, mimeType: 'application/json', buffer: Buffer.from(text) });
   }
 
   test('customer, site, notes, option labels, fuel names and charges of an imported file show literally', { timeout: TIMEOUT }, async () => {
@@ -609,8 +610,7 @@ describe('an imported quote file stays text', () => {
     const cli = await cliEvaluate(doc);
     assert.deepEqual(cli.errors, []);
     const name = `${attack(40, 60)}.json`;
-    await importFile(name, JSON.stringify(doc));
-    await page.waitForSelector('#import-msg.ok');
+    assert.equal((await importFile(name, JSON.stringify(doc))).ok, true);
     await assertAmong('#import-msg', name, 'the imported file\'s name');
     await settled();
     await assertVerdictShows(cli, doc.options.map((o) => o.label), doc.options[0].fuel.name);
@@ -634,8 +634,7 @@ describe('an imported quote file stays text', () => {
     const doc = hostileScenario();
     doc.options[1].fuel = attack(50, 60);  // not a catalog fuel: the core names it in its message
     doc.options[2].price.per = attack(51, 60);  // not a unit: named too
-    await importFile('refused-by-the-core.json', JSON.stringify(doc));
-    await page.waitForSelector('#import-msg.ok');
+    assert.equal((await importFile('refused-by-the-core.json', JSON.stringify(doc))).ok, true);
     await tab('verdict');
     await settled('errors');
     const errors = await assertCoreMessagesShown(doc, 'a scenario with an unknown fuel and unit');
@@ -646,11 +645,9 @@ describe('an imported quote file stays text', () => {
   test('a file that is not JSON, or not a scenario, is refused with its name shown literally', { timeout: TIMEOUT }, async () => {
     for (const [name, text] of [[`${attack(0, 80)}.json`, 'this is { not JSON'], [`${attack(2, 80)}.json`, JSON.stringify({ schema: 'fuelwright.other/1', options: [] })],
       [`${attack(4, 80)}.json`, JSON.stringify({ schema: 'fuelwright.scenario/1', options: attack(5) })]]) {
-      await importFile(name, text);
-      await page.waitForFunction((n) => {
-        const msg = document.querySelector('#import-msg');
-        return msg && !msg.hidden && !msg.classList.contains('ok') && msg.textContent.includes(n);
-      }, name);
+      const refused = await importFile(name, text);
+      assert.equal(refused.ok, false);
+      assert.ok(refused.text.startsWith(`Could not import “${name}”: `), 'the name is shown exactly');
       // the name is shown exactly, with nothing before it that made markup of it
       assert.equal(await page.locator('#import-msg *').count(), 0, 'the message is plain text');
     }

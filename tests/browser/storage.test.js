@@ -11,7 +11,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { after, before, describe, test } from 'node:test';
 
-import { launchTablet, verdictSettled, watchPage } from './chromium-page.js';
+import { importAndWait, launchTablet, verdictSettled, watchPage } from './chromium-page.js';
 import { siteDir } from '../node/helpers.js';
 import { serve } from './server.js';
 import { cliEvaluate, close, money } from './scenario-fixture.js';
@@ -230,22 +230,16 @@ describe('importing files of other versions', () => {
   test('a saved-quote record file opens; newer records and scenarios are refused with their message', { timeout: TIMEOUT }, async () => {
     const [first] = v1;
     await page.click('#tab-saved');
-    await page.setInputFiles('#import-file', join(fixturesDir, first.name));
-    await page.waitForSelector('#import-msg.ok');
-    assert.equal(await page.textContent('#import-msg'), `Imported “${first.name}”.`);
+    assert.deepEqual(await importAndWait(page, join(fixturesDir, first.name)), { ok: true, text: `Imported “${first.name}”.` });
     await settled();
     await checkVerdict(first.record.scenario);
 
-    await page.setInputFiles('#import-file', join(fixturesDir, newer.name));
-    await page.waitForSelector('#import-msg:not(.ok)');
-    assert.equal(await page.textContent('#import-msg'), `Could not import “${newer.name}”: ${NEWER}`);
+    assert.deepEqual(await importAndWait(page, join(fixturesDir, newer.name)), { ok: false, text: `Could not import “${newer.name}”: ${NEWER}` });
 
     const scenarioFile = join(ARTIFACTS, 'scenario-version-2.json');
     writeFileSync(scenarioFile, JSON.stringify({ ...first.record.scenario, schema: 'fuelwright.scenario/2' }));
-    await page.setInputFiles('#import-file', scenarioFile);
-    await page.waitForFunction(() => document.querySelector('#import-msg').textContent.includes('scenario-version-2'));
-    assert.equal(await page.textContent('#import-msg'), 'Could not import “scenario-version-2.json”: it was saved by a newer version of Fuelwright '
-      + '(fuelwright.scenario/2); this version reads scenarios up to fuelwright.scenario/1');
+    assert.deepEqual(await importAndWait(page, scenarioFile), { ok: false, text: 'Could not import “scenario-version-2.json”: it was saved by a newer version of Fuelwright '
+      + '(fuelwright.scenario/2); this version reads scenarios up to fuelwright.scenario/1' });
     assert.deepEqual(consoleErrors, []);
   });
 });

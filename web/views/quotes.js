@@ -40,7 +40,11 @@ function quoteItem(r, ctx, state) {
       h('button', { type: 'button', class: 'quiet danger', dataset: { action: 'delete-quote', id: r.id }, 'aria-label': `Delete the quote for ${who}`, text: 'Delete' })));
 }
 
-/** Renders the saved-quotes panel. `state` = {records, currentId, query, storageKind, undo}. */
+/**
+ * Renders the saved-quotes panel. `state` = {records, currentId, query, storageKind, undo, importMessage: {ok, text, seq}}.
+ * The file input is the same node from one paint to the next: a file picked while the list
+ * repaints (a save finishing, a search typed) reaches the input that opened the picker.
+ */
 export function renderQuotes(container, ctx, state) {
   const query = (state.query ?? '').trim().toLowerCase();
   const records = [...state.records].sort((a, b) => textOf(b.updated_at).localeCompare(textOf(a.updated_at)));
@@ -49,6 +53,8 @@ export function renderQuotes(container, ctx, state) {
   const list = h('ul', { class: 'quote-list', id: 'quote-list' }, shown.map((r) => quoteItem(r, ctx, state)));
   const search = h('div', { class: 'field' }, h('label', { for: 'quote-search', text: 'Find a quote (customer, site or date)' }),
     h('input', { id: 'quote-search', type: 'search', autocomplete: 'off', value: state.query ?? '' }));
+  const fileInput = container.querySelector('#import-file')
+    ?? h('input', { id: 'import-file', type: 'file', accept: '.json,application/json', class: 'visually-hidden' });
   const undo = state.undo ? h('div', { class: 'toast', id: 'undo-toast', role: 'status' },
     h('span', { text: `Deleted the quote for ${state.undo.customer || 'no customer'}.` }),
     h('button', { type: 'button', class: 'secondary', dataset: { action: 'undo-delete' }, text: 'Undo' })) : null;
@@ -65,9 +71,9 @@ export function renderQuotes(container, ctx, state) {
       h('div', { class: 'card-actions start' },
         h('button', { type: 'button', class: 'secondary', dataset: { action: 'export-json' }, text: 'Export this quote (JSON)' }),
         h('label', { class: 'button secondary', for: 'import-file', text: 'Import a quote file' }),
-        h('input', { id: 'import-file', type: 'file', accept: '.json,application/json', class: 'visually-hidden' })),
+        fileInput),
       h('p', { class: state.importMessage?.ok ? 'field-msg ok' : 'field-msg', id: 'import-msg', role: 'status',
-        hidden: !state.importMessage, text: state.importMessage?.text ?? '' })),
+        hidden: !state.importMessage, dataset: { seq: String(state.importMessage?.seq ?? 0) }, text: state.importMessage?.text ?? '' })),
     h('p', { class: 'hint', id: 'storage-kind', text: `Saved automatically on this device (${state.storageKind}).` })].filter(Boolean));
   const input = container.querySelector('#quote-search');
   input.addEventListener('input', () => ctx.onSearch(input.value));
