@@ -13,8 +13,9 @@ import {
   HEAT_PUMP_KINDS, blankWorkspace, fuelId, newFuelKey, toScenario, today, uniqueSystemId, withoutUncertainty,
 } from './scenario.js';
 import {
-  currentQuoteId, loadPreferences, makeRecord, migrateRecord, newId, notDeletedMessage, notMigratedMessage, notRestoredMessage,
-  notSavedMessage, openQuotes, recordProblem, savePreferences, setCurrentQuoteId, verdictSummary, workspaceFromFile, workspaceOf,
+  currentQuoteId, forgetUnsaved, keepUnsaved, loadPreferences, makeRecord, migrateRecord, newId, notDeletedMessage, notMigratedMessage, notRestoredMessage,
+  notSavedMessage, openQuotes, recordProblem, savePreferences, setCurrentQuoteId, unsavedNewerThan, verdictSummary, workspaceFromFile,
+  workspaceOf,
 } from './storage.js';
 import { Store } from './store.js';
 import { DISPLAY, convert, convertQuantity, convertTemperature, convertTemperatureDifference, unitLabel } from './units.js';
@@ -476,15 +477,28 @@ function clearStorageAlert(...kinds) {
   if (storageAlert && kinds.includes(storageAlert.kind)) setStorageAlert(null, null);
 }
 
-async function saveNow() {
-  clearTimeout(saveTimer);
-  if (!storage) return;
+/** The open workspace as the current quote's record (its first-saved time kept); it becomes the current quote. */
+function currentRecord() {
   const ws = store.state;
   const scenario = toScenario(ws);
   const existing = quotes.records.find((r) => r.id === quotes.currentId);
   const record = makeRecord({ id: quotes.currentId ?? newId(), createdAt: existing?.created_at, workspace: structuredClone(ws), scenario, summary: summaryFor(scenario) });
   quotes.currentId = record.id;
   setCurrentQuoteId(record.id);
+  return record;
+}
+
+function listRecord(record) {
+  const i = quotes.records.findIndex((r) => r.id === record.id);
+  if (i >= 0) quotes.records[i] = record;
+  else quotes.records.push(record);
+}
+
+async function saveNow() {
+  clearTimeout(saveTimer);
+  saveTimer = 0;
+  if (!storage) return;
+  const record = currentRecord();
   try {
     await storage.put(record);
   } catch (failure) {
@@ -492,12 +506,31 @@ async function saveNow() {
     setStorageAlert('not-saved', notSavedMessage(failure));
     return;
   }
+  forgetUnsaved(record.id);
   clearStorageAlert('not-saved', 'not-migrated', 'not-deleted', 'not-restored');
-  const i = quotes.records.findIndex((r) => r.id === record.id);
-  if (i >= 0) quotes.records[i] = record;
-  else quotes.records.push(record);
+  listRecord(record);
   document.body.dataset.saved = record.updated_at;
   if (prefs.tab === 'saved') paintQuotes();
+}
+
+/** The page is hidden or left with its autosave waiting: the record is kept at once, then written as usual. */
+function saveBeforeLeaving() {
+  if (!saveTimer || !storage) return;
+  keepUnsaved(currentRecord());
+  flushSave();
+}
+
+/** A record kept by saveBeforeLeaving that did not reach the storage: listed, and written now (or when a save next succeeds). */
+async function restoreUnsaved() {
+  const record = unsavedNewerThan(quotes.records);
+  if (!record) return;
+  listRecord(record);
+  try {
+    await storage.put(record);
+    forgetUnsaved(record.id);
+  } catch (failure) {
+    setStorageAlert('not-saved', notSavedMessage(failure));
+  }
 }
 
 async function openWorkspace(ws, { id = newId(), save = true } = {}) {
@@ -1005,6 +1038,9 @@ async function start() {
   document.addEventListener('click', onClick);
   document.addEventListener('change', onChange);
   $('.tabs').addEventListener('keydown', onTabKeys);
+  // a tablet may discard a page once it is hidden or left: the waiting autosave is written then
+  document.addEventListener('visibilitychange', () => { if (document.visibilityState === 'hidden') saveBeforeLeaving(); });
+  window.addEventListener('pagehide', saveBeforeLeaving);
   for (const name of ['house', 'fuels', 'systems']) bindFields(panels[name], ctx, localErrors);
   wireHeader();
   setTab(['house', 'fuels', 'systems', 'verdict', 'saved'].includes(prefs.tab) ? prefs.tab : 'verdict');
@@ -1018,6 +1054,7 @@ async function start() {
   storage = await openQuotes();
   quotes.storageKind = storage.kind;
   quotes.records = await loadRecords();
+  await restoreUnsaved();
   const id = currentQuoteId();
   const record = id ? quotes.records.find((r) => r.id === id) : null;
   let ws;

@@ -19,6 +19,7 @@ const STORE = 'quotes';
 const LS_PREFIX = 'fuelwright.quote.';
 const CURRENT_KEY = 'fuelwright.current-quote';
 const PREFS_KEY = 'fuelwright.preferences';
+const UNSAVED_KEY = 'fuelwright.unsaved-quote';
 
 function request(req) {
   return new Promise((resolve, reject) => {
@@ -254,6 +255,34 @@ function setLocal(key, value) {
     else localStorage.setItem(key, value);
   } catch { /* private mode or full storage: not kept, see above */ }
 }
+
+/**
+ * Keeps a record at once (localStorage is written synchronously) when the page is hidden or left with its
+ * autosave still waiting: IndexedDB may not commit before a tablet discards the page.
+ */
+export const keepUnsaved = (record) => setLocal(UNSAVED_KEY, JSON.stringify(record));
+
+function keptUnsaved() {
+  try { return JSON.parse(local(UNSAVED_KEY) ?? 'null'); } catch { return null; }
+}
+
+/** Forgets the kept record once record `id` is stored (any id when none is given). */
+export function forgetUnsaved(id) {
+  if (id === undefined || keptUnsaved()?.id === id) setLocal(UNSAVED_KEY, null);
+}
+
+/** The record keepUnsaved kept, when it is readable and newer than the stored record of its id in `records`; else null (and it is forgotten). */
+export function unsavedNewerThan(records) {
+  const kept = keptUnsaved();
+  const stored = kept && typeof kept === 'object' ? records.find((r) => r.id === kept.id) : null;
+  if (!kept || typeof kept !== 'object' || recordProblem(kept) || (stored && textTime(stored) >= textTime(kept))) {
+    forgetUnsaved();
+    return null;
+  }
+  return kept;
+}
+
+const textTime = (record) => (typeof record.updated_at === 'string' ? record.updated_at : '');
 
 export const currentQuoteId = () => local(CURRENT_KEY);
 export const setCurrentQuoteId = (id) => setLocal(CURRENT_KEY, id);

@@ -606,6 +606,20 @@ describe('Chromium, tablet portrait 820x1180 with touch', () => {
     await page.locator('#chart-tornado').screenshot({ path: join(ARTIFACTS, 'chromium-tornado.png') });
     assert.deepEqual(consoleErrors, []);
   });
+
+  test('an edit is kept when the page is left before the autosave would have run', { timeout: TIMEOUT }, async () => {
+    await tab('house');
+    await typeInto('#f-quote-customer', 'Left in a hurry (invented)');
+    await page.reload();  // at once: well inside the autosave's wait after the last key
+    await settled();
+    await tab('house');
+    assert.equal(await page.inputValue('#f-quote-customer'), 'Left in a hurry (invented)');
+    // written to the quote storage on the way back in: the copy kept on leaving is gone
+    await page.waitForFunction(() => localStorage.getItem('fuelwright.unsaved-quote') === null);
+    await tab('saved');
+    assert.equal(await page.textContent('#quote-list li.current .q-customer'), 'Left in a hurry (invented)');
+    assert.deepEqual(consoleErrors, []);
+  });
 });
 
 describe('Chromium, tablet landscape 1180x820', () => {

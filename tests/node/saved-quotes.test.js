@@ -2,7 +2,8 @@
 // every version 1 record of tests/fixtures/saved-quotes/ migrates to version 2
 // field by field and still evaluates as it was saved; version 2 passes
 // unchanged; a newer or unknown record, and a newer scenario file, are refused
-// with their message; the messages shown when a write to the device fails.
+// with their message; the messages shown when a write to the device fails; the
+// copy kept when the page is left with its autosave still waiting.
 import assert from 'node:assert/strict';
 import { readdir, readFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
@@ -231,4 +232,59 @@ describe('messages', () => {
     assert.equal(quotesView.summaryText({ ...summary, currency: 'EUR', option_count: 1 }, 'de-DE'), 'Lowest yearly cost: Air-source heat pump, 1.234\u00a0€/yr (the only option)');
     assert.equal(quotesView.summaryText(null, 'en-US'), 'No verdict saved yet: open the quote to work it out.');
   });
+});
+
+describe('a record kept when the page is left before its autosave', () => {
+  /** localStorage as the page has it: strings by key (Web Storage's getItem/setItem/removeItem). */
+  function fakeLocalStorage() {
+    const items = new Map();
+    return {
+      items,
+      getItem: (key) => (items.has(key) ? items.get(key) : null),
+      setItem: (key, value) => items.set(key, String(value)),
+      removeItem: (key) => items.delete(key),
+    };
+  }
+  const KEY = 'fuelwright.unsaved-quote';
+  let saved;
+  before(() => { saved = Object.getOwnPropertyDescriptor(globalThis, 'localStorage'); });
+  const withStorage = (run) => {
+    const ls = fakeLocalStorage();
+    Object.defineProperty(globalThis, 'localStorage', { value: ls, configurable: true, writable: true });
+    try { run(ls); } finally {
+      if (saved) Object.defineProperty(globalThis, 'localStorage', saved);
+      else delete globalThis.localStorage;
+    }
+  };
+  const recordAt = (time, customer) => {
+    const [, v2] = bySchema('fuelwright.saved-quote/2')[0];
+    return { ...v2, updated_at: time, customer, workspace: { ...v2.workspace, quote: { ...v2.workspace.quote, customer } } };
+  };
+
+  test('is given back when nothing newer of its id is stored, and kept until it is stored', () => withStorage((ls) => {
+    const kept = recordAt('2026-03-02T10:00:00.000Z', 'Kept on leaving (invented)');
+    storage.keepUnsaved(kept);
+    assert.deepEqual(storage.unsavedNewerThan([]), kept, 'no stored record of its id');
+    assert.deepEqual(storage.unsavedNewerThan([recordAt('2026-03-02T09:59:59.999Z', 'Before')]), kept, 'the stored one is older');
+    assert.ok(ls.items.has(KEY), 'kept until a save of its id succeeds');
+    storage.forgetUnsaved('some-other-quote');
+    assert.ok(ls.items.has(KEY), 'a save of another quote leaves it');
+    storage.forgetUnsaved(kept.id);
+    assert.equal(ls.items.has(KEY), false);
+  }));
+
+  test('is dropped when the stored record is as new or newer, damaged, or of a version this one cannot read', () => withStorage((ls) => {
+    const kept = recordAt('2026-03-02T10:00:00.000Z', 'Kept on leaving (invented)');
+    for (const stored of [recordAt(kept.updated_at, 'Same time'), recordAt('2026-03-02T10:00:00.001Z', 'Later')]) {
+      storage.keepUnsaved(kept);
+      assert.equal(storage.unsavedNewerThan([stored]), null, stored.customer);
+      assert.equal(ls.items.has(KEY), false, `${stored.customer}: forgotten`);
+    }
+    for (const [what, text] of [['not JSON', '{ cut short'], ['not a record', '"a string"'], ['null', 'null'],
+      ['a newer version', JSON.stringify(fixtures.get('v3-newer-version.json'))]]) {
+      ls.setItem(KEY, text);
+      assert.equal(storage.unsavedNewerThan([]), null, what);
+      assert.equal(ls.items.has(KEY), false, `${what}: forgotten`);
+    }
+  }));
 });
