@@ -13,6 +13,17 @@ function nf(locale, options) {
   return format;
 }
 
+const dateCache = new Map();
+/** The locale's long date format in UTC, made once per locale (a new Intl.DateTimeFormat costs far more than a format). */
+function longDate(locale) {
+  let format = dateCache.get(locale);
+  if (!format) {
+    format = new Intl.DateTimeFormat(locale, { dateStyle: 'long', timeZone: 'UTC' });
+    dateCache.set(locale, format);
+  }
+  return format;
+}
+
 /** True when `code` is a currency Intl can format (ISO 4217, three capital letters). */
 export function isCurrency(code) {
   if (!/^[A-Z]{3}$/.test(code ?? '')) return false;
@@ -100,7 +111,7 @@ export function createFormat({ locale, currency }) {
       if (!iso) return '';
       const [y, m, d] = iso.split('-').map(Number);
       if (!y || !m || !d) return iso;
-      return new Intl.DateTimeFormat(locale, { dateStyle: 'long', timeZone: 'UTC' }).format(Date.UTC(y, m - 1, d));
+      return longDate(locale).format(Date.UTC(y, m - 1, d));
     },
     currencySymbol: () => nf(locale, { style: 'currency', currency }).formatToParts(0)
       .find((p) => p.type === 'currency')?.value ?? currency,

@@ -66,6 +66,15 @@ describe('web/format.js reads numbers in the locale', () => {
     assert.equal(format.parseNumber('', 'en-US'), null);
     assert.equal(format.formatInput(1.25, 'de-DE'), '1,25');
   });
+  test('dates read long in the locale, the calendar date unchanged by the time zone', () => {
+    // expected texts: the CLDR long date patterns as Node's ICU formats them (from memory of CLDR)
+    assert.equal(format.createFormat({ locale: 'en-US', currency: 'USD' }).date('2026-12-01'), 'December 1, 2026');
+    assert.equal(format.createFormat({ locale: 'de-DE', currency: 'EUR' }).date('2026-01-31'), '31. Januar 2026');
+    assert.equal(format.createFormat({ locale: 'en-GB', currency: 'GBP' }).date('2026-12-01'), '1 December 2026');
+    assert.equal(format.createFormat({ locale: 'en-US', currency: 'USD' }).date('2026-12-01'), 'December 1, 2026', 'the same again, from the kept format');
+    assert.equal(format.createFormat({ locale: 'en-US', currency: 'USD' }).date('not a date'), 'not a date');
+    assert.equal(format.createFormat({ locale: 'en-US', currency: 'USD' }).date(''), '');
+  });
   test('a reason from the core reads as a sentence', async () => {
     const scenario = JSON.parse(await readFile(join(root, 'data/examples/maple-hollow-gas-vs-heat-pump.json'), 'utf8'));
     scenario.options.push({ ...scenario.options[4], id: 'baseboard-2', label: 'Second baseboard', fixed_charges: [] });
