@@ -1045,13 +1045,14 @@ async function start() {
   wireHeader();
   setTab(['house', 'fuels', 'systems', 'verdict', 'saved'].includes(prefs.tab) ? prefs.tab : 'verdict');
 
+  const opening = openQuotes();  // the device's storage opens while the core starts
   try {
     ctx.catalog = indexCatalog(await core.catalog());
   } catch (failure) {
     body.replaceChildren(h('p', { class: 'problems', role: 'alert', text: `The calculation core could not start: ${failure.message}` }));
     return;
   }
-  storage = await openQuotes();
+  storage = await opening;
   quotes.storageKind = storage.kind;
   quotes.records = await loadRecords();
   await restoreUnsaved();
