@@ -13,7 +13,7 @@ import {
   HEAT_PUMP_KINDS, blankWorkspace, fuelId, newFuelKey, toScenario, today, uniqueSystemId, withoutUncertainty,
 } from './scenario.js';
 import {
-  currentQuoteId, forgetUnsaved, keepUnsaved, loadPreferences, makeRecord, migrateRecord, newId, notDeletedMessage, notMigratedMessage, notRestoredMessage,
+  FORKED_MESSAGE, currentQuoteId, forgetUnsaved, keepUnsaved, loadPreferences, makeRecord, migrateRecord, newId, notDeletedMessage, notMigratedMessage, notRestoredMessage,
   notSavedMessage, openQuotes, recordProblem, savePreferences, setCurrentQuoteId, unsavedNewerThan, verdictSummary, workspaceFromFile,
   workspaceOf,
 } from './storage.js';
@@ -49,7 +49,9 @@ if (!isLocale(prefs.locale)) prefs.locale = 'en-US';
 
 // `key`: the scenario (without its draws) that `result` answers, so a saved summary always matches its quote
 const verdict = { result: null, key: null, errors: [], analysis: null, mc: { state: 'off' }, by: 'annual', fieldErrorCount: 0, sweepFuel: null };
-const quotes = { records: [], currentId: null, query: '', storageKind: '', undo: null };
+// knownAt: the updated_at of the open quote's record as this window last read or wrote it (null when it
+// has never been stored): a save finding another value was overtaken by another window (saveOnce).
+const quotes = { records: [], currentId: null, knownAt: null, query: '', storageKind: '', undo: null };
 let storage = null;
 /** The persistent message about a write to this device that failed: {kind, text}, or null. */
 let storageAlert = null;
@@ -494,48 +496,83 @@ function listRecord(record) {
   else quotes.records.push(record);
 }
 
-async function saveNow() {
+/**
+ * Writes `record` unless another window or tab has saved its quote since `knownAt`; then the record is
+ * written as a new quote instead, so that neither version is lost. Resolves to the record written.
+ */
+async function writeRecord(record, knownAt) {
+  const blocked = await storage.putUnlessChanged(record, knownAt);
+  if (!blocked) return record;
+  listRecord(blocked);
+  const copy = { ...record, id: newId(), created_at: record.updated_at };
+  await storage.put(copy);
+  setStorageAlert('forked', FORKED_MESSAGE);
+  return copy;
+}
+
+let saving = Promise.resolve();
+
+/** Saves the open quote; saves run one after another, so each knows what the one before it wrote. */
+function saveNow() {
   clearTimeout(saveTimer);
   saveTimer = 0;
+  const run = saving.then(saveOnce);
+  saving = run.catch(() => {});
+  return run;
+}
+
+async function saveOnce() {
   if (!storage) return;
   const record = currentRecord();
+  let written;
   try {
-    await storage.put(record);
+    written = await writeRecord(record, quotes.knownAt);
   } catch (failure) {
     // the work stays in the store (memory); the message stays until a save succeeds
     setStorageAlert('not-saved', notSavedMessage(failure));
     return;
   }
+  if (quotes.currentId === record.id) {
+    quotes.currentId = written.id;
+    quotes.knownAt = written.updated_at;
+    setCurrentQuoteId(written.id);
+  }
   forgetUnsaved(record.id);
   clearStorageAlert('not-saved', 'not-migrated', 'not-deleted', 'not-restored');
-  listRecord(record);
-  document.body.dataset.saved = record.updated_at;
+  listRecord(written);
+  document.body.dataset.saved = written.updated_at;
   if (prefs.tab === 'saved') paintQuotes();
 }
 
 /** The page is hidden or left with its autosave waiting: the record is kept at once, then written as usual. */
 function saveBeforeLeaving() {
   if (!saveTimer || !storage) return;
-  keepUnsaved(currentRecord());
+  keepUnsaved(currentRecord(), quotes.knownAt);
   flushSave();
 }
 
-/** A record kept by saveBeforeLeaving that did not reach the storage: listed, and written now (or when a save next succeeds). */
+/** A record kept by saveBeforeLeaving that did not reach the storage: written now (or when a save next succeeds), and listed. */
 async function restoreUnsaved() {
-  const record = unsavedNewerThan(quotes.records);
-  if (!record) return;
-  listRecord(record);
+  const kept = unsavedNewerThan(quotes.records);
+  if (!kept) return;
+  const { record, basedOn } = kept;
   try {
-    await storage.put(record);
+    const written = await writeRecord(record, basedOn);
+    listRecord(written);
+    if (written.id !== record.id && currentQuoteId() === record.id) setCurrentQuoteId(written.id);
     forgetUnsaved(record.id);
   } catch (failure) {
+    listRecord(record);
     setStorageAlert('not-saved', notSavedMessage(failure));
   }
 }
 
-async function openWorkspace(ws, { id = newId(), save = true } = {}) {
+/** Opens a workspace as the current quote `id`; `knownAt` is the updated_at of its stored record (null for a new quote). */
+async function openWorkspace(ws, { id = newId(), save = true, knownAt = null } = {}) {
   await flushSave();
+  clearStorageAlert('forked');
   quotes.currentId = id;
+  quotes.knownAt = knownAt;
   setCurrentQuoteId(id);
   localErrors.clear();
   verdict.sweepFuel = null;
@@ -821,7 +858,7 @@ const ACTIONS = {
     const record = await storage.get(d.id);
     if (!record || recordProblem(record)) return;
     const ws = workspaceOf(record);
-    await openWorkspace(ws, { id: record.id, save: false });
+    await openWorkspace(ws, { id: record.id, save: false, knownAt: record.updated_at });
     setTab('verdict');
   },
   'duplicate-quote': async (d) => {
@@ -991,7 +1028,9 @@ function onStoreChange(change) {
   } else if (change.reason === 'structure') {
     paintInputs();
   }
-  scheduleSave();
+  // a workspace opened as it was stored is not saved again (openWorkspace saves a new one itself): a
+  // quote's updated_at is when it last changed, and a second window opening it overtakes no one
+  if (change.reason !== 'load') scheduleSave();
 }
 
 // ---------------------------------------------------------------------------
@@ -1068,6 +1107,7 @@ async function start() {
   store.subscribe(onStoreChange);
   if (ws) {
     quotes.currentId = record.id;
+    quotes.knownAt = record.updated_at;
     store.replace(ws);
   } else {
     await openWorkspace(demoWorkspace());

@@ -49,6 +49,18 @@ class IdbQuotes {
   list() { return request(this.#store('readonly').getAll()); }
   get(id) { return request(this.#store('readonly').get(id)); }
   async put(record) { await this.#write((store) => store.put(record)); return record; }
+  /** See `putUnlessChanged` below: the read and the write are one transaction, which IndexedDB runs alone among this origin's windows. */
+  async putUnlessChanged(record, expectedUpdatedAt) {
+    let blocked = null;
+    await this.#write((store) => {
+      const read = store.get(record.id);
+      read.onsuccess = () => {
+        if (changedSince(read.result, expectedUpdatedAt)) blocked = read.result;
+        else store.put(record);
+      };
+    });
+    return blocked;
+  }
   async delete(id) { await this.#write((store) => store.delete(id)); }
   /** Runs one write and settles when it is committed: a full disk or quota aborts the transaction after the request itself succeeded. */
   #write(fn) {
@@ -90,6 +102,12 @@ class LocalQuotes {
     return text ? JSON.parse(text) : undefined;
   }
   async put(record) { localStorage.setItem(LS_PREFIX + record.id, JSON.stringify(record)); return record; }
+  async putUnlessChanged(record, expectedUpdatedAt) {
+    const stored = await this.get(record.id);
+    if (changedSince(stored, expectedUpdatedAt)) return stored;
+    await this.put(record);
+    return null;
+  }
   async delete(id) { localStorage.removeItem(LS_PREFIX + id); }
 }
 
@@ -99,7 +117,22 @@ class MemoryQuotes {
   async list() { return [...this.#map.values()].map((r) => structuredClone(r)); }
   async get(id) { const r = this.#map.get(id); return r && structuredClone(r); }
   async put(record) { this.#map.set(record.id, structuredClone(record)); return record; }
+  async putUnlessChanged(record, expectedUpdatedAt) {
+    const stored = this.#map.get(record.id);
+    if (changedSince(stored, expectedUpdatedAt)) return structuredClone(stored);
+    await this.put(record);
+    return null;
+  }
   async delete(id) { this.#map.delete(id); }
+}
+
+/**
+ * True when a stored record is not the one a window last read or wrote (`expectedUpdatedAt`, null for a
+ * quote it has never stored): another window or tab has saved it since. A missing record is no change
+ * (a quote deleted elsewhere is written again rather than lost).
+ */
+export function changedSince(stored, expectedUpdatedAt) {
+  return Boolean(stored) && stored.updated_at !== (expectedUpdatedAt ?? undefined);
 }
 
 function localStorageWorks() {
@@ -112,7 +145,12 @@ function localStorageWorks() {
   }
 }
 
-/** Opens the quote storage: IndexedDB, else localStorage, else memory. */
+/**
+ * Opens the quote storage: IndexedDB, else localStorage, else memory. Each offers list(), get(id),
+ * put(record), delete(id) and putUnlessChanged(record, expectedUpdatedAt), which writes the record
+ * unless the stored one of its id has changed since (changedSince) and then returns that stored
+ * record instead (null when written).
+ */
 export async function openQuotes() {
   try {
     return new IdbQuotes(await openDatabase());
@@ -220,6 +258,11 @@ function writeFailure(failure) {
   return `the browser refused to store it (${failure?.message || failure?.name || String(failure)})`;
 }
 
+/** Shown when this window's save found its quote changed by another window or tab. */
+export const FORKED_MESSAGE = 'This quote had been changed in another window or tab since this one opened it. '
+  + 'So that neither version is lost, the changes made here were saved as a separate quote, which is the one open now; '
+  + 'the other version is kept as it was, under Saved quotes.';
+
 /** The message shown while the open quote could not be saved. */
 export function notSavedMessage(failure) {
   return `This quote was NOT saved on this device: ${writeFailure(failure)}. Your work is still here while this page stays open. `
@@ -258,28 +301,38 @@ function setLocal(key, value) {
 
 /**
  * Keeps a record at once (localStorage is written synchronously) when the page is hidden or left with its
- * autosave still waiting: IndexedDB may not commit before a tablet discards the page.
+ * autosave still waiting: IndexedDB may not commit before a tablet discards the page. `basedOn` is the
+ * updated_at of the stored record the window had (null for a quote it had never stored).
  */
-export const keepUnsaved = (record) => setLocal(UNSAVED_KEY, JSON.stringify(record));
+export const keepUnsaved = (record, basedOn = null) => setLocal(UNSAVED_KEY, JSON.stringify({ record, based_on: basedOn }));
 
 function keptUnsaved() {
-  try { return JSON.parse(local(UNSAVED_KEY) ?? 'null'); } catch { return null; }
+  try {
+    const kept = JSON.parse(local(UNSAVED_KEY) ?? 'null');
+    return kept && typeof kept === 'object' && kept.record && typeof kept.record === 'object' ? kept : null;
+  } catch {
+    return null;
+  }
 }
 
 /** Forgets the kept record once record `id` is stored (any id when none is given). */
 export function forgetUnsaved(id) {
-  if (id === undefined || keptUnsaved()?.id === id) setLocal(UNSAVED_KEY, null);
+  if (id === undefined || keptUnsaved()?.record.id === id) setLocal(UNSAVED_KEY, null);
 }
 
-/** The record keepUnsaved kept, when it is readable and newer than the stored record of its id in `records`; else null (and it is forgotten). */
+/**
+ * What keepUnsaved kept, {record, basedOn}, when the record is readable and newer than the stored record
+ * of its id in `records`; else null (and it is forgotten).
+ */
 export function unsavedNewerThan(records) {
   const kept = keptUnsaved();
-  const stored = kept && typeof kept === 'object' ? records.find((r) => r.id === kept.id) : null;
-  if (!kept || typeof kept !== 'object' || recordProblem(kept) || (stored && textTime(stored) >= textTime(kept))) {
+  const record = kept?.record;
+  const stored = record ? records.find((r) => r.id === record.id) : null;
+  if (!record || recordProblem(record) || (stored && textTime(stored) >= textTime(record))) {
     forgetUnsaved();
     return null;
   }
-  return kept;
+  return { record, basedOn: typeof kept.based_on === 'string' ? kept.based_on : null };
 }
 
 const textTime = (record) => (typeof record.updated_at === 'string' ? record.updated_at : '');

@@ -3,8 +3,9 @@
 // into IndexedDB before the page starts are listed, written back once as
 // version 2 and open with their verdict; a record of a newer version is listed
 // as one this version cannot open and is left exactly as it was; saved-quote
-// and scenario files of a newer version are refused on import; and a write
-// refused for lack of quota is reported until a save succeeds.
+// and scenario files of a newer version are refused on import; a save overtaken
+// by another window on the same quote keeps both versions and says so; and a
+// write refused for lack of quota is reported until a save succeeds.
 import assert from 'node:assert/strict';
 import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -22,6 +23,9 @@ const root = resolve(import.meta.dirname ?? new URL('.', import.meta.url).pathna
 const fixturesDir = join(root, 'tests/fixtures/saved-quotes');
 
 const NEWER = 'it was saved by a newer version of Fuelwright (fuelwright.saved-quote/3); this version reads saved quotes up to fuelwright.saved-quote/2';
+const FORKED = 'This quote had been changed in another window or tab since this one opened it. '
+  + 'So that neither version is lost, the changes made here were saved as a separate quote, which is the one open now; '
+  + 'the other version is kept as it was, under Saved quotes.';
 const NOT_SAVED_FULL = 'This quote was NOT saved on this device: the storage for this page on this device is full. '
   + 'Your work is still here while this page stays open. Export the quote file to keep it, and delete old saved quotes to make room.';
 
@@ -133,8 +137,8 @@ async function checkVerdict(scenario) {
 /**
  * Reloads the page so that Chromium applies the quota override to IndexedDB:
  * it reads an origin's quota when it opens the origin's database files, and
- * closes them a few seconds after the last page using them has gone. On
- * loading, the page saves the open quote again, which then fails.
+ * closes them a few seconds after the last page using them has gone. An edit
+ * to the quote's notes then makes the page save, which fails once it applies.
  */
 async function reopenUnderQuota() {
   for (const pause of [3000, 6000, 12000]) {
@@ -142,6 +146,8 @@ async function reopenUnderQuota() {
     await page.waitForTimeout(pause);
     await page.goto(server.url);
     await settled();
+    await page.click('#tab-house');
+    await typeInto('#f-quote-notes', `Reopened after ${pause} ms (invented)`);
     try {
       await page.waitForSelector('#storage-alert:not([hidden])', { timeout: 5000 });
       return;
@@ -240,6 +246,49 @@ describe('importing files of other versions', () => {
     writeFileSync(scenarioFile, JSON.stringify({ ...first.record.scenario, schema: 'fuelwright.scenario/2' }));
     assert.deepEqual(await importAndWait(page, scenarioFile), { ok: false, text: 'Could not import “scenario-version-2.json”: it was saved by a newer version of Fuelwright '
       + '(fuelwright.scenario/2); this version reads scenarios up to fuelwright.scenario/1' });
+    assert.deepEqual(consoleErrors, []);
+  });
+});
+
+describe('two windows on one quote', () => {
+  test('a save overtaken by another window keeps both versions and says so', { timeout: TIMEOUT }, async () => {
+    await page.click('#tab-house');
+    await typeInto('#f-quote-customer', 'Opened in two windows (invented)');
+    const id = await page.evaluate(() => localStorage.getItem('fuelwright.current-quote'));
+    await untilStored((records) => records[id]?.customer === 'Opened in two windows (invented)', 'the quote before the second window');
+    const second = await context.newPage();
+    watchPage(second, { consoleErrors });
+    try {
+      await second.goto(server.url);
+      await verdictSettled(second);
+      await second.waitForTimeout(800);  // past the autosave's wait: the second window has read the quote and saved nothing
+      const count = Object.keys(await storedRecords()).length;
+      // the first window saves; the second, which read the quote before that, saves a change of its own after
+      await typeInto('#f-quote-site', '1 First Window Way (invented)');
+      await untilStored((records) => records[id]?.site === '1 First Window Way (invented)', 'the first window\'s save');
+      await second.click('#tab-house');
+      await second.fill('#f-quote-notes', 'Typed in the second window (invented)');
+      const copy = await untilStored((records) => Object.values(records)
+        .find((r) => r.id !== id && r.workspace?.quote?.notes === 'Typed in the second window (invented)'), 'the second window\'s work as a quote of its own');
+      const first = (await storedRecords())[id];
+      assert.equal(first.site, '1 First Window Way (invented)', 'the first window\'s version is kept');
+      assert.notEqual(first.workspace.quote.notes, 'Typed in the second window (invented)');
+      assert.equal(copy.customer, 'Opened in two windows (invented)');
+      assert.notEqual(copy.site, '1 First Window Way (invented)', 'the copy is the second window\'s version');
+      assert.equal(Object.keys(await storedRecords()).length, count + 1);
+      await second.waitForSelector('#storage-alert:not([hidden])');
+      assert.equal(await second.textContent('#storage-alert-text'), FORKED);
+      await second.screenshot({ path: join(ARTIFACTS, 'storage-two-windows.png') });
+      // from then on each window saves its own quote, with no more copies and nothing to report in the first
+      await second.fill('#f-quote-notes', 'More in the second window (invented)');
+      await untilStored((records) => records[copy.id]?.workspace?.quote?.notes === 'More in the second window (invented)', 'the second window\'s next save');
+      await typeInto('#f-quote-site', '2 First Window Way (invented)');
+      await untilStored((records) => records[id]?.site === '2 First Window Way (invented)', 'the first window\'s next save');
+      assert.equal(Object.keys(await storedRecords()).length, count + 1);
+      assert.ok(await page.isHidden('#storage-alert'), 'the first window was not overtaken');
+    } finally {
+      await second.close();
+    }
     assert.deepEqual(consoleErrors, []);
   });
 });

@@ -263,9 +263,12 @@ describe('a record kept when the page is left before its autosave', () => {
 
   test('is given back when nothing newer of its id is stored, and kept until it is stored', () => withStorage((ls) => {
     const kept = recordAt('2026-03-02T10:00:00.000Z', 'Kept on leaving (invented)');
+    const before = recordAt('2026-03-02T09:59:59.999Z', 'Before');
+    storage.keepUnsaved(kept, before.updated_at);
+    assert.deepEqual(storage.unsavedNewerThan([]), { record: kept, basedOn: before.updated_at }, 'no stored record of its id');
+    assert.deepEqual(storage.unsavedNewerThan([before]), { record: kept, basedOn: before.updated_at }, 'the stored one is older');
     storage.keepUnsaved(kept);
-    assert.deepEqual(storage.unsavedNewerThan([]), kept, 'no stored record of its id');
-    assert.deepEqual(storage.unsavedNewerThan([recordAt('2026-03-02T09:59:59.999Z', 'Before')]), kept, 'the stored one is older');
+    assert.deepEqual(storage.unsavedNewerThan([]), { record: kept, basedOn: null }, 'a quote never stored before');
     assert.ok(ls.items.has(KEY), 'kept until a save of its id succeeds');
     storage.forgetUnsaved('some-other-quote');
     assert.ok(ls.items.has(KEY), 'a save of another quote leaves it');
@@ -280,11 +283,49 @@ describe('a record kept when the page is left before its autosave', () => {
       assert.equal(storage.unsavedNewerThan([stored]), null, stored.customer);
       assert.equal(ls.items.has(KEY), false, `${stored.customer}: forgotten`);
     }
-    for (const [what, text] of [['not JSON', '{ cut short'], ['not a record', '"a string"'], ['null', 'null'],
-      ['a newer version', JSON.stringify(fixtures.get('v3-newer-version.json'))]]) {
+    for (const [what, text] of [['not JSON', '{ cut short'], ['not a record', '"a string"'], ['null', 'null'], ['no record', '{"based_on": null}'],
+      ['a newer version', JSON.stringify({ record: fixtures.get('v3-newer-version.json'), based_on: null })]]) {
       ls.setItem(KEY, text);
       assert.equal(storage.unsavedNewerThan([]), null, what);
       assert.equal(ls.items.has(KEY), false, `${what}: forgotten`);
     }
   }));
 });
+
+describe('a save overtaken by another window', () => {
+  const at = (time) => ({ id: 'q-1', updated_at: time });
+  test('a stored record counts as changed when it is not the one the window last had', () => {
+    assert.equal(storage.changedSince(undefined, null), false, 'nothing stored: a new quote');
+    assert.equal(storage.changedSince(undefined, '2026-03-02T10:00:00.000Z'), false, 'deleted elsewhere: written again, not lost');
+    assert.equal(storage.changedSince(at('2026-03-02T10:00:00.000Z'), '2026-03-02T10:00:00.000Z'), false, 'the one this window had');
+    assert.equal(storage.changedSince(at('2026-03-02T10:00:05.000Z'), '2026-03-02T10:00:00.000Z'), true, 'saved since by another window');
+    assert.equal(storage.changedSince(at('2026-03-02T09:00:00.000Z'), '2026-03-02T10:00:00.000Z'), true, 'any other record, older too');
+    assert.equal(storage.changedSince(at('2026-03-02T10:00:00.000Z'), null), true, 'stored, though this window never had it');
+  });
+
+  test('putUnlessChanged writes, or gives back the record that stopped it (memory storage)', async () => {
+    const quotes = await withoutStorageApis(() => storage.openQuotes());
+    assert.equal(quotes.kind, 'memory (not kept)');
+    const first = { ...at('2026-03-02T10:00:00.000Z'), customer: 'First window (invented)' };
+    assert.equal(await quotes.putUnlessChanged(first, null), null, 'a new quote is written');
+    const second = { ...at('2026-03-02T10:00:05.000Z'), customer: 'Second window (invented)' };
+    assert.deepEqual(await quotes.putUnlessChanged(second, null), first, 'a window that never had it is stopped');
+    assert.deepEqual(await quotes.get('q-1'), first);
+    assert.equal(await quotes.putUnlessChanged(second, first.updated_at), null, 'the window that had the stored one writes');
+    assert.deepEqual(await quotes.get('q-1'), second);
+  });
+});
+
+/** Runs `fn` with neither IndexedDB nor localStorage, as a browser with both turned off. */
+async function withoutStorageApis(fn) {
+  const saved = ['indexedDB', 'localStorage'].map((name) => [name, Object.getOwnPropertyDescriptor(globalThis, name)]);
+  for (const [name] of saved) Object.defineProperty(globalThis, name, { value: undefined, configurable: true, writable: true });
+  try {
+    return await fn();
+  } finally {
+    for (const [name, descriptor] of saved) {
+      if (descriptor) Object.defineProperty(globalThis, name, descriptor);
+      else delete globalThis[name];
+    }
+  }
+}
