@@ -490,6 +490,7 @@ function currentRecord() {
   return record;
 }
 
+/** Puts `record` in the saved list kept in memory, in place of the one with its id. */
 function listRecord(record) {
   const i = quotes.records.findIndex((r) => r.id === record.id);
   if (i >= 0) quotes.records[i] = record;

@@ -158,6 +158,15 @@ async function reopenUnderQuota() {
   throw new Error('Chromium never applied the quota override');
 }
 
+/** Types `customer` into the open quote and waits until it is stored: the quote's id. */
+async function storeCustomer(customer) {
+  await page.click('#tab-house');
+  await typeInto('#f-quote-customer', customer);
+  const id = await page.evaluate(() => localStorage.getItem('fuelwright.current-quote'));
+  await untilStored((records) => records[id]?.customer === customer, `the quote saved with ${customer}`);
+  return id;
+}
+
 async function typeInto(selector, text) {
   await page.click(selector);
   await page.fill(selector, '');
@@ -252,10 +261,7 @@ describe('importing files of other versions', () => {
 
 describe('two windows on one quote', () => {
   test('a save overtaken by another window keeps both versions and says so', { timeout: TIMEOUT }, async () => {
-    await page.click('#tab-house');
-    await typeInto('#f-quote-customer', 'Opened in two windows (invented)');
-    const id = await page.evaluate(() => localStorage.getItem('fuelwright.current-quote'));
-    await untilStored((records) => records[id]?.customer === 'Opened in two windows (invented)', 'the quote before the second window');
+    const id = await storeCustomer('Opened in two windows (invented)');
     const second = await context.newPage();
     watchPage(second, { consoleErrors });
     try {
@@ -295,10 +301,7 @@ describe('two windows on one quote', () => {
 
 describe('a full storage', () => {
   test('a save refused for lack of quota is reported, the work kept, and the next save clears it', { timeout: TIMEOUT }, async () => {
-    await page.click('#tab-house');
-    await typeInto('#f-quote-customer', 'Before the storage filled up (invented)');
-    const id = await page.evaluate(() => localStorage.getItem('fuelwright.current-quote'));
-    await untilStored((records) => records[id]?.customer === 'Before the storage filled up (invented)', 'the first save');
+    const id = await storeCustomer('Before the storage filled up (invented)');
     assert.ok(await page.isHidden('#storage-alert'));
 
     // Chromium's own quota, made smaller than what this origin already stores
