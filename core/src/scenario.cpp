@@ -235,8 +235,8 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
         throw input_error(path + "/incentives", "incentives (" + format_number(option.incentives) +
                                                     ") exceed the installed cost (" + format_number(option.installed_cost) + ")");
     option.life_years = optional_number(item, "life_years", path);
-    if (option.life_years && !(*option.life_years > 0 && *option.life_years <= 100))
-        throw input_error(path + "/life_years", "must be a service life from above 0 to 100 years, got " +
+    if (option.life_years && !(*option.life_years >= 1 && *option.life_years <= 100))
+        throw input_error(path + "/life_years", "must be a service life from 1 to 100 years, got " +
                                                     format_number(*option.life_years));
     if (!item.contains("fuel")) throw input_error(path + "/fuel", "is required (a fuel id or a custom fuel object)");
     const auto& fuel = item.at("fuel");
@@ -561,9 +561,11 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
     attempt([&] {
         if (document.contains("uncertainty")) out.uncertainty = read_uncertainty(document.at("uncertainty"), warnings);
     });
+    const std::size_t errors_before_climate = errors.size();
     attempt([&] {
         if (document.contains("climate")) out.climate = read_climate(document.at("climate"));
     });
+    const bool climate_read = errors.size() == errors_before_climate;
     attempt([&] {
         if (!document.contains("options") || !document.at("options").is_array() || document.at("options").empty())
             throw input_error("/options", "needs at least one option (a fuel, its price and a system)");
@@ -585,11 +587,15 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
         if (existing > 1) throw input_error("/options", "at most one option can be the existing system; " +
                                                             std::to_string(existing) + " are marked existing");
     });
+    const std::size_t errors_before_demand = errors.size();
     attempt([&] {
         if (!document.contains("demand")) throw input_error("/demand", "is required (how much useful heat the house needs)");
         read_demand(document.at("demand"), out,
                     document.contains("options") ? document.at("options") : json::array(), warnings);
     });
+    // Without a climate or a demand there is nothing to evaluate the options against: the problem is
+    // reported at its own path and no option is computed.
+    if (!climate_read || errors.size() != errors_before_demand) out.options.clear();
     return out;
 }
 

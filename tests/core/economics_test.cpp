@@ -306,7 +306,7 @@ TEST(economics_errors, messages) {
     auto s = switching_scenario();
     s["options"][1]["life_years"] = -3;
     auto result = json::parse(fw::evaluate_json(s.dump()));
-    EXPECT_EQ(result.at("errors")[0].at("message"), "must be a service life from above 0 to 100 years, got -3");
+    EXPECT_EQ(result.at("errors")[0].at("message"), "must be a service life from 1 to 100 years, got -3");
     s = switching_scenario();
     s["options"][1]["existing"] = true;
     result = json::parse(fw::evaluate_json(s.dump()));
