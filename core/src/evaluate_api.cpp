@@ -108,6 +108,11 @@ json demand_result(const scenario& input) {
                       {"heating", fit.heating_kwh},
                       {"base", fit.base_annual_kwh},
                       {"standard_error", fit.nac_standard_error_kwh},
+                      {"nac_standard_error", fit.nac_standard_error_kwh},
+                      {"cv_nac", fit.nac_kwh > 0 ? fit.nac_standard_error_kwh / fit.nac_kwh : 0.0},
+                      {"weather", fit.weather == bill_weather::observed_daily         ? "observed-daily"
+                                  : fit.weather == bill_weather::observed_period_mean ? "observed-period-mean"
+                                                                                      : "normals"},
                       {"normal_hdd", fit.normal_hdd / per_k},
                       {"unit", "kWh"},
                       {"temperature_unit", unit},

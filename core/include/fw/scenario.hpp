@@ -130,6 +130,12 @@ struct scenario {
 /// Reads the climate object; throws input_error.
 climate_info read_climate(const nlohmann::json& climate);
 
+/// At most this many observed days (20 years) in `demand.observed`.
+inline constexpr std::size_t max_observed_days = 7320;
+
+/// [degC] by day number: `demand.observed`, daily means or (max + min) / 2 of daily extremes.
+std::map<long, double> read_observed(const nlohmann::json& observed, const std::string& path, std::vector<issue>& warnings);
+
 /// Reads the demand object into the scenario (needs its climate and options for some methods).
 void read_demand(const nlohmann::json& demand, scenario& out, const nlohmann::json& options_json,
                  std::vector<issue>& warnings);
