@@ -148,7 +148,8 @@ json climate_result(const climate_info& info) {
             {"monthly_hdd", hdd},
             {"annual_hdd", annual},
             {"bins", bins},
-            {"bin_width", info.fahrenheit ? 2 : 1},
+            {"bin_width", info.bin_width_k * per_k},
+            {"bins_from", info.bins_from_data ? "data" : "model"},
             {"bin_hours_total", hours},
             {"design_temperature_99", t(info.design_99_c)},
             {"design_temperature_996", t(info.design_996_c)},
@@ -311,9 +312,9 @@ std::string evaluate_json_with_progress(const std::string& scenario_json,
 }
 
 std::string climate_json(const std::string& request_json) noexcept {
-    return guarded_entry(request_json, [](const json& request, std::vector<issue>&) {
+    return guarded_entry(request_json, [](const json& request, std::vector<issue>& warnings) {
         require_object(request, "");
-        return climate_result(read_climate(request.contains("climate") ? request.at("climate") : request));
+        return climate_result(read_climate(request.contains("climate") ? request.at("climate") : request, warnings));
     });
 }
 

@@ -107,9 +107,54 @@ std::map<long, double> read_observed(const json& observed, const std::string& pa
 
 namespace {
 
+/// The warning for a spread that comes from Erbs's correlation alone.
+issue spread_warning(const std::string& path) {
+    return {path + "/monthly_sd",
+            "the day-to-day spread of daily temperatures comes from a correlation (Erbs, Klein & Beckman 1983) fitted "
+            "to inland sites; maritime climates are its weak case (it overstates their spread, so design temperatures "
+            "and hours in the cold come out too cold): give the 99 % design temperature or monthly_sd"};
+}
+
+/// Reads `bins` [{t, hours}] with `bin_width` (observed hourly bins, e.g. from a weather file) into `info`.
+void read_observed_bins(const json& climate, const std::string& unit, bool leap, climate_info& info) {
+    const std::string path = "/climate";
+    const double k = degree_size(unit == "degF");
+    const auto width = optional_number(climate, "bin_width", path);
+    if (!width) throw input_error(path + "/bin_width", "is required with bins (the width of each bin, in " + unit + ")");
+    if (!(*width > 0 && *width * k <= 5))
+        throw input_error(path + "/bin_width", "must be above 0 and at most " + format_number(5 / k) + " " + unit +
+                                                   ", got " + format_number(*width));
+    const auto& list = climate.at("bins");
+    if (!list.is_array() || list.empty()) throw input_error(path + "/bins", "must be a non-empty array of {t, hours}");
+    if (list.size() > 400) throw input_error(path + "/bins", "at most 400 bins, got " + std::to_string(list.size()));
+    info.bin_width_k = *width * k;
+    info.bins.clear();
+    double total = 0;
+    for (std::size_t i = 0; i < list.size(); ++i) {
+        const std::string item = path + "/bins/" + std::to_string(i);
+        require_object(list[i], item);
+        const auto t = optional_number(list[i], "t", item);
+        const auto hours = optional_number(list[i], "hours", item);
+        if (!t) throw input_error(item + "/t", "is required (the bin's centre temperature)");
+        if (!hours) throw input_error(item + "/hours", "is required (hours a year in the bin)");
+        const double t_c = convert(*t, unit, "degC", item + "/t");
+        if (t_c < -70 || t_c > 60) throw input_error(item + "/t", "is not a plausible outdoor temperature");
+        if (*hours < 0) throw input_error(item + "/hours", "must be >= 0, got " + format_number(*hours));
+        if (!info.bins.empty() && t_c <= info.bins.back().t_c)
+            throw input_error(item + "/t", "bins must be in ascending order of temperature");
+        info.bins.push_back({t_c, *hours});
+        total += *hours;
+    }
+    const double year_hours = leap ? 8784 : 8760;
+    if (std::fabs(total - year_hours) > 24)
+        throw input_error(path + "/bins", "the bins' hours add up to " + format_fixed(total, 1) + "; a year of hourly bins has " +
+                                              format_fixed(year_hours, 0) + " (within a day)");
+    info.bins_from_data = true;
+}
+
 }  // namespace
 
-climate_info read_climate(const json& climate) {
+climate_info read_climate(const json& climate, std::vector<issue>& warnings) {
     const std::string path = "/climate";
     require_object(climate, path);
     climate_info info;
@@ -156,6 +201,23 @@ climate_info read_climate(const json& climate) {
             sd = values;
         }
         info.model = climate_from_means(means, sd, leap, range_k);
+        if (!sd && info.given_design_c && !climate.contains("bins")) {
+            const auto factor = spread_factor_for_design(info.model, *info.given_design_c);
+            if (!factor)
+                throw input_error(path + "/design_temperature",
+                                  "no day-to-day spread of these monthly means gives a 99 % design temperature of " +
+                                      format_number(climate.at("design_temperature").at("value").get<double>()) + " " +
+                                      climate.at("design_temperature").at("unit").get<std::string>() +
+                                      " (the spread would have to be scaled by less than 0.2 or more than 4); check both, "
+                                      "or give monthly_sd");
+            for (double& value : info.model.daily_sd_k) value *= *factor;
+            info.spread_factor = *factor;
+            info.model.trace.push_back("day-to-day spread calibrated to the given design temperature: every month's "
+                                       "spread scaled by " + format_fixed(*factor, 3) + " so that the model's 99 % design "
+                                       "temperature equals it (Illinois root on the scale factor)");
+        } else if (!sd) {
+            warnings.push_back(spread_warning(path));
+        }
     } else if (climate.contains("monthly_hdd")) {
         auto hdd = twelve_numbers(climate, "monthly_hdd", path);
         for (std::size_t m = 0; m < 12; ++m) {
@@ -165,6 +227,7 @@ climate_info read_climate(const json& climate) {
             hdd[m] *= k;
         }
         info.model = climate_from_monthly_hdd(hdd, info.base_c, leap, range_k);
+        warnings.push_back(spread_warning(path));
     } else if (climate.contains("annual_hdd")) {
         const auto annual = optional_number(climate, "annual_hdd", path);
         if (!annual || *annual <= 0 || *annual * k > 15000)
@@ -178,9 +241,22 @@ climate_info read_climate(const json& climate) {
     info.model.trace.push_back(range_given ? "daily range " + format_number(range_k / k) + " " + *unit + " as given"
                                            : "daily range " + format_fixed(range_k / k, 0) + " " + *unit +
                                                  " assumed (typical of inland mid-latitude sites; give daily_range)");
-    info.bins = hourly_bins(info.model, info.fahrenheit ? 2 * k : 1.0);
-    info.design_99_c = design_temperature(info.model, 0.01);
-    info.design_996_c = design_temperature(info.model, 0.004);
+    if (climate.contains("bins")) {
+        read_observed_bins(climate, *unit, leap, info);
+        info.design_99_c = design_temperature_from_bins(info.bins, info.bin_width_k, 0.01);
+        info.design_996_c = design_temperature_from_bins(info.bins, info.bin_width_k, 0.004);
+        info.model.trace.push_back("hourly bins and design temperatures from observed hours as given (" +
+                                   std::to_string(info.bins.size()) + " bins of " + format_number(info.bin_width_k / k) + " " +
+                                   *unit + ")");
+    } else {
+        info.bin_width_k = info.fahrenheit ? 2 * k : 1.0;
+        info.bins = hourly_bins(info.model, info.bin_width_k);
+        info.design_99_c = design_temperature(info.model, 0.01);
+        info.design_996_c = design_temperature(info.model, 0.004);
+    }
+    warn_unknown_keys(climate, {"unit", "base", "leap_year", "daily_range", "design_temperature", "monthly_mean", "monthly_sd",
+                                "monthly_hdd", "annual_hdd", "bins", "bin_width", "name", "source"},
+                      path, warnings);
     return info;
 }
 

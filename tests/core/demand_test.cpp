@@ -132,7 +132,8 @@ TEST(demand_bills, warnings_for_thin_or_gappy_bills) {
     // May, July and September are not billed: each gap is named at the later bill with both bills' dates.
     EXPECT_TRUE(has("31 days (2025-05-01 to 2025-05-31) between the bill of 2025-04-01 to 2025-04-30 and the bill of "
                     "2025-06-01 to 2025-06-30 are not covered by any bill"));
-    EXPECT_EQ(result.at("warnings").at(0).at("path"), "/demand/bills/1/start");
+    const auto& warnings = result.at("warnings");
+    EXPECT_TRUE(std::any_of(warnings.begin(), warnings.end(), [](const json& w) { return w.at("path") == "/demand/bills/1/start"; }));
     EXPECT_TRUE(has("30 days (2025-09-01 to 2025-09-30) between the bill of 2025-08-01 to 2025-08-31"));
     // An annual total alone.
     const json annual = json::array({{{"start", "2025-01-01"}, {"end", "2025-12-31"}, {"quantity", 2000}, {"unit", "therm"}}});
@@ -140,8 +141,10 @@ TEST(demand_bills, warnings_for_thin_or_gappy_bills) {
     ASSERT_TRUE(one.at("errors").empty()) << one.dump();
     // 2000 therm x 29.3071 kWh/therm x 0.8 AFUE = 46891.4 kWh.
     EXPECT_NEAR(one.at("demand").at("annual_useful_heat_kwh").get<double>(), 2000 * 29.30710701722 * 0.8, 1e-3);
-    EXPECT_EQ(one.at("warnings").at(0).at("message").get<std::string>().substr(0, 49),
-              "an annual total alone is not weather-normalised: ");
+    const auto& annual_warnings = one.at("warnings");
+    EXPECT_TRUE(std::any_of(annual_warnings.begin(), annual_warnings.end(), [](const json& w) {
+        return w.at("message").get<std::string>().rfind("an annual total alone is not weather-normalised: ", 0) == 0;
+    })) << annual_warnings.dump();
 }
 
 TEST(demand_bills, errors) {
