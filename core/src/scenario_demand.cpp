@@ -2,6 +2,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <limits>
 #include <map>
 #include <numeric>
 
@@ -563,6 +564,15 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             if (fit.r2 < 0.7)
                 warnings.push_back({"/demand/bills", "poor fit (R^2 = " + format_fixed(fit.r2, 2) + " < 0.7): the bills do not follow "
                                                      "the weather well; check the readings and the climate"});
+            double least_hdd_per_day = std::numeric_limits<double>::infinity();
+            for (const auto& point : fit.points) least_hdd_per_day = std::min(least_hdd_per_day, point.first);
+            if (least_hdd_per_day > 1.0)
+                warnings.push_back({"/demand/bills",
+                                    "every billing period needed heat (the warmest averaged " +
+                                        format_fixed(least_hdd_per_day / degree_size(f), 1) + (f ? " degF" : " K") +
+                                        " below the reference temperature a day), so the bills cannot tell the base use (hot "
+                                        "water, cooking) from heating: the split between them, and the useful space heat, "
+                                        "is uncertain; add summer bills"});
             if (fit.slope_kwh_per_k_day <= 0)
                 throw input_error("/demand/bills", "the bills show no heating use that rises with the cold (slope " +
                                                        format_number(fit.slope_kwh_per_k_day) + ")");
