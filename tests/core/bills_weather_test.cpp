@@ -161,6 +161,26 @@ TEST(bills_weather, observed_daily_weather_recovers_the_house_whatever_the_year)
     }
 }
 
+TEST(bills_weather, a_year_that_always_needs_heat_cannot_split_base_use_from_heating) {
+    // In a cold or maritime climate where every day is below the house's reference temperature, base
+    // use and the reference temperature trade off exactly (base + slope x (tau - T)): the fit says so.
+    const house h{1.1, 0.35, 61.0};
+    const auto reads = meter_reads(2021);
+    const long first = fw::parse_day_number(reads.front(), "");
+    const auto weather = invented_daily_weather(first, 400, 11, -32.0);
+    std::vector<double> therms;
+    for (std::size_t i = 0; i + 1 < reads.size(); ++i)
+        therms.push_back(therms_used(h, weather, first, fw::parse_day_number(reads[i], ""), fw::parse_day_number(reads[i + 1], "")));
+    json daily = json::array();
+    for (std::size_t i = 0; i < weather.size(); ++i) daily.push_back({fw::day_text(first + static_cast<long>(i)), weather[i]});
+    const auto result = evaluate(bills_scenario(reads, therms, {{"observed", {{"unit", "degF"}, {"daily_mean", daily}}}}));
+    ASSERT_TRUE(result.at("errors").empty()) << result.dump();
+    const auto& warnings = result.at("warnings");
+    EXPECT_TRUE(std::any_of(warnings.begin(), warnings.end(), [](const json& w) {
+        return w.at("path") == "/demand/bills" && w.at("message").get<std::string>().rfind("every billing period needed heat", 0) == 0;
+    })) << warnings.dump();
+}
+
 TEST(bills_weather, a_bill_the_observed_weather_does_not_cover_gets_a_message) {
     const auto reads = meter_reads(2024);
     const long first = fw::parse_day_number(reads.front(), "");
