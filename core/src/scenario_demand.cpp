@@ -36,6 +36,12 @@ std::array<double, 12> twelve_numbers(const json& obj, const std::string& key, c
     return out;
 }
 
+/// [kWh] Useful heat a year above which a demand is refused as not a house's (5 GWh, a large
+/// apartment block), and the range outside which it is questioned (common practice: about 1.5 to 300 MWh).
+constexpr double max_house_heat_kwh = 5e6;
+constexpr double large_house_heat_kwh = 3e5;
+constexpr double small_house_heat_kwh = 1500;
+
 /// [K per input degree]: 1 for degC and K, 5/9 for degF.
 double degree_size(bool fahrenheit) { return fahrenheit ? 5.0 / 9.0 : 1.0; }
 
@@ -285,6 +291,15 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         const double kwh = quantity_in(heat, "/demand/annual_useful_heat", dimension::energy, "kWh");
         if (kwh <= 0)
             throw input_error("/demand/annual_useful_heat/value", "must be > 0, got " + format_number(heat.at("value").get<double>()));
+        if (kwh > max_house_heat_kwh)
+            throw input_error("/demand/annual_useful_heat/value",
+                              format_number(heat.at("value").get<double>()) + " " + heat.at("unit").get<std::string>() +
+                                  " is not the yearly heat of a house: at most " + energy_text(max_house_heat_kwh) +
+                                  " (5,000 MWh) is taken");
+        if (kwh > large_house_heat_kwh || kwh < small_house_heat_kwh)
+            warnings.push_back({"/demand/annual_useful_heat/value",
+                                energy_text(kwh) + " a year is " + (kwh > large_house_heat_kwh ? "far above" : "far below") +
+                                    " what a house needs (about 1.5 to 300 MWh, 5 to 1,000 MMBtu); check the value and its unit"});
         out.space_heat_kwh = kwh;
         out.demand_trace.push_back("annual useful heat given directly: " + format_number(heat.at("value").get<double>()) +
                                    " " + heat.at("unit").get<std::string>() + " = " + format_fixed(kwh, 1) + " kWh");

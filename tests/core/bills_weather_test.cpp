@@ -260,6 +260,25 @@ TEST(bills_weather, a_demand_problem_stops_before_any_option_is_computed) {
         EXPECT_EQ(answer.at("errors").at(0).at("path").get<std::string>().rfind("/demand/annual_useful_heat", 0), 0u);
         EXPECT_EQ(answer.dump().find("internal error"), std::string::npos);
     }
+    // An absurd one (1e12 MMBtu typed for 120): refused at the field, with the range taken.
+    json absurd = scenario;
+    absurd["demand"] = {{"method", "direct"}, {"annual_useful_heat", {{"value", 1e12}, {"unit", "MMBtu"}}}};
+    const auto refused = evaluate(absurd);
+    ASSERT_EQ(refused.at("errors").size(), 1u);
+    EXPECT_EQ(refused.at("errors").at(0).at("path"), "/demand/annual_useful_heat/value");
+    EXPECT_EQ(refused.at("errors").at(0).at("message"),
+              "1e+12 MMBtu is not the yearly heat of a house: at most 17060.71 MMBtu (5,000 MWh) is taken");
+    // A large but possible one is evaluated, with a question at the field (5,000 MMBtu = 1,465 MWh).
+    absurd["demand"]["annual_useful_heat"]["value"] = 5000;
+    const auto questioned = evaluate(absurd);
+    ASSERT_TRUE(questioned.at("errors").empty()) << questioned.dump();
+    const auto& warnings = questioned.at("warnings");
+    EXPECT_NE(std::find(warnings.begin(), warnings.end(),
+                        json{{"path", "/demand/annual_useful_heat/value"},
+                             {"message", "5000.00 MMBtu a year is far above what a house needs (about 1.5 to 300 MWh, 5 to 1,000 "
+                                         "MMBtu); check the value and its unit"}}),
+              warnings.end())
+        << warnings.dump();
 }
 
 }  // namespace
