@@ -64,9 +64,10 @@ std::vector<option_economics> appraise(const scenario& input, const evaluation& 
             x.residual_pv = o.installed_cost * std::max(0.0, 1.0 - age_at_end / life) * spw(d, n);
         }
         x.life_cycle_cost = x.net_installed_cost + x.replacement_pv - x.residual_pv + x.energy_fixed_pv + x.maintenance_pv;
-        const double capital_years = o.life_years.value_or(n);
-        x.lcoh_per_kwh = (x.net_installed_cost * crf(d, capital_years) + o.annual_maintenance +
-                          x.energy_fixed_pv * crf(d, n)) / r.useful_heat_kwh;
+        // Levelized cost of heat: the life-cycle cost (capital, replacements, residual value, energy,
+        // fixed charges and maintenance with their escalation) spread over the period by the capital
+        // recovery factor, per unit of useful heat: LCOH = LCC x CRF(d, N) / Q (NIST Handbook 135 levelizing).
+        x.lcoh_per_kwh = x.life_cycle_cost * crf(d, n) / r.useful_heat_kwh;
         x.trace.push_back("life-cycle cost over " + std::to_string(n) + " years at " + format_fixed(100 * d, 2) + " % (" + e.basis +
                           "): capital " + format_fixed(x.net_installed_cost, 0) +
                           (x.replacement_pv > 0 ? " + replacements " + format_fixed(x.replacement_pv, 0) : "") +
@@ -78,9 +79,9 @@ std::vector<option_economics> appraise(const scenario& input, const evaluation& 
             factors += (factors.empty() ? "" : "; ") + r.cost_parts[k].fuel_id + " escalating " +
                        format_fixed(100 * e.escalation_of(r.cost_parts[k].fuel_id), 1) + " %/yr: UPW* = " + format_fixed(x.part_upw[k], 4);
         x.trace.push_back("present worth of the yearly costs, NIST Handbook 135 UPW* = (1+e)/(d-e) [1 - ((1+e)/(1+d))^N]: " + factors);
-        x.trace.push_back("levelized cost of heat = (capital x CRF(" + format_fixed(capital_years, 0) + " yr) + maintenance + " +
-                          "present worth of energy x CRF(" + std::to_string(n) + " yr)) / useful heat = " +
-                          format_fixed(x.lcoh_per_kwh, 4) + " " + currency + "/kWh (fuel levelized with its escalation)");
+        x.trace.push_back("levelized cost of heat = life-cycle cost x CRF(" + format_fixed(100 * d, 2) + " %, " + std::to_string(n) +
+                          " yr) " + format_fixed(crf(d, n), 5) + " / useful heat = " + format_fixed(x.lcoh_per_kwh, 4) + " " +
+                          currency + "/kWh (replacements, residual value and escalation included)");
         out.push_back(std::move(x));
     }
     if (!baseline) return out;

@@ -144,6 +144,12 @@ fuel_record load_fuel(const json& item) {
     fuel.emissions.co2_kg_per_mmbtu = emissions.value("co2_kg_per_mmbtu", 0.0);
     fuel.emissions.ch4_kg_per_mmbtu = emissions.value("ch4_kg_per_mmbtu", 0.0);
     fuel.emissions.n2o_kg_per_mmbtu = emissions.value("n2o_kg_per_mmbtu", 0.0);
+    if (emissions.contains("ch4_kg_per_tj_ncv")) {
+        // IPCC factors are per TJ of net (NCV) energy: per MMBtu of HHV input = factor x LHV/HHV x TJ per MMBtu.
+        const double tj_per_mmbtu = 1.05505585262e-3;
+        fuel.emissions.ch4_kg_per_mmbtu = emissions.at("ch4_kg_per_tj_ncv").get<double>() * fuel.lhv_over_hhv * tj_per_mmbtu;
+        fuel.emissions.n2o_kg_per_mmbtu = emissions.at("n2o_kg_per_tj_ncv").get<double>() * fuel.lhv_over_hhv * tj_per_mmbtu;
+    }
     fuel.emissions.biogenic = emissions.value("biogenic", false);
     fuel.emissions.per_kwh_setting = fuel.category == fuel_category::electricity;
     fuel.emissions.source = citation(emissions.at("source").get<std::string>());

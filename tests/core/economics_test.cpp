@@ -2,6 +2,10 @@
 // the C++ standard, hand-worked NPV and payback, break-even, and the Monte Carlo properties.
 #include <gtest/gtest.h>
 
+#include <cstdlib>
+#include <filesystem>
+#include <fstream>
+
 #include <cmath>
 #include <nlohmann/json.hpp>
 #include <random>
@@ -119,7 +123,8 @@ TEST(economics, hand_worked_npv_and_payback) {
     }
     ASSERT_GT(expected, 0);
     EXPECT_NEAR(hp.at("discounted_payback_years").get<double>(), expected, 1e-9);
-    // LCC = C0 + annual cost x UPW*; LCOH = (C0 x CRF + annual cost x UPW* x CRF) / useful heat.
+    // LCC = C0 + annual cost x UPW*; LCOH = LCC x CRF / useful heat (issue 13: the levelized cost and the
+    // life-cycle cost tell the same story).
     const double upw_star = fw::upw_escalating(0.05, 0.02, 15);
     EXPECT_NEAR(hp.at("life_cycle_cost").get<double>(), 12000 + hp.at("annual_cost").get<double>() * upw_star, 1e-6);
     EXPECT_NEAR(hp.at("lcoh_per_kwh").get<double>(),
@@ -159,6 +164,36 @@ TEST(economics, replacement_and_residual_value) {
     const double difference = option_of(with_life, "lp").at("life_cycle_cost").get<double>() -
                               option_of(result, "lp").at("life_cycle_cost").get<double>();
     EXPECT_NEAR(difference, 7000 * std::pow(1.05, -10) - 3500 * std::pow(1.05, -15), 1e-6);
+}
+
+TEST(economics, lcoh_is_the_life_cycle_cost_levelized_in_every_example) {
+    // Issue 13: LCOH x annual heat = LCC x CRF(d, N), replacements, residual value and maintenance
+    // escalation included, for every option of every example with economics (to 0.1 %), and for a
+    // furnace replaced within the period.
+    const char* folder = std::getenv("FUELWRIGHT_DATA_DIR");
+    ASSERT_NE(folder, nullptr) << "ctest sets FUELWRIGHT_DATA_DIR";
+    int checked = 0;
+    for (const auto& entry : std::filesystem::directory_iterator(std::filesystem::path(folder) / "examples")) {
+        if (entry.path().filename().string().rfind("supplier-", 0) == 0) continue;
+        std::ifstream file(entry.path());
+        const auto result = json::parse(fw::evaluate_json(json::parse(file).dump()));
+        if (!result.contains("economics") || result.at("economics").is_null()) continue;
+        const double d = result.at("economics").at("discount_rate").get<double>();
+        const int n = result.at("economics").at("analysis_years").get<int>();
+        for (const auto& option : result.at("options")) {
+            const double levelized = option.at("life_cycle_cost").get<double>() * fw::crf(d, n);
+            EXPECT_NEAR(option.at("lcoh_per_kwh").get<double>() * option.at("useful_heat_kwh").get<double>() / levelized, 1.0, 1e-3)
+                << entry.path().filename() << " " << option.at("id");
+            ++checked;
+        }
+    }
+    EXPECT_GE(checked, 5);
+    auto patched = switching_scenario();
+    patched["options"][2]["life_years"] = 10;
+    const auto replaced = json::parse(fw::evaluate_json(patched.dump()));
+    const auto& lp = option_of(replaced, "lp");
+    EXPECT_NEAR(lp.at("lcoh_per_kwh").get<double>() * lp.at("useful_heat_kwh").get<double>(),
+                lp.at("life_cycle_cost").get<double>() * fw::crf(0.05, 15), 1e-9);
 }
 
 TEST(economics, break_even_price_gives_equal_costs) {

@@ -161,3 +161,22 @@ TEST(fuel_errors, unknown_fuel_and_unit) {
 }
 
 }  // namespace
+
+namespace {
+
+TEST(fuels_emissions, residential_wood_methane_from_the_ipcc_residential_factors) {
+    // IPCC 2006 Guidelines Vol. 2 Ch. 2 Table 2.9, residential wood/wood waste: CH4 300 kg/TJ and N2O
+    // 4 kg/TJ on the net (NCV) basis (from memory). Per MMBtu of HHV input: x LHV/HHV x 1.05505585262e-3
+    // TJ/MMBtu, about forty times EPA Table C-2's 0.0072 kg/MMBtu for industrial wood boilers.
+    for (const char* id : {"cordwood", "wood-pellets"}) {
+        const auto& wood = fw::find_fuel(id, "");
+        EXPECT_NEAR(wood.emissions.ch4_kg_per_mmbtu, 300 * wood.lhv_over_hhv * 1.05505585262e-3, 1e-12) << id;
+        EXPECT_NEAR(wood.emissions.n2o_kg_per_mmbtu, 4 * wood.lhv_over_hhv * 1.05505585262e-3, 1e-12) << id;
+        EXPECT_GT(wood.emissions.ch4_kg_per_mmbtu / 7.2e-3, 30.0) << id;
+        EXPECT_LT(wood.emissions.ch4_kg_per_mmbtu / 7.2e-3, 45.0) << id;
+    }
+    // Gas keeps EPA Table C-2 (1.0e-3 kg CH4/MMBtu).
+    EXPECT_NEAR(fw::find_fuel("natural-gas", "").emissions.ch4_kg_per_mmbtu, 1.0e-3, 1e-15);
+}
+
+}  // namespace
