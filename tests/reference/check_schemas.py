@@ -18,8 +18,6 @@ import sys
 from pathlib import Path
 
 from jsonschema import Draft202012Validator
-from referencing import Registry
-from referencing.jsonschema import DRAFT202012
 
 ROOT = Path(__file__).resolve().parents[2]
 DATA = ROOT / "data"
@@ -127,8 +125,16 @@ for path in examples:
 Draft202012Validator.check_schema(load(DATA / "schema" / "supplier-prices.schema.json"))
 # The price file's climate refers to the scenario schema's (scenario.schema.json#/$defs/climate), found by its $id.
 scenario_document = load(DATA / "schema" / "scenario.schema.json")
-registry = Registry().with_resource(scenario_document["$id"], DRAFT202012.create_resource(scenario_document))
-prices_schema = Draft202012Validator(load(DATA / "schema" / "supplier-prices.schema.json"), registry=registry)
+prices_document = load(DATA / "schema" / "supplier-prices.schema.json")
+try:  # jsonschema 4.18 and later
+    from referencing import Registry
+    from referencing.jsonschema import DRAFT202012
+    registry = Registry().with_resource(scenario_document["$id"], DRAFT202012.create_resource(scenario_document))
+    prices_schema = Draft202012Validator(prices_document, registry=registry)
+except ImportError:  # Debian 12's jsonschema 4.10
+    from jsonschema import RefResolver
+    resolver = RefResolver.from_schema(prices_document, store={scenario_document["$id"]: scenario_document})
+    prices_schema = Draft202012Validator(prices_document, resolver=resolver)
 with_climate = copy.deepcopy(load(DATA / "examples" / "supplier-prices.json"))
 with_climate["climate"] = {"monthly_mean": [22, 25, 34, 46, 57, 66, 71, 69, 61, 49, 38, 27], "unit": "degF"}
 errors = errors_of(prices_schema, with_climate)
