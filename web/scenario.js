@@ -140,8 +140,9 @@ function demandOf(d) {
       return bill;
     });
     // sent as chosen (a value the core does not know comes back as an error at the choice); a quote
-    // saved before the choice existed was made for the core's default, meter reads
-    out.bill_dates = d.bill_dates ?? 'meter-reads';
+    // saved or imported without the rule sends none, so the core keeps its old meaning (inclusive
+    // unless two bills share a day)
+    put(out, 'bill_dates', d.bill_dates);
     if (d.observed && typeof d.observed === 'object') out.observed = clone(d.observed);
     if (d.bills_fuel !== undefined || d.bills_system !== undefined) {
       put(out, 'fuel', clone(d.bills_fuel));
@@ -472,8 +473,8 @@ export function fromScenario(doc) {
   if (d.option !== undefined) wd.bills_option = d.option;
   if (d.fuel !== undefined) wd.bills_fuel = clone(d.fuel);
   if (d.system !== undefined) wd.bills_system = clone(d.system);
-  // a scenario without bill_dates was written for the core's default: meter reads
-  if (d.bill_dates !== undefined) wd.bill_dates = d.bill_dates;
+  // bills without the date rule keep the core's reading of them (no rule sent); a new quote's bills are meter reads
+  if (d.bill_dates !== undefined || (Array.isArray(d.bills) && d.bills.length)) wd.bill_dates = d.bill_dates;
   if (d.observed !== undefined) wd.observed = clone(d.observed);
   const demandExtra = Object.fromEntries(Object.entries(d).filter(([key]) => !demandKnown.includes(key)));
   if (Object.keys(demandExtra).length) wd.extra = clone(demandExtra);

@@ -101,8 +101,15 @@ describe('web/scenario.js: bills as printed and the weather of the bills', () =>
     assert.deepEqual(scenario.toScenario(scenario.fromScenario(back)), back, 'a second round trip changes nothing');
   });
 
-  test('a scenario without bill_dates opens as meter reads (the core\'s default), and a value the core does not know is sent as it is', () => {
-    assert.equal(scenario.fromScenario(billsScenario()).demand.bill_dates, 'meter-reads');
+  test('bills without the date rule send none (the core keeps their old meaning), and a value the core does not know is sent as it is', () => {
+    const old = scenario.fromScenario(billsScenario());
+    assert.equal(old.demand.bill_dates, undefined);
+    assert.equal('bill_dates' in scenario.toScenario(old).demand, false);
+    const saved = scenario.blankWorkspace();
+    delete saved.demand.bill_dates;  // a quote saved before the choice existed
+    saved.demand.method = 'bills';
+    assert.equal('bill_dates' in scenario.toScenario(saved).demand, false);
+    assert.equal(scenario.fromScenario(withClimate(null)).demand.bill_dates, 'meter-reads', 'no bills yet: a new quote\'s rule');
     const odd = scenario.fromScenario(billsScenario({ bill_dates: 'calendar-months' }));
     assert.equal(scenario.toScenario(odd).demand.bill_dates, 'calendar-months', 'not quietly read as meter reads');
   });

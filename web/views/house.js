@@ -90,9 +90,11 @@ function billFields(ctx, ws, d) {
   return [
     selectField(ctx, { label: 'These bills are for', path: '/demand/bills_option', value: d.bills_option ?? '',
       choices: [['', 'Choose the existing system…'], ...systems] }),
-    radioField(ctx, { legend: 'Bill dates are', path: '/demand/bill_dates', value: d.bill_dates ?? 'meter-reads', structural: false,
+    radioField(ctx, { legend: 'Bill dates are', path: '/demand/bill_dates', value: d.bill_dates,
       choices: [['meter-reads', 'Meter reads (each bill starts on the day the last one ended)'],
         ['inclusive', 'Inclusive (the end date is the bill\'s last day)']] }),
+    d.bill_dates === undefined ? h('p', { class: 'hint', id: 'bill-dates-unstated',
+      text: 'These bills do not say how their dates are read: when two bills share a day they are read as meter reads, otherwise as inclusive. Choose one to be sure.' }) : null,
     h('div', { class: 'rows' }, rows),
     h('button', { type: 'button', class: 'secondary', dataset: { action: 'add-bill' }, text: 'Add a bill' }),
     billWeather(ctx, d),
