@@ -100,7 +100,7 @@ describe('House tab: bills as printed, weather file, climate library (Chromium, 
     assert.equal(await page.isChecked('#f-demand-bill-dates-meter-reads'), true, 'meter reads by default');
     await page.selectOption('#f-demand-bills-option', 'oil-boiler');
     await page.tap('[data-action="add-bill"]');
-    await typeInto('#f-demand-bills-0-start', '2025-11-12');
+    await page.fill('#f-demand-bills-0-start', '2025-11-12');
     await page.fill('#f-demand-bills-0-end', '2025-12-11');
     await typeInto('#f-demand-bills-0-quantity', '118');
     await page.selectOption('#f-demand-bills-0-unit', 'gal');
@@ -214,6 +214,7 @@ describe('House tab: bills as printed, weather file, climate library (Chromium, 
     await page.screenshot({ path: join(ARTIFACTS, 'chromium-house-768.png'), fullPage: true });
     await page.setViewportSize({ width: 390, height: 844 });
     await page.screenshot({ path: join(ARTIFACTS, 'chromium-house-390.png'), fullPage: true });
+    assert.doesNotMatch(await page.textContent('#panel-house'), /\bnull\b|undefined|NaN/);
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     assert.ok(overflow <= 0, `the page scrolls sideways by ${overflow} px at 390 px`);
     assert.deepEqual(consoleErrors, []);

@@ -29,7 +29,7 @@ export function renderWeather(node, w, input) {
       h('button', { type: 'button', class: 'secondary', id: 'weather-use-observed', dataset: { action: 'weather-use-observed' }, disabled: !s.observed,
         text: 'Use for the bills\' weather' }))) : null;
   const problems = s && !s.ok ? h('ul', { class: 'problems', id: 'weather-errors', role: 'alert' }, s.errors.map((text) => h('li', { text }))) : null;
-  node.replaceChildren(
+  node.replaceChildren(...[
     h('legend', { text: 'Weather from a file' }),
     h('p', { class: 'hint', text: 'A CSV file of daily or hourly outdoor temperatures from a weather service or your own logger. Whole years give this quote a climate; any stretch of days gives the bills their weather.' }),
     h('div', { class: 'grid two' },
@@ -40,7 +40,7 @@ export function renderWeather(node, w, input) {
     w.pending ? h('p', { class: 'status', id: 'weather-pending', text: `Reading “${w.fileName}”…` }) : null,
     message('weather-msg', w.message),
     problems,
-    read);
+    read].filter(Boolean));
 }
 
 /** One kept climate: name, what it holds, Use / Rename / Delete, or the rename field. */
@@ -75,7 +75,7 @@ function entryItem(e, lib, currentName) {
  */
 export function renderLibrary(node, lib, currentName, input) {
   const entries = [...lib.entries].sort((a, b) => a.name.localeCompare(b.name));
-  node.replaceChildren(
+  node.replaceChildren(...[
     h('legend', { text: 'Climates kept on this device' }),
     h('p', { class: 'hint', text: 'Keep the climates of the places you work in and pick one for a quote in one tap.' }),
     entries.length ? h('ul', { class: 'quote-list climate-list', id: 'climate-list' }, entries.map((e) => entryItem(e, lib, currentName)))
@@ -94,5 +94,5 @@ export function renderLibrary(node, lib, currentName, input) {
       h('button', { type: 'button', class: 'secondary', dataset: { action: 'library-export' }, disabled: !entries.length, text: 'Export the kept climates (JSON)' }),
       h('label', { class: 'button secondary', for: 'climate-library-file', text: 'Import climates (JSON)' }), input),
     message('library-msg', lib.message),
-    h('p', { class: 'hint', id: 'climate-storage-kind', text: `Kept on this device (${lib.kind || 'opening…'}).` }));
+    h('p', { class: 'hint', id: 'climate-storage-kind', text: `Kept on this device (${lib.kind || 'opening…'}).` })].filter(Boolean));
 }
