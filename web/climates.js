@@ -11,6 +11,7 @@ import { keepableClimate, libraryFile, makeEntry, nameProblem, readLibraryFile, 
 import { openClimates } from './climate-store.js';
 import { climateFromScenario } from './scenario.js';
 import { newId } from './storage.js';
+import { plainUnits } from './format.js';
 import { fileProblem, weatherLabel, weatherRequest, weatherSummary } from './weather.js';
 import { renderLibrary, renderWeather } from './views/climates.js';
 
@@ -143,7 +144,7 @@ export function createClimateTools(ctx) {
   /** The problems the core finds in a climate, as one sentence, or '' when it has none. */
   async function coreProblems(climate) {
     const check = await core.climate(climate);
-    return (check.errors ?? []).map((e) => e.message).join('; ');
+    return (check.errors ?? []).map((e) => plainUnits(e.message)).join('; ');
   }
 
   async function keep() {
@@ -165,7 +166,7 @@ export function createClimateTools(ctx) {
     }
     lib.entries.push(entry);
     lib.keepName = '';
-    store.mutate((ws) => { ws.climate.label = entry.name; }, { reason: 'value' });
+    store.mutate((ws) => { ws.climate.label = entry.name; });
     say(lib, true, `Kept “${entry.name}” on this device.`);
     paint();
   }
@@ -193,7 +194,7 @@ export function createClimateTools(ctx) {
       return;
     }
     lib.entries = lib.entries.map((e) => (e.id === id ? renamed : e));
-    if (store.state.climate?.label === entry.name) store.mutate((ws) => { ws.climate.label = name; }, { reason: 'value' });
+    if (store.state.climate?.label === entry.name) store.mutate((ws) => { ws.climate.label = name; });
     lib.renaming = null;
     say(lib, true, `Renamed “${entry.name}” to “${name}”.`);
     paint();

@@ -3,17 +3,13 @@
 // words (station, period, days or hours, annual degree-days, design
 // temperatures, warnings, problems), and the labels the quote keeps for the
 // climate and the bills' weather it came from. No DOM here, so Node can test it.
+import { plainUnits } from './format.js';
 
 /** Largest weather file read [bytes]: ten years of hourly readings fit in a few MB. */
 export const MAX_WEATHER_BYTES = 32 * 1024 * 1024;
 
-export const WEATHER_FORMATS = ['', 'daily', 'hourly'];
-export const WEATHER_UNITS = ['', 'degF', 'degC'];
-
 const isNumber = (v) => typeof v === 'number' && Number.isFinite(v);
 
-/** Core words for units in a message ("-5 degF") as people write them ("-5 °F"). */
-export const plainUnits = (text) => String(text ?? '').replace(/\bdegF\b/g, '°F').replace(/\bdegC\b/g, '°C');
 
 /** The core's weather() request for a file's text; format and unit only when the user chose them. */
 export function weatherRequest(text, { format = '', unit = '' } = {}) {

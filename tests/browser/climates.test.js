@@ -198,7 +198,7 @@ describe('House tab: bills as printed, weather file, climate library (Chromium, 
     const msg = await pickAndWait('#climate-library-file', '#library-msg', { name: 'climates.json', mimeType: 'application/json', buffer: Buffer.from(text) });
     assert.equal(msg.ok, false);
     assert.match(msg.text, /Imported 1 climate from “climates\.json”: “Ashby upper ridge \(invented\)” \(kept as “Ashby upper ridge \(invented\) \(2\)”/);
-    assert.match(msg.text, /Climate “Too warm \(invented\)” was not kept: 300 degF is not a plausible monthly mean/);
+    assert.match(msg.text, /Climate “Too warm \(invented\)” was not kept: 300 °F is not a plausible monthly mean/);
     const notJson = await pickAndWait('#climate-library-file', '#library-msg', { name: 'x.json', mimeType: 'application/json', buffer: Buffer.from('{') });
     assert.equal(notJson.text, 'Could not import “x.json”: it is not a JSON file.');
 
