@@ -125,7 +125,7 @@ function climateFields(ctx, ws) {
   nodes.push(h('div', { class: 'grid two' },
     quantityField(ctx, 'Degree-day base temperature', '/climate/base', c.base, TEMPS),
     c.mode !== 'annual_hdd' ? quantityField(ctx, 'Design temperature (optional)', '/climate/design_temperature', c.design_temperature, TEMPS,
-      { hint: 'The 99 % heating design temperature; worked out from the months when left empty.' }) : null,
+      { hint: 'The 99 % heating design temperature. Given, it sets how much the days of each month vary; left empty, it is worked out from the months.' }) : null,
     numberField(ctx, { label: 'Mean daily range (optional)', path: '/climate/daily_range', value: c.daily_range,
       unit: c.unit === 'degC' ? '°C' : '°F' })));
   nodes.push(checkField(ctx, { label: 'Leap year (366 days)', path: '/climate/leap_year', checked: c.leap_year }));
