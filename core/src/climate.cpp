@@ -5,6 +5,7 @@
 #include <numeric>
 
 #include "fw/error.hpp"
+#include "fw/roots.hpp"
 
 namespace fw {
 
@@ -241,6 +242,33 @@ double design_temperature(const climate_model& climate, double fraction) {
         return hours / total;
     };
     return bisect(share_below, fraction, -90.0, 60.0);
+}
+
+double design_temperature_from_bins(const std::vector<temperature_bin>& bins, double width_k, double fraction) {
+    double total = 0;
+    for (const auto& bin : bins) total += bin.hours;
+    const double target = fraction * total;
+    double below = 0;
+    for (const auto& bin : bins) {
+        // A share of the hours that ends exactly on a bin's top edge (87.6 h of 8760) is that edge,
+        // whatever the rounding of fraction x total.
+        if (bin.hours > 0 && below + bin.hours >= target - 1e-9 * total)
+            return bin.t_c - width_k / 2 + width_k * std::min(1.0, (target - below) / bin.hours);
+        below += bin.hours;
+    }
+    return bins.empty() ? 0.0 : bins.back().t_c + width_k / 2;
+}
+
+std::optional<double> spread_factor_for_design(const climate_model& climate, double design_99_c) {
+    const auto miss = [&](double factor) {
+        climate_model scaled = climate;
+        for (double& sd : scaled.daily_sd_k) sd *= factor;
+        return design_temperature(scaled, 0.01) - design_99_c;
+    };
+    const double lo = 0.2, hi = 4.0;
+    const double f_lo = miss(lo), f_hi = miss(hi);
+    if ((f_lo < 0) == (f_hi < 0) && f_lo != 0 && f_hi != 0) return std::nullopt;
+    return illinois_root(miss, lo, hi, f_lo, f_hi, 1e-6);
 }
 
 }  // namespace fw

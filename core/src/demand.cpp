@@ -1,7 +1,9 @@
 #include "fw/demand.hpp"
 
+#include <algorithm>
 #include <cctype>
 #include <cmath>
+#include <cstdio>
 #include <limits>
 
 #include "fw/error.hpp"
@@ -107,6 +109,34 @@ double period_hdd(const climate_model& climate, long first_day, long last_day, d
     return total;
 }
 
+std::string day_text(long day_number) {
+    long y;
+    unsigned m, d;
+    civil_from_days(day_number, y, m, d);
+    char text[16];
+    std::snprintf(text, sizeof text, "%04ld-%02u-%02u", y, m, d);
+    return text;
+}
+
+double bill_hdd(const bill_period& bill, const climate_model& climate, double base_c) {
+    const double days = static_cast<double>(bill.last_day - bill.first_day + 1);
+    switch (bill.weather) {
+        case bill_weather::observed_daily: {
+            double total = 0;
+            for (double t : bill.daily_mean_c) total += std::max(0.0, base_c - t);
+            return bill.daily_mean_c.empty() ? 0.0 : total * days / static_cast<double>(bill.daily_mean_c.size());
+        }
+        case bill_weather::observed_period_mean: {
+            double total = 0;
+            for (long day = bill.first_day; day <= bill.last_day; ++day)
+                total += logistic_hdd(bill.mean_c, climate.daily_sd_k[month_of_day(day)], base_c, 1);
+            return total;
+        }
+        case bill_weather::normals: break;
+    }
+    return period_hdd(climate, bill.first_day, bill.last_day, base_c);
+}
+
 prism_fit fit_prism(const std::vector<bill_period>& bills, const climate_model& climate, double tau_low_c,
                     double tau_high_c) {
     std::vector<double> use(bills.size()), weight(bills.size());
@@ -117,7 +147,7 @@ prism_fit fit_prism(const std::vector<bill_period>& bills, const climate_model& 
     const auto hdd_per_day = [&](double tau) {
         std::vector<double> x(bills.size());
         for (std::size_t i = 0; i < bills.size(); ++i)
-            x[i] = period_hdd(climate, bills[i].first_day, bills[i].last_day, tau) / weight[i];
+            x[i] = bill_hdd(bills[i], climate, tau) / weight[i];
         return x;
     };
     const auto r2_at = [&](double tau) { return fit_line(hdd_per_day(tau), use, weight).r2; };
@@ -170,6 +200,11 @@ prism_fit fit_prism(const std::vector<bill_period>& bills, const climate_model& 
         0.0, year_days * year_days * line.var_intercept + fit.normal_hdd * fit.normal_hdd * line.var_slope +
                  2 * year_days * fit.normal_hdd * line.cov));
     for (std::size_t i = 0; i < x.size(); ++i) fit.points.push_back({x[i], use[i]});
+    // The least exact weather of any bill: normals, then period means, then daily means.
+    const auto rank = [](bill_weather w) { return w == bill_weather::normals ? 2 : w == bill_weather::observed_period_mean ? 1 : 0; };
+    fit.weather = bill_weather::observed_daily;
+    for (const auto& bill : bills)
+        if (rank(bill.weather) > rank(fit.weather)) fit.weather = bill.weather;
     return fit;
 }
 

@@ -108,6 +108,11 @@ json demand_result(const scenario& input) {
                       {"heating", fit.heating_kwh},
                       {"base", fit.base_annual_kwh},
                       {"standard_error", fit.nac_standard_error_kwh},
+                      {"nac_standard_error", fit.nac_standard_error_kwh},
+                      {"cv_nac", fit.nac_kwh > 0 ? fit.nac_standard_error_kwh / fit.nac_kwh : 0.0},
+                      {"weather", fit.weather == bill_weather::observed_daily         ? "observed-daily"
+                                  : fit.weather == bill_weather::observed_period_mean ? "observed-period-mean"
+                                                                                      : "normals"},
                       {"normal_hdd", fit.normal_hdd / per_k},
                       {"unit", "kWh"},
                       {"temperature_unit", unit},
@@ -143,7 +148,8 @@ json climate_result(const climate_info& info) {
             {"monthly_hdd", hdd},
             {"annual_hdd", annual},
             {"bins", bins},
-            {"bin_width", info.fahrenheit ? 2 : 1},
+            {"bin_width", info.bin_width_k * per_k},
+            {"bins_from", info.bins_from_data ? "data" : "model"},
             {"bin_hours_total", hours},
             {"design_temperature_99", t(info.design_99_c)},
             {"design_temperature_996", t(info.design_996_c)},
@@ -306,9 +312,9 @@ std::string evaluate_json_with_progress(const std::string& scenario_json,
 }
 
 std::string climate_json(const std::string& request_json) noexcept {
-    return guarded_entry(request_json, [](const json& request, std::vector<issue>&) {
+    return guarded_entry(request_json, [](const json& request, std::vector<issue>& warnings) {
         require_object(request, "");
-        return climate_result(read_climate(request.contains("climate") ? request.at("climate") : request));
+        return climate_result(read_climate(request.contains("climate") ? request.at("climate") : request, warnings));
     });
 }
 

@@ -258,7 +258,10 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
     r.sources.push_back({"emission factors", option.fuel.id, option.fuel.emissions.source});
     r.sources.push_back({"bin method", "capacity, COP, C_D and backup per temperature bin",
                          "ASHRAE bin method; DOE 10 CFR 430 Subpart B Appendix M/M1 heating calculation (from memory)"});
-    r.sources.push_back({"climate bins", "Erbs, Klein & Beckman (1983)", "ASHRAE Journal 25(6), via Duffie & Beckman (from memory)"});
+    if (climate.bins_from_data)
+        r.sources.push_back({"climate bins", "observed hours", "hourly temperatures of the weather file the climate came from"});
+    else
+        r.sources.push_back({"climate bins", "Erbs, Klein & Beckman (1983)", "ASHRAE Journal 25(6), via Duffie & Beckman (from memory)"});
     return r;
 }
 

@@ -563,7 +563,7 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
     });
     const std::size_t errors_before_climate = errors.size();
     attempt([&] {
-        if (document.contains("climate")) out.climate = read_climate(document.at("climate"));
+        if (document.contains("climate")) out.climate = read_climate(document.at("climate"), warnings);
     });
     const bool climate_read = errors.size() == errors_before_climate;
     attempt([&] {

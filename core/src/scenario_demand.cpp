@@ -2,6 +2,8 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <limits>
+#include <map>
 #include <numeric>
 
 #include "fw/json_fields.hpp"
@@ -37,9 +39,123 @@ std::array<double, 12> twelve_numbers(const json& obj, const std::string& key, c
 /// [K per input degree]: 1 for degC and K, 5/9 for degF.
 double degree_size(bool fahrenheit) { return fahrenheit ? 5.0 / 9.0 : 1.0; }
 
+/// The trace line saying which weather the bills were fitted against.
+std::string weather_text(bill_weather weather) {
+    switch (weather) {
+        case bill_weather::observed_daily:
+            return "degree-days of each billing period from the observed daily mean temperatures";
+        case bill_weather::observed_period_mean:
+            return "degree-days of each billing period from its average outdoor temperature, with the climate's "
+                   "day-to-day spread for the months it covers (logistic daily means, Erbs et al. 1983)";
+        case bill_weather::normals: break;
+    }
+    return "degree-days of each billing period from the climate's normal monthly means (no observed weather given)";
+}
+
+/// [degC] A daily temperature list [["YYYY-MM-DD", number], ...] in `unit`, by day number; `path` is the list's.
+std::map<long, double> read_daily_list(const json& list, const std::string& unit, const std::string& path) {
+    if (!list.is_array()) throw input_error(path, "must be an array of [\"YYYY-MM-DD\", temperature] pairs");
+    if (list.size() > max_observed_days)
+        throw input_error(path, "at most " + std::to_string(max_observed_days) + " days (20 years), got " + std::to_string(list.size()));
+    std::map<long, double> out;
+    for (std::size_t i = 0; i < list.size(); ++i) {
+        const std::string item = path + "/" + std::to_string(i);
+        const auto& pair = list[i];
+        if (!pair.is_array() || pair.size() != 2 || !pair[0].is_string() || !pair[1].is_number())
+            throw input_error(item, "must be a pair [\"YYYY-MM-DD\", temperature]");
+        const long day = parse_day_number(pair[0].get<std::string>(), item + "/0");
+        const double t = convert(pair[1].get<double>(), unit, "degC", item + "/1");
+        if (!(t >= -70 && t <= 50))
+            throw input_error(item + "/1", format_number(pair[1].get<double>()) + " " + unit +
+                                               " is not a plausible daily temperature (it must lie between " +
+                                               (unit == "degF" ? "-94 and 122 degF" : "-70 and 50 degC") + ")");
+        if (!out.emplace(day, t).second)
+            throw input_error(item + "/0", "the day " + pair[0].get<std::string>() + " is listed twice");
+    }
+    return out;
+}
+
 }  // namespace
 
-climate_info read_climate(const json& climate) {
+std::map<long, double> read_observed(const json& observed, const std::string& path, std::vector<issue>& warnings) {
+    require_object(observed, path);
+    const auto unit = optional_string(observed, "unit", path);
+    if (!unit) throw input_error(path + "/unit", "is required (degC or degF)");
+    if (*unit != "degC" && *unit != "degF") throw input_error(path + "/unit", "must be degC or degF, got \"" + *unit + "\"");
+    std::map<long, double> out;
+    if (observed.contains("daily_mean")) {
+        out = read_daily_list(observed.at("daily_mean"), *unit, path + "/daily_mean");
+    } else if (observed.contains("daily_max") || observed.contains("daily_min")) {
+        if (!observed.contains("daily_max") || !observed.contains("daily_min"))
+            throw input_error(path + (observed.contains("daily_max") ? "/daily_min" : "/daily_max"),
+                              "is required with the other (the daily mean is (max + min) / 2)");
+        const auto highs = read_daily_list(observed.at("daily_max"), *unit, path + "/daily_max");
+        const auto lows = read_daily_list(observed.at("daily_min"), *unit, path + "/daily_min");
+        for (const auto& [day, high] : highs) {
+            const auto low = lows.find(day);
+            if (low == lows.end()) continue;
+            if (low->second > high)
+                throw input_error(path + "/daily_min", "the minimum of " + day_text(day) + " is above its maximum");
+            out.emplace(day, 0.5 * (high + low->second));
+        }
+    } else {
+        throw input_error(path, "give daily_mean, or daily_max and daily_min ([\"YYYY-MM-DD\", temperature] pairs)");
+    }
+    if (out.empty()) throw input_error(path, "has no days");
+    warn_unknown_keys(observed, {"unit", "daily_mean", "daily_max", "daily_min", "station", "source"}, path, warnings);
+    return out;
+}
+
+namespace {
+
+/// The warning for a spread that comes from Erbs's correlation alone.
+issue spread_warning(const std::string& path) {
+    return {path + "/monthly_sd",
+            "the day-to-day spread of daily temperatures comes from a correlation (Erbs, Klein & Beckman 1983) fitted "
+            "to inland sites; maritime climates are its weak case (it overstates their spread, so design temperatures "
+            "and hours in the cold come out too cold): give the 99 % design temperature or monthly_sd"};
+}
+
+/// Reads `bins` [{t, hours}] with `bin_width` (observed hourly bins, e.g. from a weather file) into `info`.
+void read_observed_bins(const json& climate, const std::string& unit, bool leap, climate_info& info) {
+    const std::string path = "/climate";
+    const double k = degree_size(unit == "degF");
+    const auto width = optional_number(climate, "bin_width", path);
+    if (!width) throw input_error(path + "/bin_width", "is required with bins (the width of each bin, in " + unit + ")");
+    if (!(*width > 0 && *width * k <= 5))
+        throw input_error(path + "/bin_width", "must be above 0 and at most " + format_number(5 / k) + " " + unit +
+                                                   ", got " + format_number(*width));
+    const auto& list = climate.at("bins");
+    if (!list.is_array() || list.empty()) throw input_error(path + "/bins", "must be a non-empty array of {t, hours}");
+    if (list.size() > 400) throw input_error(path + "/bins", "at most 400 bins, got " + std::to_string(list.size()));
+    info.bin_width_k = *width * k;
+    info.bins.clear();
+    double total = 0;
+    for (std::size_t i = 0; i < list.size(); ++i) {
+        const std::string item = path + "/bins/" + std::to_string(i);
+        require_object(list[i], item);
+        const auto t = optional_number(list[i], "t", item);
+        const auto hours = optional_number(list[i], "hours", item);
+        if (!t) throw input_error(item + "/t", "is required (the bin's centre temperature)");
+        if (!hours) throw input_error(item + "/hours", "is required (hours a year in the bin)");
+        const double t_c = convert(*t, unit, "degC", item + "/t");
+        if (t_c < -70 || t_c > 60) throw input_error(item + "/t", "is not a plausible outdoor temperature");
+        if (*hours < 0) throw input_error(item + "/hours", "must be >= 0, got " + format_number(*hours));
+        if (!info.bins.empty() && t_c <= info.bins.back().t_c)
+            throw input_error(item + "/t", "bins must be in ascending order of temperature");
+        info.bins.push_back({t_c, *hours});
+        total += *hours;
+    }
+    const double year_hours = leap ? 8784 : 8760;
+    if (std::fabs(total - year_hours) > 24)
+        throw input_error(path + "/bins", "the bins' hours add up to " + format_fixed(total, 1) + "; a year of hourly bins has " +
+                                              format_fixed(year_hours, 0) + " (within a day)");
+    info.bins_from_data = true;
+}
+
+}  // namespace
+
+climate_info read_climate(const json& climate, std::vector<issue>& warnings) {
     const std::string path = "/climate";
     require_object(climate, path);
     climate_info info;
@@ -86,6 +202,23 @@ climate_info read_climate(const json& climate) {
             sd = values;
         }
         info.model = climate_from_means(means, sd, leap, range_k);
+        if (!sd && info.given_design_c && !climate.contains("bins")) {
+            const auto factor = spread_factor_for_design(info.model, *info.given_design_c);
+            if (!factor)
+                throw input_error(path + "/design_temperature",
+                                  "no day-to-day spread of these monthly means gives a 99 % design temperature of " +
+                                      format_number(climate.at("design_temperature").at("value").get<double>()) + " " +
+                                      climate.at("design_temperature").at("unit").get<std::string>() +
+                                      " (the spread would have to be scaled by less than 0.2 or more than 4); check both, "
+                                      "or give monthly_sd");
+            for (double& value : info.model.daily_sd_k) value *= *factor;
+            info.spread_factor = *factor;
+            info.model.trace.push_back("day-to-day spread calibrated to the given design temperature: every month's "
+                                       "spread scaled by " + format_fixed(*factor, 3) + " so that the model's 99 % design "
+                                       "temperature equals it (Illinois root on the scale factor)");
+        } else if (!sd) {
+            warnings.push_back(spread_warning(path));
+        }
     } else if (climate.contains("monthly_hdd")) {
         auto hdd = twelve_numbers(climate, "monthly_hdd", path);
         for (std::size_t m = 0; m < 12; ++m) {
@@ -95,6 +228,7 @@ climate_info read_climate(const json& climate) {
             hdd[m] *= k;
         }
         info.model = climate_from_monthly_hdd(hdd, info.base_c, leap, range_k);
+        warnings.push_back(spread_warning(path));
     } else if (climate.contains("annual_hdd")) {
         const auto annual = optional_number(climate, "annual_hdd", path);
         if (!annual || *annual <= 0 || *annual * k > 15000)
@@ -108,9 +242,22 @@ climate_info read_climate(const json& climate) {
     info.model.trace.push_back(range_given ? "daily range " + format_number(range_k / k) + " " + *unit + " as given"
                                            : "daily range " + format_fixed(range_k / k, 0) + " " + *unit +
                                                  " assumed (typical of inland mid-latitude sites; give daily_range)");
-    info.bins = hourly_bins(info.model, info.fahrenheit ? 2 * k : 1.0);
-    info.design_99_c = design_temperature(info.model, 0.01);
-    info.design_996_c = design_temperature(info.model, 0.004);
+    if (climate.contains("bins")) {
+        read_observed_bins(climate, *unit, leap, info);
+        info.design_99_c = design_temperature_from_bins(info.bins, info.bin_width_k, 0.01);
+        info.design_996_c = design_temperature_from_bins(info.bins, info.bin_width_k, 0.004);
+        info.model.trace.push_back("hourly bins and design temperatures from observed hours as given (" +
+                                   std::to_string(info.bins.size()) + " bins of " + format_number(info.bin_width_k / k) + " " +
+                                   *unit + ")");
+    } else {
+        info.bin_width_k = info.fahrenheit ? 2 * k : 1.0;
+        info.bins = hourly_bins(info.model, info.bin_width_k);
+        info.design_99_c = design_temperature(info.model, 0.01);
+        info.design_996_c = design_temperature(info.model, 0.004);
+    }
+    warn_unknown_keys(climate, {"unit", "base", "leap_year", "daily_range", "design_temperature", "monthly_mean", "monthly_sd",
+                                "monthly_hdd", "annual_hdd", "bins", "bin_width", "name", "source"},
+                      path, warnings);
     return info;
 }
 
@@ -243,6 +390,13 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             throw input_error("/demand/bills", "needs at least one bill {start, end, quantity, unit}");
         const auto& list = demand.at("bills");
         if (list.size() > 120) throw input_error("/demand/bills", "at most 120 bills, got " + std::to_string(list.size()));
+        const auto observed = demand.contains("observed") ? read_observed(demand.at("observed"), "/demand/observed", warnings)
+                                                          : std::map<long, double>{};
+        struct bill_dates_read {
+            long start_day, end_day;
+            std::string start, end;
+        };
+        std::vector<bill_dates_read> dates;
         std::vector<bill_period> bills;
         for (std::size_t i = 0; i < list.size(); ++i) {
             const std::string path = "/demand/bills/" + std::to_string(i);
@@ -262,22 +416,105 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             const auto unit = optional_string(item, "unit", path);
             if (!unit) throw input_error(path + "/unit", "is required (the unit the bill is in)");
             const auto hv = heating_value_per_sale_unit(equipment.fuel, *unit, equipment.sale, path + "/unit");
-            bills.push_back({first, last, *amount * hv.hhv_j / 3.6e6});
+            bill_period bill;
+            bill.first_day = first;
+            bill.last_day = last;
+            bill.fuel_kwh = *amount * hv.hhv_j / 3.6e6;
+            if (item.contains("mean_temperature")) {
+                bill.mean_c = temperature_c(item.at("mean_temperature"), path + "/mean_temperature");
+                if (bill.mean_c < -60 || bill.mean_c > 45)
+                    throw input_error(path + "/mean_temperature/value",
+                                      "is not a plausible average outdoor temperature for a billing period (it must lie "
+                                      "between -76 and 113 degF, -60 and 45 degC)");
+                bill.weather = bill_weather::observed_period_mean;
+            }
+            bills.push_back(bill);
+            dates.push_back({first, last, *start, *end});
+            warn_unknown_keys(item, {"start", "end", "quantity", "unit", "mean_temperature"}, path, warnings);
         }
         std::vector<std::size_t> order(bills.size());
         std::iota(order.begin(), order.end(), 0);
         std::sort(order.begin(), order.end(), [&](auto a, auto b) { return bills[a].first_day < bills[b].first_day; });
-        long gap_days = 0;
-        for (std::size_t k = 1; k < order.size(); ++k) {
-            const auto& previous = bills[order[k - 1]];
-            const auto& current = bills[order[k]];
-            if (current.first_day <= previous.last_day)
-                throw input_error("/demand/bills/" + std::to_string(order[k]),
-                                  "overlaps bill " + std::to_string(order[k - 1]) + " (periods must not share days)");
-            gap_days += current.first_day - previous.last_day - 1;
+        // The date rule: meter reads (a bill covers end - start days; the next may start on its end day)
+        // or inclusive (the end date is the bill's last day). A file without the rule whose periods never
+        // share a day keeps its old meaning (inclusive).
+        const auto rule = optional_string(demand, "bill_dates", "/demand");
+        if (rule && *rule != "meter-reads" && *rule != "inclusive")
+            throw input_error("/demand/bill_dates", "must be \"meter-reads\" (each bill runs from one meter read to the next) "
+                                                    "or \"inclusive\" (the end date is the bill's last day), got \"" + *rule + "\"");
+        bool shared_day = false;
+        for (std::size_t k = 1; k < order.size(); ++k)
+            shared_day = shared_day || bills[order[k]].first_day <= bills[order[k - 1]].last_day;
+        const bool meter_reads = rule ? *rule == "meter-reads" : shared_day;
+        if (meter_reads) {
+            for (std::size_t i = 0; i < bills.size(); ++i) {
+                if (bills[i].last_day == bills[i].first_day)
+                    throw input_error("/demand/bills/" + std::to_string(i) + "/end",
+                                      "the period " + dates[i].start + " to " + dates[i].end +
+                                          " has no days (meter reads: a bill covers the days from its start up to its end)");
+                bills[i].last_day -= 1;
+            }
         }
-        if (gap_days > 0)
-            warnings.push_back({"/demand/bills", std::to_string(gap_days) + " days between bill periods are not covered"});
+        out.demand_trace.push_back(
+            meter_reads ? std::string("bill dates read as meter reads: a bill covers the days from its start date up to "
+                                      "its end date, which starts the next bill") +
+                              (rule ? "" : " (the bills share boundary days)")
+                        : std::string("bill dates read as inclusive: the end date is the bill's last day") +
+                              (rule ? "" : " (no bill_dates given and no two bills share a day)"));
+        const auto period_text = [&](std::size_t i) { return dates[i].start + " to " + dates[i].end; };
+        for (std::size_t k = 1; k < order.size(); ++k) {
+            const auto previous = order[k - 1], current = order[k];
+            const long overlap = bills[previous].last_day - bills[current].first_day + 1;
+            const long gap = bills[current].first_day - bills[previous].last_day - 1;
+            const std::string at = "/demand/bills/" + std::to_string(current) + "/start";
+            if (overlap > 0)
+                throw input_error(at, "the bill of " + period_text(current) + " overlaps the bill of " + period_text(previous) +
+                                          " by " + std::to_string(overlap) + (overlap == 1 ? " day" : " days") + " (" +
+                                          day_text(bills[current].first_day) + " to " +
+                                          day_text(std::min(bills[previous].last_day, bills[current].last_day)) +
+                                          "); each day may be billed once");
+            if (gap > 0)
+                warnings.push_back({at, std::to_string(gap) + (gap == 1 ? " day" : " days") + " (" +
+                                            day_text(bills[previous].last_day + 1) + " to " +
+                                            day_text(bills[current].first_day - 1) + ") between the bill of " +
+                                            period_text(previous) + " and the bill of " + period_text(current) +
+                                            " are not covered by any bill"});
+        }
+        // Observed daily weather: every bill's days, or the bill's own average temperature.
+        if (!observed.empty()) {
+            for (std::size_t i = 0; i < bills.size(); ++i) {
+                auto& bill = bills[i];
+                std::vector<double> days;
+                long missing = 0;
+                for (long day = bill.first_day; day <= bill.last_day; ++day) {
+                    const auto found = observed.find(day);
+                    if (found == observed.end()) ++missing;
+                    else days.push_back(found->second);
+                }
+                const long length = bill.last_day - bill.first_day + 1;
+                const std::string path = "/demand/bills/" + std::to_string(i);
+                if (missing == 0 || (missing * 10 <= length && !days.empty())) {
+                    if (missing > 0)
+                        warnings.push_back({path, "the observed weather lacks " + std::to_string(missing) + " of the " +
+                                                      std::to_string(length) + " days of the bill of " + period_text(i) +
+                                                      "; its degree-days are scaled up from the days observed"});
+                    bill.daily_mean_c = std::move(days);
+                    bill.weather = bill_weather::observed_daily;
+                } else if (bill.weather != bill_weather::observed_period_mean) {
+                    throw input_error(path, "the observed daily temperatures (/demand/observed) lack " + std::to_string(missing) +
+                                                " of the " + std::to_string(length) + " days of the bill of " + period_text(i) +
+                                                "; import weather that covers it or give the bill's average temperature");
+                }
+            }
+        }
+        std::size_t with_weather = 0;
+        for (const auto& bill : bills) with_weather += bill.weather != bill_weather::normals;
+        if (with_weather > 0 && with_weather < bills.size())
+            for (std::size_t i = 0; i < bills.size(); ++i)
+                if (bills[i].weather == bill_weather::normals)
+                    throw input_error("/demand/bills/" + std::to_string(i) + "/mean_temperature",
+                                      "is needed on every bill once one bill has it (the bill of " + period_text(i) +
+                                          " has none): a fit mixing observed and normal weather is biased");
         long total_days = 0;
         double total_kwh = 0;
         for (const auto& b : bills) {
@@ -307,10 +544,18 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             out.balance_point_c = fit.tau_c;
             out.space_heat_kwh = fit.heating_kwh * eta;
             out.demand_uncertainty_kwh = fit.nac_standard_error_kwh * eta;
+            out.demand_trace.push_back(weather_text(fit.weather));
+            if (fit.weather == bill_weather::normals)
+                warnings.push_back({"/demand/observed",
+                                    "the bills are fitted against the climate's normal weather, not the weather of the "
+                                    "billing periods, so the result is not weather-normalised (a mild or a cold winter "
+                                    "moves it); give each bill's average outdoor temperature or import the daily weather"});
             out.demand_trace.push_back("PRISM fit (Fels 1986) of " + std::to_string(bills.size()) + " bills: use per day = " +
                                        format_fixed(fit.base_kwh_per_day, 2) + " kWh + " + format_fixed(fit.slope_kwh_per_k_day, 3) +
                                        " kWh per K day x HDD per day to tau = " + temp_text(fit.tau_c) +
                                        ", R^2 = " + format_fixed(fit.r2, 3));
+            out.demand_trace.push_back("normalised with the climate's normal year: " + format_fixed(fit.normal_hdd / degree_size(f), 0) +
+                                       (f ? " degF" : " K") + " day of HDD to tau");
             out.demand_trace.push_back("normalised annual consumption " + energy_text(fit.nac_kwh) + " = base " +
                                        energy_text(fit.base_annual_kwh) + " + heating " + energy_text(fit.heating_kwh) +
                                        " (HHV; standard error " + energy_text(fit.nac_standard_error_kwh) + ")");
@@ -319,6 +564,15 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             if (fit.r2 < 0.7)
                 warnings.push_back({"/demand/bills", "poor fit (R^2 = " + format_fixed(fit.r2, 2) + " < 0.7): the bills do not follow "
                                                      "the weather well; check the readings and the climate"});
+            double least_hdd_per_day = std::numeric_limits<double>::infinity();
+            for (const auto& point : fit.points) least_hdd_per_day = std::min(least_hdd_per_day, point.first);
+            if (least_hdd_per_day > 1.0)
+                warnings.push_back({"/demand/bills",
+                                    "every billing period needed heat (the warmest averaged " +
+                                        format_fixed(least_hdd_per_day / degree_size(f), 1) + (f ? " degF" : " K") +
+                                        " below the reference temperature a day), so the bills cannot tell the base use (hot "
+                                        "water, cooking) from heating: the split between them, and the useful space heat, "
+                                        "is uncertain; add summer bills"});
             if (fit.slope_kwh_per_k_day <= 0)
                 throw input_error("/demand/bills", "the bills show no heating use that rises with the cold (slope " +
                                                        format_number(fit.slope_kwh_per_k_day) + ")");
@@ -338,8 +592,9 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
                 winter = m == by_cold[0] || m == by_cold[1] || m == by_cold[2];
             }
         if (!winter) warnings.push_back({"/demand/bills", "no bill covers the coldest months; the heating slope is uncertain"});
-        warn_unknown_keys(demand, {"method", "bills", "option", "fuel", "system", "balance_point", "hot_water"}, "/demand",
-                          warnings);
+        warn_unknown_keys(demand, {"method", "bills", "option", "fuel", "system", "balance_point", "hot_water", "bill_dates",
+                                   "observed"},
+                          "/demand", warnings);
     } else {
         throw input_error("/demand/method", "unknown demand method \"" + method + "\"; accepted: direct, heat-loss, bills");
     }

@@ -2,6 +2,7 @@
 // published multi-base degree-day tables of the Western Regional Climate Center.
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <cmath>
 #include <nlohmann/json.hpp>
 #include <numeric>
@@ -162,6 +163,73 @@ TEST(climate_errors, messages) {
               "/climate: give monthly_mean (12 values), monthly_hdd (12 values), or annual_hdd with design_temperature");
     EXPECT_EQ(error_of({{"monthly_hdd", {100, 100, 100, -4, 0, 0, 0, 0, 0, 10, 50, 90}}, {"unit", "degC"}}),
               "/climate/monthly_hdd/3: must be from 0 to a plausible monthly total, got -4");
+}
+
+}  // namespace
+
+namespace {
+
+using nlohmann::json;
+
+/// An invented mild maritime site [degF]: small seasonal swing, winters near 40 degF.
+const json maritime_means = {40.0, 41.0, 43.0, 46.0, 51.0, 55.0, 59.0, 60.0, 57.0, 51.0, 45.0, 41.0};
+
+TEST(climate_spread, calibrated_to_the_given_design_temperature) {
+    // Issue 12: with monthly means and a 99 % design temperature, the spread is scaled so the model's
+    // 99 % design temperature reproduces the given one (to 0.5 degF, the issue's tolerance).
+    for (double design_f : {22.0, 27.0, 31.0}) {
+        const auto result = json::parse(fw::climate_json(
+            json{{"unit", "degF"}, {"monthly_mean", maritime_means}, {"design_temperature", {{"value", design_f}, {"unit", "degF"}}}}
+                .dump()));
+        ASSERT_TRUE(result.at("errors").empty()) << result.dump();
+        EXPECT_NEAR(result.at("design_temperature_99").get<double>(), design_f, 0.5);
+        EXPECT_TRUE(result.at("warnings").empty()) << result.dump();
+        const auto& trace = result.at("trace");
+        EXPECT_TRUE(std::any_of(trace.begin(), trace.end(), [](const json& line) {
+            return line.get<std::string>().rfind("day-to-day spread calibrated to the given design temperature", 0) == 0;
+        })) << trace.dump();
+    }
+    // Without a design temperature (or the spread) the correlation stands, with a warning saying so.
+    const auto plain = json::parse(fw::climate_json(json{{"unit", "degF"}, {"monthly_mean", maritime_means}}.dump()));
+    ASSERT_EQ(plain.at("warnings").size(), 1u);
+    EXPECT_EQ(plain.at("warnings")[0].at("path"), "/climate/monthly_sd");
+    EXPECT_EQ(plain.at("warnings")[0].at("message").get<std::string>().substr(0, 98),
+              "the day-to-day spread of daily temperatures comes from a correlation (Erbs, Klein & Beckman 1983) ");
+    // monthly_sd wins over the design temperature: no calibration, the spread as given.
+    const auto given = json::parse(fw::climate_json(json{{"unit", "degF"},
+                                                         {"monthly_mean", maritime_means},
+                                                         {"monthly_sd", json::array({5, 5, 5, 5, 5, 5, 5, 5, 5, 5, 5, 5})},
+                                                         {"design_temperature", {{"value", 20}, {"unit", "degF"}}}}
+                                                        .dump()));
+    EXPECT_NEAR(given.at("monthly_sd")[0].get<double>(), 5.0, 1e-12);
+    // A design temperature no spread can reach: a message at the field.
+    const auto impossible = json::parse(fw::climate_json(
+        json{{"unit", "degF"}, {"monthly_mean", maritime_means}, {"design_temperature", {{"value", 45}, {"unit", "degF"}}}}.dump()));
+    EXPECT_EQ(impossible.at("errors").at(0).at("path"), "/climate/design_temperature");
+    EXPECT_EQ(impossible.at("errors").at(0).at("message"),
+              "no day-to-day spread of these monthly means gives a 99 % design temperature of 45 degF (the spread would "
+              "have to be scaled by less than 0.2 or more than 4); check both, or give monthly_sd");
+}
+
+TEST(climate_bins, observed_bins_replace_the_model_and_give_the_design_temperatures) {
+    // Three bins of 2 degF holding a year: 87.6 h (1 %) in the 10 degF bin [9, 11), the rest above.
+    // The 99 % design temperature is the top of that bin, 11 degF; 99.6 % lies 0.4 of the way in:
+    // 35.04 h of 87.6 -> 9 + 2 x 0.4 = 9.8 degF (hours spread evenly within a bin).
+    const json bins = json::array({{{"t", 10}, {"hours", 87.6}}, {{"t", 30}, {"hours", 4000}}, {{"t", 60}, {"hours", 4672.4}}});
+    const auto result = json::parse(fw::climate_json(
+        json{{"unit", "degF"}, {"monthly_mean", maritime_means}, {"bins", bins}, {"bin_width", 2}}.dump()));
+    ASSERT_TRUE(result.at("errors").empty()) << result.dump();
+    EXPECT_EQ(result.at("bins_from"), "data");
+    EXPECT_NEAR(result.at("design_temperature_99").get<double>(), 11.0, 1e-9);
+    EXPECT_NEAR(result.at("design_temperature_996").get<double>(), 9.8, 1e-9);
+    EXPECT_EQ(result.at("bins").size(), 3u);
+    auto short_year = bins;
+    short_year[2]["hours"] = 1000;
+    const auto bad = json::parse(fw::climate_json(
+        json{{"unit", "degF"}, {"monthly_mean", maritime_means}, {"bins", short_year}, {"bin_width", 2}}.dump()));
+    EXPECT_EQ(bad.at("errors").at(0).at("path"), "/climate/bins");
+    EXPECT_EQ(bad.at("errors").at(0).at("message"),
+              "the bins' hours add up to 5087.6; a year of hourly bins has 8760 (within a day)");
 }
 
 }  // namespace

@@ -36,6 +36,9 @@ commands:
   check-prices FILE [--today YYYY-MM-DD]
                                check a supplier price file before publishing it (exit 0 when clean, 2 otherwise)
   climate FILE                 degree-days, hourly bins and design temperatures of a climate (or scenario) file
+  weather FILE [--format daily|hourly] [--unit degC|degF] [--date|--time|--mean|--max|--min|--temperature NAME]
+                               a downloaded weather CSV (daily, hourly or TMY3) as observed daily means and the
+                               climate it implies, ready to paste into a scenario
   catalog                      fuels with heating values per sale unit, systems, GWP sets
   convert VALUE FROM TO        e.g. convert 1 therm kWh
   units                        list the accepted unit spellings
@@ -194,6 +197,29 @@ int check_prices_command(const std::vector<std::string>& args) {
     return finish(fw::check_prices_json(*text, today));
 }
 
+/// `weather FILE [--format daily|hourly] [--unit degC|degF] [--date NAME] [--time NAME] [--mean NAME] [--max NAME]
+/// [--min NAME] [--temperature NAME]`: the climate and observed daily means of a weather file.
+int weather_command(const std::vector<std::string>& args) {
+    if (args.empty()) return usage_error("", "weather takes a weather FILE (CSV, or - for standard input)");
+    json request = json::object();
+    const std::vector<std::string> column_flags = {"--date", "--time", "--mean", "--max", "--min", "--temperature"};
+    for (std::size_t i = 1; i < args.size(); ++i) {
+        const bool column = std::find(column_flags.begin(), column_flags.end(), args[i]) != column_flags.end();
+        if ((args[i] == "--format" || args[i] == "--unit" || column) && i + 1 < args.size()) {
+            if (column) request["columns"][args[i].substr(2)] = args[i + 1];
+            else request[args[i].substr(2)] = args[i + 1];
+            ++i;
+        } else {
+            return usage_error(args[i], "unknown option for weather; accepted: --format daily|hourly, --unit degC|degF, and "
+                                        "column names --date, --time, --mean, --max, --min, --temperature");
+        }
+    }
+    const auto text = read_input(args[0]);
+    if (!text) return usage_error(args[0], "cannot read file \"" + args[0] + "\"");
+    request["text"] = *text;
+    return finish(fw::weather_json(request.dump(-1, ' ', false, json::error_handler_t::replace)));
+}
+
 }  // namespace
 
 int main(int argc, char** argv) {
@@ -210,6 +236,7 @@ int main(int argc, char** argv) {
     if (command == "evaluate") return file_command(rest, "evaluate", fw::evaluate_json);
     if (command == "climate") return file_command(rest, "climate", fw::climate_json);
     if (command == "check-prices") return check_prices_command(rest);
+    if (command == "weather") return weather_command(rest);
     if (command == "break-even")
         return analysis_command(rest, "break-even",
                                 {{"--a", false}, {"--b", false}, {"--vary", false}, {"--of", false}, {"--basis", false}},
@@ -223,5 +250,5 @@ int main(int argc, char** argv) {
         return analysis_command(rest, "tornado", {{"--basis", false}, {"--change", true}}, fw::tornado_json);
     if (command == "catalog") return finish(fw::catalog_json());
     std::cerr << usage_text;
-    return usage_error(command, "unknown command \"" + command + "\"; commands: heating-value, evaluate, break-even, sweep, tornado, check-prices, climate, catalog, convert, units, help");
+    return usage_error(command, "unknown command \"" + command + "\"; commands: heating-value, evaluate, break-even, sweep, tornado, check-prices, climate, weather, catalog, convert, units, help");
 }

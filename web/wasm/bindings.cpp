@@ -21,6 +21,7 @@ std::string break_even(const std::string& request) { return fw::break_even_json(
 std::string sweep(const std::string& request) { return fw::sweep_json(request); }
 std::string tornado(const std::string& request) { return fw::tornado_json(request); }
 std::string check_prices(const std::string& text, const std::string& today) { return fw::check_prices_json(text, today); }
+std::string weather(const std::string& request) { return fw::weather_json(request); }
 
 /// evaluate with a JS progress callback: progress(fraction) is called about 100 times during a Monte
 /// Carlo run; returning false cancels it (undefined or anything truthy carries on).
@@ -44,5 +45,6 @@ EMSCRIPTEN_BINDINGS(fuelwright_core) {
     emscripten::function("sweep", &sweep);
     emscripten::function("tornado", &tornado);
     emscripten::function("checkPrices", &check_prices);
+    emscripten::function("weather", &weather);
     emscripten::function("evaluateWithProgress", &evaluate_with_progress);
 }

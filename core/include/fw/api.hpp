@@ -46,6 +46,13 @@ std::string climate_json(const std::string& request_json) noexcept;
 /// `today` is "YYYY-MM-DD" (or empty to skip the expiry check).
 std::string check_prices_json(const std::string& price_file_text, const std::string& today) noexcept;
 
+/// Reads a weather file a user downloaded (daily or hourly CSV, or the TMY3 layout):
+/// {"text": "...", "format": "daily"|"hourly" (optional), "unit": "degC"|"degF" (when the file does not
+/// say), "columns": {"date", "time", "mean", "max", "min", "temperature"} (optional header names)} ->
+/// {"format", "unit", "station", "first_date", "last_date", "days", "observed": {unit, daily_mean},
+/// "climate": a scenario climate or null, "summary": {annual_hdd, design temperatures}, notes}.
+std::string weather_json(const std::string& request_json) noexcept;
+
 /// The fuel and system catalogs with heating values per sale unit, GWP sets and defaults.
 std::string catalog_json() noexcept;
 

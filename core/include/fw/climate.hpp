@@ -81,6 +81,15 @@ std::vector<temperature_bin> hourly_bins(const climate_model& climate, double wi
 /// [degC] Temperature below which `fraction` of the year's hours lie (0.01 -> the 99 % design value).
 double design_temperature(const climate_model& climate, double fraction);
 
+/// [degC] Temperature below which `fraction` of the bins' hours lie, the hours of each bin spread
+/// evenly over its width `width_k` [K] (bins in ascending order).
+double design_temperature_from_bins(const std::vector<temperature_bin>& bins, double width_k, double fraction);
+
+/// [1] The factor on every month's daily-mean spread that makes the model's 99 % design temperature
+/// `design_99_c` (Illinois root of design(factor) - design_99_c; the design temperature falls as the spread
+/// widens), searched over [0.2, 4]; nullopt when no factor in that range reaches it.
+std::optional<double> spread_factor_for_design(const climate_model& climate, double design_99_c);
+
 /// [1] Erbs's diurnal profile: the hour's departure from the daily mean as a fraction of the daily
 /// range, hour 1..24: 0.4632 cos(t - 3.805) + 0.0984 cos(2t - 0.360) + 0.0168 cos(3t - 0.822)
 /// + 0.0138 cos(4t - 3.513), t = 2 pi (hour - 1) / 24 (Duffie & Beckman, from memory).

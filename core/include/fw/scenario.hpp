@@ -103,9 +103,12 @@ struct climate_info {
     climate_model model;
     bool fahrenheit = false;        ///< the input's temperature unit (results are given back in it)
     double base_c = 18.3;
-    std::vector<temperature_bin> bins;  ///< 1 degC or 2 degF wide
+    std::vector<temperature_bin> bins;  ///< 1 degC or 2 degF wide, or as given
+    double bin_width_k = 1.0;           ///< [K]
+    bool bins_from_data = false;        ///< bins given (observed hours) rather than from the model
     double design_99_c = 0, design_996_c = 0;
     std::optional<double> given_design_c;
+    std::optional<double> spread_factor;  ///< the spread's scale calibrated to the given design temperature
 };
 
 struct scenario {
@@ -128,7 +131,13 @@ struct scenario {
 };
 
 /// Reads the climate object; throws input_error.
-climate_info read_climate(const nlohmann::json& climate);
+climate_info read_climate(const nlohmann::json& climate, std::vector<issue>& warnings);
+
+/// At most this many observed days (20 years) in `demand.observed`.
+inline constexpr std::size_t max_observed_days = 7320;
+
+/// [degC] by day number: `demand.observed`, daily means or (max + min) / 2 of daily extremes.
+std::map<long, double> read_observed(const nlohmann::json& observed, const std::string& path, std::vector<issue>& warnings);
 
 /// Reads the demand object into the scenario (needs its climate and options for some methods).
 void read_demand(const nlohmann::json& demand, scenario& out, const nlohmann::json& options_json,
