@@ -205,6 +205,10 @@ export function climateFromScenario(c, { units = 'us', label } = {}) {
   if (!c || typeof c !== 'object') return wc;
   wc.mode = c.monthly_mean ? 'monthly_mean' : c.monthly_hdd ? 'monthly_hdd' : c.annual_hdd !== undefined ? 'annual_hdd' : 'monthly_mean';
   if (c.unit) wc.unit = c.unit;
+  // without a base the core uses 65 degF or 18.3 degC by the climate's unit: shown and kept as exactly that
+  if (c.base === undefined && (c.unit === 'degF' || c.unit === 'degC')) {
+    wc.base = c.unit === 'degF' ? { value: 65, unit: 'degF' } : { value: 18.3, unit: 'degC' };
+  }
   if (c.monthly_mean) wc.monthly_mean = clone(c.monthly_mean);
   if (c.monthly_hdd) wc.monthly_hdd = clone(c.monthly_hdd);
   if (c.monthly_sd) wc.monthly_sd = clone(c.monthly_sd);

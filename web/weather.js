@@ -50,7 +50,8 @@ export function weatherSummary(answer, fmt) {
     rows.push(['Readings', `${fmt.number(answer.days ?? 0, 6)} days of daily temperatures`]);
   }
   const s = answer.summary ?? {};
-  rows.push(['Heating degree-days a year', isNumber(s.annual_hdd) ? `${fmt.number(s.annual_hdd, 4)} ${unit}·d` : 'not worked out']);
+  const base = isNumber(s.hdd_base?.value) ? ` (base ${fmt.number(s.hdd_base.value, 3)} ${s.hdd_base.unit === 'degC' ? '°C' : '°F'})` : '';
+  rows.push([`Heating degree-days a year${base}`, isNumber(s.annual_hdd) ? `${fmt.number(s.annual_hdd, 4)} ${unit}·d` : 'not worked out']);
   rows.push(['Design temperature (99 %)', temp(s.design_temperature_99)]);
   rows.push(['Design temperature (99.6 %)', temp(s.design_temperature_996)]);
   const climate = answer.climate && typeof answer.climate === 'object' ? answer.climate : null;

@@ -79,10 +79,10 @@ async function saved(beforeStamp) {
 
 /**
  * An invented daily weather file: two whole years (2024, a leap year, and 2025) at the invented station
- * "INVENTED RIDGE 2", a smooth seasonal swing with a small made-up wobble, in °F.
+ * "INVENTED RIDGE 2", a smooth seasonal swing with a small made-up wobble, in °F (the header does not say so).
  */
 function inventedDailyCsv() {
-  const lines = ['station,date,tavg_f'];
+  const lines = ['STATION,DATE,TAVG'];
   const day = new Date(Date.UTC(2024, 0, 1));
   let i = 0;
   while (day.getUTCFullYear() < 2026) {
@@ -128,7 +128,17 @@ describe('House tab: bills as printed, weather file, climate library (Chromium, 
   });
 
   test('a weather file: what was read, its climate and its days put into the quote, kept through export', { timeout: TIMEOUT }, async () => {
-    const msg = await pickAndWait('#weather-file', '#weather-msg', csvFile('invented-ridge.csv', inventedDailyCsv()));
+    // the file does not say its unit: the core's message beside the control, then the unit chosen reads it again
+    const first = await pickAndWait('#weather-file', '#weather-msg', csvFile('invented-ridge.csv', inventedDailyCsv()));
+    assert.equal(first.ok, false);
+    assert.match(await page.textContent('#weather-errors'), /does not say whether its temperatures are in °C or °F; choose the unit/);
+    const seq = await page.getAttribute('#weather-msg', 'data-seq');
+    await page.selectOption('#weather-unit', 'degF');
+    await page.waitForFunction((before) => {
+      const node = document.querySelector('#weather-msg');
+      return !node.hidden && node.dataset.seq !== before;
+    }, seq);
+    const msg = await page.$eval('#weather-msg', (node) => ({ ok: node.classList.contains('ok'), text: node.textContent }));
     assert.equal(msg.ok, true, msg.text);
     const facts = await page.$$eval('#weather-read dt, #weather-read dd', (nodes) => nodes.map((n) => n.textContent));
     assert.deepEqual(facts.slice(0, 6), ['Weather station', 'INVENTED RIDGE 2', 'Period', 'January 1, 2024 to December 31, 2025',

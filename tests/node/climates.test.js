@@ -149,10 +149,43 @@ describe('web/scenario.js: a climate from a weather file keeps everything it car
     assert.equal(scenario.climateToScenario({ ...wc, mode: 'none' }), null);
   });
 
-  test('the core evaluates the workspace\'s climate with its spread and design temperature', () => {
-    const { bins, bin_width: width, ...noBins } = IMPORTED;
-    const result = JSON.parse(core.evaluate(JSON.stringify(scenario.toScenario(scenario.fromScenario(withClimate(noBins))))));
+  test('the core evaluates the workspace\'s climate with its spread, design temperature and bins', () => {
+    const result = JSON.parse(core.evaluate(JSON.stringify(scenario.toScenario(scenario.fromScenario(withClimate(IMPORTED))))));
     assert.deepEqual(result.errors, []);
+  });
+
+  test('a weather file read by the module: its climate and its days through the workspace, evaluated by the module', () => {
+    // an invented daily file: two whole years at an invented station, in °C as its header says
+    const lines = ['DATE,TAVG (°C)'];
+    const day = new Date(Date.UTC(2024, 0, 1));
+    for (let i = 0; day.getUTCFullYear() < 2026; i++) {
+      lines.push(`${day.toISOString().slice(0, 10)},${(8 - 13 * Math.cos((2 * Math.PI * (i - 20)) / 365.25) + 3 * Math.sin(i * 1.3)).toFixed(1)}`);
+      day.setUTCDate(day.getUTCDate() + 1);
+    }
+    const answer = JSON.parse(core.weather(JSON.stringify({ text: lines.join('\n') })));
+    assert.deepEqual(answer.errors, []);
+    assert.equal(answer.days, 731);
+    assert.ok(answer.climate, 'two whole years make a climate');
+    const ws = scenario.fromScenario(billsScenario());
+    ws.climate = scenario.climateFromScenario(answer.climate, { units: 'us', label: 'Weather file “invented.csv”' });
+    ws.demand.observed = answer.observed;
+    ws.demand.bill_dates = 'meter-reads';
+    ws.demand.bills = [
+      { start: '2024-11-12', end: '2024-12-11', quantity: 120, unit: 'therm' },
+      { start: '2024-12-11', end: '2025-01-13', quantity: 160, unit: 'therm' },
+      { start: '2025-01-13', end: '2025-02-11', quantity: 150, unit: 'therm' },
+      { start: '2025-02-11', end: '2025-03-12', quantity: 118, unit: 'therm' },
+      { start: '2025-03-12', end: '2025-04-10', quantity: 84, unit: 'therm' },
+      { start: '2025-04-10', end: '2025-05-12', quantity: 47, unit: 'therm' },
+      { start: '2025-05-12', end: '2025-06-11', quantity: 22, unit: 'therm' },
+    ];
+    const doc = scenario.toScenario(ws);
+    assert.deepEqual(doc.climate, { ...answer.climate, base: { value: 18.3, unit: 'degC' } },
+      'the climate goes to the core as the file gave it, with the base the core would take');
+    const result = JSON.parse(core.evaluate(JSON.stringify(doc)));
+    assert.deepEqual(result.errors, []);
+    assert.equal(result.demand.fit.weather, 'observed-daily');
+    assert.deepEqual(scenario.toScenario(scenario.fromScenario(doc)), doc, 'export and import keep it all');
   });
 });
 
@@ -246,7 +279,7 @@ describe('web/weather.js', () => {
     format: 'daily', unit: 'degF', station: 'INVENTED RIDGE 2', first_date: '2024-01-01', last_date: '2025-12-31', days: 731,
     observed: { unit: 'degF', daily_mean: [['2024-01-01', 20.5], ['2025-12-31', 22]] },
     climate: IMPORTED,
-    summary: { annual_hdd: 6612.4, design_temperature_99: 3.2, design_temperature_996: null },
+    summary: { annual_hdd: 6612.4, hdd_base: { value: 65, unit: 'degF' }, design_temperature_99: 3.2, design_temperature_996: null },
     errors: [], warnings: [{ path: '/text', message: '3 days have no reading; their degC means were left out' }],
   };
 
@@ -257,7 +290,7 @@ describe('web/weather.js', () => {
       ['Weather station', 'INVENTED RIDGE 2'],
       ['Period', '2024-01-01 to 2025-12-31'],
       ['Readings', '731 days of daily temperatures'],
-      ['Heating degree-days a year', '6612.4 °F·d'],
+      ['Heating degree-days a year (base 65 °F)', '6612.4 °F·d'],
       ['Design temperature (99 %)', '3.2 °F'],
       ['Design temperature (99.6 %)', 'not worked out'],
     ]);
