@@ -231,7 +231,7 @@ std::string check_prices_json(const std::string& text, const std::string& today)
         // The climate of the supplier's area, the same object as a scenario's climate, read as a scenario reads it.
         c.attempt([&] {
             if (!doc.contains("climate")) return;
-            read_climate(doc.at("climate"));
+            read_climate(doc.at("climate"), c.warnings);
             out["climate"] = doc.at("climate");
         });
     } catch (const input_error& e) {
