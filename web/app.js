@@ -1,8 +1,10 @@
 // Controller: creates the core client, the store and the views, and wires
 // them: typing -> store -> (debounced) evaluate in the worker -> verdict,
 // quote sheet and autosave. One role per module; this one only connects them.
+import { climateInUnit } from './climate-library.js';
+import { createClimateTools } from './climates.js';
 import { CoreClient } from './core-client.js';
-import { h } from './dom.js';
+import { download, h } from './dom.js';
 import { bindFields, showFieldErrors } from './fields.js';
 import { createFormat, isCurrency, isLocale } from './format.js';
 import { demoWorkspace } from './demo.js';
@@ -18,7 +20,7 @@ import {
   workspaceOf,
 } from './storage.js';
 import { Store } from './store.js';
-import { DISPLAY, convert, convertQuantity, convertTemperature, convertTemperatureDifference, unitLabel } from './units.js';
+import { DISPLAY, convert, convertQuantity, unitLabel } from './units.js';
 import { renderFuels, saleUnitsOf, fuelName } from './views/fuels.js';
 import { renderHouse } from './views/house.js';
 import { renderLab } from './views/lab.js';
@@ -31,6 +33,8 @@ const ANALYSIS_DEBOUNCE_MS = 350;
 const DRAWS_DEBOUNCE_MS = 1200;
 const SAVE_DEBOUNCE_MS = 400;
 const SWEEP_POINTS = 41;
+/** Added to the name of a climate once its values are typed over. */
+const CHANGED = ' (changed here)';
 const TORNADO_CHANGE = 0.2;
 const LOCALES = [['en-US', 'English (US) 1,234.5'], ['en-CA', 'English (Canada)'], ['en-GB', 'English (UK)'], ['fr-CA', 'Français (Canada) 1 234,5'],
   ['de-DE', 'Deutsch 1.234,5'], ['fr-FR', 'Français 1 234,5'], ['nb-NO', 'Norsk 1 234,5'], ['sv-SE', 'Svenska'], ['nl-NL', 'Nederlands'], ['es-ES', 'Español']];
@@ -77,6 +81,7 @@ const ctx = {
   addCustomFuel,
   onSearch: (query) => { quotes.query = query; paintQuotes(); },
 };
+ctx.climateTools = createClimateTools(ctx);
 
 // ---------------------------------------------------------------------------
 // Rendering
@@ -678,6 +683,16 @@ function onField(path, value, { structural }) {
     store.mutate(() => ws.systems.forEach((s, i) => { s.existing = i === Number(m[1]); }));
     return;
   }
+  if ((m = /^\/demand\/bills\/(\d+)\/mean_temperature\/value$/.exec(path)) && !ws.demand.bills[Number(m[1])]?.mean_temperature?.unit) {
+    // the unit shown beside an empty field is the one the value is typed in
+    const select = panels.house.querySelector(`[data-path="/demand/bills/${m[1]}/mean_temperature/unit"]`);
+    store.set(`/demand/bills/${m[1]}/mean_temperature/unit`, select?.value || (ws.settings.units === 'metric' ? 'degC' : 'degF'));
+  }
+  if (path.startsWith('/climate/') && ws.climate.label && !ws.climate.label.endsWith(CHANGED)) {
+    // a named climate typed over is no longer the one of that name
+    ws.climate.label = `${ws.climate.label}${CHANGED}`;
+    panels.house.querySelector('#climate-label')?.replaceChildren(`Climate: ${ws.climate.label}`);
+  }
   if (path === '/quote/customer' || path === '/quote/site' || path === '/quote/date') {
     store.set(path, value);
     return;
@@ -730,16 +745,8 @@ function switchUnits(system) {
     for (const key of ['annual_useful_heat', 'balance_point', 'ua', 'design_heat_loss', 'indoor', 'design_outdoor', 'internal_gains', 'hot_water']) {
       d[key] = convertUnitOnly(convertQuantity(d[key], system), system);
     }
+    ws.climate = climateInUnit(ws.climate, DISPLAY[system].temperature);
     const c = ws.climate;
-    const want = DISPLAY[system].temperature;
-    if (c.unit !== want) {
-      c.monthly_mean = (c.monthly_mean ?? []).map((v) => (typeof v === 'number' ? convertTemperature(v, c.unit, want) : v));
-      c.monthly_hdd = (c.monthly_hdd ?? []).map((v) => (typeof v === 'number' ? convertTemperatureDifference(v, c.unit, want) : v));
-      if (Array.isArray(c.monthly_sd)) c.monthly_sd = c.monthly_sd.map((v) => (typeof v === 'number' ? convertTemperatureDifference(v, c.unit, want) : v));
-      if (typeof c.annual_hdd === 'number') c.annual_hdd = convertTemperatureDifference(c.annual_hdd, c.unit, want);
-      if (typeof c.daily_range === 'number') c.daily_range = convertTemperatureDifference(c.daily_range, c.unit, want);
-      c.unit = want;
-    }
     c.base = convertUnitOnly(convertQuantity(c.base, system), system);
     c.design_temperature = convertUnitOnly(convertQuantity(c.design_temperature, system), system);
     for (const sys of ws.systems) {
@@ -767,15 +774,6 @@ function convertUnitOnly(q, system) {
 
 // ---------------------------------------------------------------------------
 // Files
-
-function download(name, type, text) {
-  const url = URL.createObjectURL(new Blob([text], { type }));
-  const a = h('a', { href: url, download: name, hidden: true });
-  document.body.append(a);
-  a.click();
-  a.remove();
-  setTimeout(() => URL.revokeObjectURL(url), 1000);
-}
 
 function fileStem(ws) {
   const base = [ws.quote.customer, ws.quote.date].filter(Boolean).join(' ') || 'quote';
@@ -823,7 +821,16 @@ const ACTIONS = {
   'remove-rating': (d) => store.mutate((ws) => ws.systems[Number(d.system)].system.ratings.splice(Number(d.index), 1)),
   'add-bill': () => store.mutate((ws) => {
     const last = ws.demand.bills.at(-1);
-    ws.demand.bills.push({ start: '', end: '', unit: last?.unit ?? (ws.settings.units === 'us' ? 'therm' : 'kWh') });
+    const us = ws.settings.units === 'us';
+    // a new bill starts where the last one ended when its dates are meter reads
+    const start = ws.demand.bill_dates !== 'inclusive' && last?.end ? last.end : '';
+    ws.demand.bills.push({ start, end: '', unit: last?.unit ?? (us ? 'therm' : 'kWh'),
+      mean_temperature: { unit: last?.mean_temperature?.unit ?? (us ? 'degF' : 'degC') } });
+  }),
+  'observed-clear': () => store.mutate((ws) => { delete ws.demand.observed; delete ws.demand.observed_label; }),
+  'climate-drop': (d) => store.mutate((ws) => {
+    if (d.key === 'bins') { delete ws.climate.bins; delete ws.climate.bin_width; }
+    else if (d.key === 'monthly_sd') delete ws.climate.monthly_sd;
   }),
   'remove-bill': (d) => store.mutate((ws) => ws.demand.bills.splice(Number(d.index), 1)),
   'rank-by': (d) => { verdict.by = d.by; paintVerdict(); scheduleAnalyses(0); },
@@ -1093,6 +1100,7 @@ async function start() {
     return;
   }
   storage = await opening;
+  ctx.climateTools.start();
   quotes.storageKind = storage.kind;
   quotes.records = await loadRecords();
   await restoreUnsaved();

@@ -80,6 +80,8 @@ export class CoreClient {
   catalog() { return this.call('catalog'); }
   /** Degree-days, bins and design temperatures of a climate (the core's climate()). */
   climate(request) { return this.call('climate', request); }
+  /** Reads a weather file: {text, format?, unit?} -> station, period, observed days, climate, summary (the core's weather()). */
+  weather(request) { return this.call('weather', request, { timeoutMs: 60_000 }); }
   /** Where two options cost the same: {scenario, a, b, vary, of, basis}. */
   breakEven(request, options) { return this.call('breakEven', request, options); }
   /** Every option's cost over a range of one input: {scenario, vary, of, from, to, points, basis}. */

@@ -91,5 +91,12 @@ export const DEMO_SCENARIO = {
   ],
 };
 
+/** The name the demo's climate goes by on the page (and if kept on the device): invented, and says so. */
+export const DEMO_CLIMATE_LABEL = 'Maple Hollow, an invented climate for the demo';
+
 /** A fresh workspace holding the demo quote. */
-export const demoWorkspace = () => fromScenario(DEMO_SCENARIO);
+export function demoWorkspace() {
+  const ws = fromScenario(DEMO_SCENARIO);
+  ws.climate.label = DEMO_CLIMATE_LABEL;
+  return ws;
+}

@@ -43,3 +43,13 @@ export function s(tag, props, ...children) {
 export function idFor(path, suffix = '') {
   return `f${path.replace(/[^A-Za-z0-9]+/g, '-')}${suffix}`;
 }
+
+/** Offers `text` as a file called `name` of MIME type `type` to download. */
+export function download(name, type, text) {
+  const url = URL.createObjectURL(new Blob([text], { type }));
+  const a = h('a', { href: url, download: name, hidden: true });
+  document.body.append(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 1000);
+}

@@ -3,7 +3,7 @@
 // panel turns typing into store.set(). Errors from the core ({path, message},
 // a path into the scenario) are shown next to the field they point at.
 import { h, idFor } from './dom.js';
-import { formatInput, parseNumber } from './format.js';
+import { formatInput, parseNumber, plainUnits } from './format.js';
 import { workspacePath } from './scenario.js';
 import { unitLabel } from './units.js';
 
@@ -186,7 +186,7 @@ export function showFieldErrors(roots, errors, ws, localErrors) {
   for (const [path, message] of localErrors) place(path, message);
   for (const error of errors) {
     const path = workspacePath(error.path ?? '', ws);
-    if (!error.path || !place(path, error.message)) unplaced.push(error);
+    if (!error.path || !place(path, plainUnits(error.message))) unplaced.push(error);
   }
   for (const [field, { root, lines }] of byField) {
     const msg = field.querySelector('.field-msg');

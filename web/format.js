@@ -118,6 +118,9 @@ export function createFormat({ locale, currency }) {
   };
 }
 
+/** Core words for units in a message ("-5 degF", "W/K") as people write them ("-5 °F"). */
+export const plainUnits = (text) => String(text ?? '').replace(/\bdegF\b/g, '°F').replace(/\bdegC\b/g, '°C');
+
 /** Short month names of the locale, January first. */
 /** A message of the core ("the lines never cross") as a sentence: capital first letter, full stop. */
 export const asSentence = (text) => (text ? `${text[0].toUpperCase()}${text.slice(1)}${/[.!?]$/.test(text) ? '' : '.'}` : '');

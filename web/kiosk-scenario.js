@@ -149,9 +149,11 @@ function chargesOf(p) {
 /**
  * The scenario of a visitor's answers: {size, current (option id or ''), prices: {fuel: amount}} with the
  * offer's locked prices, tiers and fixed charges. Options whose fuel has no price yet are left out and
- * listed in `missing`. Returns {scenario, missing: [option]} (scenario null before a house size is chosen).
+ * listed in `missing`. `climate` is the price file's climate of the supplier's area (a scenario climate
+ * object, checked by checkPrices), used for the visitor's scenario when given. Returns {scenario,
+ * missing: [option]} (scenario null before a house size is chosen).
  */
-export function kioskScenario(offer, visitor, { units, currency }) {
+export function kioskScenario(offer, visitor, { units, currency, climate = null }) {
   const size = HOUSE_SIZES[units].find((s) => s.id === visitor.size);
   const missing = [];
   const options = [];
@@ -177,14 +179,13 @@ export function kioskScenario(offer, visitor, { units, currency }) {
     options.push(out);
   }
   if (!size || !options.length) return { scenario: null, missing };
-  return {
-    scenario: {
-      schema: SCENARIO_SCHEMA,
-      title: 'Heating cost comparison at the counter',
-      settings: { units, currency },
-      demand: { method: 'direct', annual_useful_heat: { ...size.heat } },
-      options,
-    },
-    missing,
+  const scenario = {
+    schema: SCENARIO_SCHEMA,
+    title: 'Heating cost comparison at the counter',
+    settings: { units, currency },
+    demand: { method: 'direct', annual_useful_heat: { ...size.heat } },
+    options,
   };
+  if (climate && typeof climate === 'object') scenario.climate = structuredClone(climate);
+  return { scenario, missing };
 }

@@ -105,7 +105,7 @@ export async function startKiosk(core) {
 
   const evaluate = async () => {
     const gen = ++generation;
-    const { scenario, missing } = kioskScenario(k.offer, state.visitor, { units: k.units, currency: k.currency });
+    const { scenario, missing } = kioskScenario(k.offer, state.visitor, { units: k.units, currency: k.currency, climate: k.file.climate ?? null });
     state.missing = missing;
     if (!scenario) {
       state = { ...state, result: null, errors: [], pending: false };

@@ -26,6 +26,8 @@ export const SYSTEM_KINDS = ['furnace', 'boiler', 'stove', 'electric-resistance'
 export const RATINGS = ['AFUE', 'thermal', 'seasonal-gcv', 'seasonal-ncv', 'COP', 'SCOP', 'HSPF', 'HSPF2'];
 export const DEMAND_METHODS = ['direct', 'heat-loss', 'bills'];
 export const CLIMATE_MODES = ['none', 'monthly_mean', 'monthly_hdd', 'annual_hdd'];
+/** How bill dates are read: a bill covers end - start days (meter reads, the default) or end - start + 1 (inclusive). */
+export const BILL_DATES = ['meter-reads', 'inclusive'];
 
 const clone = (value) => (value === undefined ? undefined : structuredClone(value));
 const isQuantity = (q) => q && typeof q === 'object' && typeof q.value === 'number' && Number.isFinite(q.value) && q.unit;
@@ -61,6 +63,7 @@ export function blankWorkspace({ units = 'us', currency = 'USD' } = {}) {
       hot_water: { unit: us ? 'MMBtu' : 'kWh' },
       bills: [],
       bills_option: '',
+      bill_dates: 'meter-reads',
     },
     climate: {
       mode: 'none',
@@ -131,8 +134,16 @@ function demandOf(d) {
       put(bill, 'end', b.end);
       if (isNumber(b.quantity)) bill.quantity = b.quantity;
       put(bill, 'unit', b.unit);
+      put(bill, 'mean_temperature', quantity(b.mean_temperature));
+      // fields of an imported bill this page does not edit travel on unchanged
+      for (const [key, value] of Object.entries(b)) if (!BILL_FIELDS.includes(key)) bill[key] = clone(value);
       return bill;
     });
+    // sent as chosen (a value the core does not know comes back as an error at the choice); a quote
+    // saved or imported without the rule sends none, so the core keeps its old meaning (inclusive
+    // unless two bills share a day)
+    put(out, 'bill_dates', d.bill_dates);
+    if (d.observed && typeof d.observed === 'object') out.observed = clone(d.observed);
     if (d.bills_fuel !== undefined || d.bills_system !== undefined) {
       put(out, 'fuel', clone(d.bills_fuel));
       put(out, 'system', clone(d.bills_system));
@@ -145,27 +156,71 @@ function demandOf(d) {
   return out;
 }
 
+/** Bill fields the page edits; any other field of an imported bill is kept as it came. */
+const BILL_FIELDS = ['start', 'end', 'quantity', 'unit', 'mean_temperature'];
+
 const twelve = (list) => (Array.isArray(list) && list.length === 12 && list.every(isNumber) ? [...list] : undefined);
 
-function climateOf(c) {
+/**
+ * The scenario's climate object of a workspace climate (null for mode 'none'). Every field the page
+ * shows is sent in every form: the design temperature and the daily range (optional with monthly
+ * data), the day-to-day spread of imported monthly means and the bins of an hourly weather file.
+ */
+export function climateToScenario(c) {
+  if (!c || c.mode === 'none' || !CLIMATE_MODES.includes(c.mode)) return null;
   const out = {};
   if (c.mode === 'monthly_mean') {
     out.monthly_mean = twelve(c.monthly_mean) ?? (c.monthly_mean ?? []).map((v) => (isNumber(v) ? v : null));
     out.unit = c.unit;
-    if (twelve(c.monthly_sd)) out.monthly_sd = twelve(c.monthly_sd);
-    if (isNumber(c.daily_range)) out.daily_range = c.daily_range;
+    if (Array.isArray(c.monthly_sd)) out.monthly_sd = twelve(c.monthly_sd) ?? clone(c.monthly_sd);
   } else if (c.mode === 'monthly_hdd') {
     out.monthly_hdd = twelve(c.monthly_hdd) ?? (c.monthly_hdd ?? []).map((v) => (isNumber(v) ? v : null));
     out.unit = c.unit;
   } else if (c.mode === 'annual_hdd') {
     if (isNumber(c.annual_hdd)) out.annual_hdd = c.annual_hdd;
     out.unit = c.unit;
-    put(out, 'design_temperature', quantity(c.design_temperature));
+  }
+  put(out, 'design_temperature', quantity(c.design_temperature));
+  if (isNumber(c.daily_range)) out.daily_range = c.daily_range;
+  if (Array.isArray(c.bins) && c.bins.length) {
+    out.bins = clone(c.bins);
+    if (c.bin_width !== undefined) out.bin_width = c.bin_width;
   }
   put(out, 'base', quantity(c.base));
   if (c.leap_year) out.leap_year = true;
   for (const [key, value] of Object.entries(c.extra ?? {})) if (!(key in out)) out[key] = clone(value);
   return out;
+}
+
+/** Climate fields the workspace keeps by name; any other field of an imported climate is kept in `extra`. */
+const CLIMATE_KNOWN = ['monthly_mean', 'monthly_hdd', 'monthly_sd', 'annual_hdd', 'unit', 'base', 'design_temperature',
+  'daily_range', 'leap_year', 'bins', 'bin_width'];
+
+/**
+ * The workspace climate of a scenario climate object (an imported file, a weather file's answer, a
+ * climate kept on the device), in a workspace of unit system `units`. The climate keeps its own unit.
+ */
+export function climateFromScenario(c, { units = 'us', label } = {}) {
+  const wc = blankWorkspace({ units }).climate;
+  if (!c || typeof c !== 'object') return wc;
+  wc.mode = c.monthly_mean ? 'monthly_mean' : c.monthly_hdd ? 'monthly_hdd' : c.annual_hdd !== undefined ? 'annual_hdd' : 'monthly_mean';
+  if (c.unit) wc.unit = c.unit;
+  // without a base the core uses 65 degF or 18.3 degC by the climate's unit: shown and kept as exactly that
+  if (c.base === undefined && (c.unit === 'degF' || c.unit === 'degC')) {
+    wc.base = c.unit === 'degF' ? { value: 65, unit: 'degF' } : { value: 18.3, unit: 'degC' };
+  }
+  if (c.monthly_mean) wc.monthly_mean = clone(c.monthly_mean);
+  if (c.monthly_hdd) wc.monthly_hdd = clone(c.monthly_hdd);
+  if (c.monthly_sd) wc.monthly_sd = clone(c.monthly_sd);
+  if (c.annual_hdd !== undefined) wc.annual_hdd = c.annual_hdd;
+  for (const key of ['base', 'design_temperature', 'daily_range', 'bins', 'bin_width']) if (c[key] !== undefined) wc[key] = clone(c[key]);
+  if (wc.daily_range && typeof wc.daily_range === 'object') wc.daily_range = wc.daily_range.value;
+  if (!wc.design_temperature || typeof wc.design_temperature !== 'object') wc.design_temperature = { unit: wc.unit };
+  wc.leap_year = Boolean(c.leap_year);
+  const extra = Object.fromEntries(Object.entries(c).filter(([key]) => !CLIMATE_KNOWN.includes(key)));
+  if (Object.keys(extra).length) wc.extra = clone(extra);
+  if (typeof label === 'string' && label) wc.label = label;
+  return wc;
 }
 
 function systemOf(sys) {
@@ -247,7 +302,8 @@ export function toScenario(ws) {
   if (isNumber(ws.settings.electricity_co2e_kg_per_kwh)) settings.electricity_co2e_kg_per_kwh = ws.settings.electricity_co2e_kg_per_kwh;
   doc.settings = settings;
   doc.demand = demandOf(ws.demand);
-  if (ws.climate && ws.climate.mode !== 'none') doc.climate = climateOf(ws.climate);
+  const climate = climateToScenario(ws.climate);
+  if (climate) doc.climate = climate;
 
   const fuels = new Map(ws.fuels.map((f) => [f.key, f]));
   doc.options = ws.systems.map((sys) => {
@@ -409,7 +465,7 @@ export function fromScenario(doc) {
   const wd = ws.demand;
   wd.method = d.method ?? 'direct';
   const demandKnown = ['method', 'annual_useful_heat', 'balance_point', 'ua', 'design_heat_loss', 'indoor', 'design_outdoor',
-    'internal_gains', 'degree_day_correction', 'hot_water', 'bills', 'option', 'fuel', 'system'];
+    'internal_gains', 'degree_day_correction', 'hot_water', 'bills', 'option', 'fuel', 'system', 'bill_dates', 'observed'];
   for (const key of ['annual_useful_heat', 'balance_point', 'ua', 'design_heat_loss', 'indoor', 'design_outdoor',
     'internal_gains', 'hot_water']) {
     if (d[key] !== undefined) wd[key] = clone(d[key]);
@@ -421,26 +477,13 @@ export function fromScenario(doc) {
   if (d.option !== undefined) wd.bills_option = d.option;
   if (d.fuel !== undefined) wd.bills_fuel = clone(d.fuel);
   if (d.system !== undefined) wd.bills_system = clone(d.system);
+  // bills without the date rule keep the core's reading of them (no rule sent); a new quote's bills are meter reads
+  if (d.bill_dates !== undefined || (Array.isArray(d.bills) && d.bills.length)) wd.bill_dates = d.bill_dates;
+  if (d.observed !== undefined) wd.observed = clone(d.observed);
   const demandExtra = Object.fromEntries(Object.entries(d).filter(([key]) => !demandKnown.includes(key)));
   if (Object.keys(demandExtra).length) wd.extra = clone(demandExtra);
 
-  if (doc.climate && typeof doc.climate === 'object') {
-    const c = doc.climate;
-    const wc = ws.climate;
-    wc.mode = c.monthly_mean ? 'monthly_mean' : c.monthly_hdd ? 'monthly_hdd' : c.annual_hdd !== undefined ? 'annual_hdd' : 'monthly_mean';
-    if (c.unit) wc.unit = c.unit;
-    if (c.monthly_mean) wc.monthly_mean = clone(c.monthly_mean);
-    if (c.monthly_hdd) wc.monthly_hdd = clone(c.monthly_hdd);
-    if (c.monthly_sd) wc.monthly_sd = clone(c.monthly_sd);
-    if (c.annual_hdd !== undefined) wc.annual_hdd = c.annual_hdd;
-    for (const key of ['base', 'design_temperature', 'daily_range']) if (c[key] !== undefined) wc[key] = clone(c[key]);
-    if (wc.daily_range && typeof wc.daily_range === 'object') wc.daily_range = wc.daily_range.value;
-    wc.leap_year = Boolean(c.leap_year);
-    const climateKnown = ['monthly_mean', 'monthly_hdd', 'monthly_sd', 'annual_hdd', 'unit', 'base', 'design_temperature',
-      'daily_range', 'leap_year'];
-    const extra = Object.fromEntries(Object.entries(c).filter(([key]) => !climateKnown.includes(key)));
-    if (Object.keys(extra).length) wc.extra = clone(extra);
-  }
+  if (doc.climate && typeof doc.climate === 'object') ws.climate = climateFromScenario(doc.climate, { units: ws.settings.units });
 
   const byFuel = new Map();
   for (const option of doc.options) {

@@ -49,6 +49,7 @@ const EXPORTS = {
   evaluate: { takesRequest: true },
   catalog: { takesRequest: false },
   climate: { takesRequest: true },
+  weather: { takesRequest: true },
   breakEven: { takesRequest: true },
   sweep: { takesRequest: true },
   tornado: { takesRequest: true },

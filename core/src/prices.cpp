@@ -8,6 +8,7 @@
 #include "fw/error.hpp"
 #include "fw/fuels.hpp"
 #include "fw/json_fields.hpp"
+#include "fw/scenario.hpp"
 #include "fw/systems.hpp"
 #include "fw/units.hpp"
 
@@ -126,7 +127,7 @@ std::string check_prices_json(const std::string& text, const std::string& today)
     try {
         const auto doc = parse_request(text);
         require_object(doc, "");
-        only_keys(doc, {"schema", "supplier", "currency", "effective", "expires", "prices", "offer", "notes"}, "", c);
+        only_keys(doc, {"schema", "supplier", "currency", "effective", "expires", "prices", "offer", "climate", "notes"}, "", c);
         c.attempt([&] {
             const auto schema = optional_string(doc, "schema", "");
             if (!schema) throw input_error("/schema", "is required: \"fuelwright.prices/1\"");
@@ -226,6 +227,12 @@ std::string check_prices_json(const std::string& text, const std::string& today)
                     find_system(id.get<std::string>(), "/offer/systems/" + std::to_string(i));
                 }
             }
+        });
+        // The climate of the supplier's area, the same object as a scenario's climate, read as a scenario reads it.
+        c.attempt([&] {
+            if (!doc.contains("climate")) return;
+            read_climate(doc.at("climate"), c.warnings);
+            out["climate"] = doc.at("climate");
         });
     } catch (const input_error& e) {
         c.error(e.path(), e.message());

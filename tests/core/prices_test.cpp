@@ -55,6 +55,33 @@ TEST(prices, every_problem_is_reported_not_only_the_first) {
     EXPECT_EQ(result.at("errors").size(), 3u) << result.dump();
 }
 
+TEST(prices, the_climate_of_the_area_is_checked_as_a_scenario_reads_it) {
+    // An invented climate of the supplier's area, the same object as a scenario's climate.
+    auto doc = json::parse(read_text("data/examples/supplier-prices.json"));
+    doc["climate"] = {{"monthly_mean", {22, 25, 34, 46, 57, 66, 71, 69, 61, 49, 38, 27}}, {"unit", "degF"}};
+    const auto good = json::parse(fw::check_prices_json(doc.dump(), "2026-12-01"));
+    EXPECT_TRUE(good.at("valid").get<bool>()) << good.dump();
+    EXPECT_EQ(good.at("climate"), doc.at("climate"));
+
+    doc["climate"]["monthly_mean"][0] = 200;
+    const auto bad = json::parse(fw::check_prices_json(doc.dump(), "2026-12-01"));
+    EXPECT_FALSE(bad.at("valid").get<bool>());
+    ASSERT_EQ(bad.at("errors").size(), 1u) << bad.dump();
+    EXPECT_EQ(bad.at("errors")[0].at("path"), "/climate/monthly_mean/0");
+    EXPECT_EQ(bad.at("errors")[0].at("message"), "200 degF is not a plausible monthly mean (it must lie between -94 and 122 degF)");
+    EXPECT_FALSE(bad.contains("climate"));
+
+    doc["climate"] = {{"monthly_mean", {22, 25, 34, 46, 57, 66, 71, 69, 61, 49, 38, 27}}};
+    const auto no_unit = json::parse(fw::check_prices_json(doc.dump(), "2026-12-01"));
+    EXPECT_EQ(no_unit.at("errors")[0].at("path"), "/climate/unit");
+    EXPECT_EQ(no_unit.at("errors")[0].at("message"), "is required (degC or degF)");
+
+    doc["climate"] = "cold";
+    const auto not_object = json::parse(fw::check_prices_json(doc.dump(), "2026-12-01"));
+    EXPECT_EQ(not_object.at("errors")[0].at("path"), "/climate");
+    EXPECT_EQ(not_object.at("errors")[0].at("message"), "must be a JSON object, got string");
+}
+
 TEST(prices, tiered_price_in_a_scenario_is_billed_block_by_block) {
     // 60 MMBtu / 0.95 AFUE = 63.158 MMBtu / 0.091452 MMBtu/gal = 690.61 gal:
     // 500 x 2.89 + 190.61 x 2.69 = 1445 + 512.74 = 1957.74 USD.

@@ -123,7 +123,24 @@ for path in examples:
 # ---------------------------------------------------------------------------
 # Supplier price files: the sample is valid; every bad fixture the schema can judge is rejected.
 Draft202012Validator.check_schema(load(DATA / "schema" / "supplier-prices.schema.json"))
-prices_schema = Draft202012Validator(load(DATA / "schema" / "supplier-prices.schema.json"))
+# The price file's climate refers to the scenario schema's (scenario.schema.json#/$defs/climate), found by its $id.
+scenario_document = load(DATA / "schema" / "scenario.schema.json")
+prices_document = load(DATA / "schema" / "supplier-prices.schema.json")
+try:  # jsonschema 4.18 and later
+    from referencing import Registry
+    from referencing.jsonschema import DRAFT202012
+    registry = Registry().with_resource(scenario_document["$id"], DRAFT202012.create_resource(scenario_document))
+    prices_schema = Draft202012Validator(prices_document, registry=registry)
+except ImportError:  # Debian 12's jsonschema 4.10
+    from jsonschema import RefResolver
+    resolver = RefResolver.from_schema(prices_document, store={scenario_document["$id"]: scenario_document})
+    prices_schema = Draft202012Validator(prices_document, resolver=resolver)
+with_climate = copy.deepcopy(load(DATA / "examples" / "supplier-prices.json"))
+with_climate["climate"] = {"monthly_mean": [22, 25, 34, 46, 57, 66, 71, 69, 61, 49, 38, 27], "unit": "degF"}
+errors = errors_of(prices_schema, with_climate)
+check(not errors, "prices  a price file with the climate of its area is valid", "\n      ".join(errors[:4]))
+with_climate["climate"]["colour"] = "blue"
+check(bool(errors_of(prices_schema, with_climate)), "prices  the price file's climate is checked as a scenario's (unknown field rejected)")
 for name in sorted(PRICE_FILES):
     errors = errors_of(prices_schema, load(DATA / "examples" / name))
     check(not errors, f"prices  data/examples/{name} is a valid price file", "\n      ".join(errors[:8]))

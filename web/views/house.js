@@ -3,6 +3,7 @@
 import { h } from '../dom.js';
 import { checkField, numberField, radioField, selectField, textField } from '../fields.js';
 import { monthNames } from '../format.js';
+import { observedSpan } from '../weather.js';
 import { POWER_UNITS, UA_UNITS } from '../units.js';
 
 const TEMPS = ['degF', 'degC'];
@@ -57,6 +58,20 @@ function heatLossFields(ctx, d) {
   return nodes;
 }
 
+/** The weather the bills are compared with: observed days from a weather file, or what is used without them. */
+function billWeather(ctx, d) {
+  const span = observedSpan(d.observed);
+  const text = d.observed
+    ? `${d.observed_label ?? 'Daily temperatures from a weather file'}: ${span
+      ? `${ctx.format.number(span.days, 6)} days, ${ctx.format.date(span.first)} to ${ctx.format.date(span.last)}` : 'no days'}.`
+    : 'No weather file for the bills: a bill\'s average outdoor temperature is used where it is given, else the climate below.';
+  return h('div', { class: 'field', id: 'bill-weather', dataset: { field: '/demand/observed' } },
+    h('p', { class: 'label-like', text: 'Weather for these bills' }),
+    h('p', { class: 'hint', id: 'bill-weather-text', text }),
+    d.observed ? h('button', { type: 'button', class: 'quiet', dataset: { action: 'observed-clear' }, text: 'Stop using this weather for the bills' }) : null,
+    h('p', { class: 'field-msg', hidden: true }));
+}
+
 function billFields(ctx, ws, d) {
   const rows = (d.bills ?? []).map((bill, i) => {
     const base = `/demand/bills/${i}`;
@@ -65,7 +80,9 @@ function billFields(ctx, ws, d) {
         textField(ctx, { label: `Bill ${i + 1} from`, path: `${base}/start`, value: bill.start, type: 'date' }),
         textField(ctx, { label: 'to', path: `${base}/end`, value: bill.end, type: 'date' }),
         numberField(ctx, { label: 'Quantity billed', path: `${base}/quantity`, value: bill.quantity,
-          unit: { path: `${base}/unit`, value: bill.unit, choices: BILL_UNITS } })),
+          unit: { path: `${base}/unit`, value: bill.unit, choices: BILL_UNITS } }),
+        quantityField(ctx, 'Average outdoor temperature (optional)', `${base}/mean_temperature`,
+          bill.mean_temperature ?? { unit: ws.settings.units === 'metric' ? 'degC' : 'degF' }, TEMPS)),
       h('button', { type: 'button', class: 'quiet', dataset: { action: 'remove-bill', index: String(i) }, text: `Remove bill ${i + 1}` }),
       h('p', { class: 'field-msg', hidden: true }));
   });
@@ -73,16 +90,24 @@ function billFields(ctx, ws, d) {
   return [
     selectField(ctx, { label: 'These bills are for', path: '/demand/bills_option', value: d.bills_option ?? '',
       choices: [['', 'Choose the existing system…'], ...systems] }),
+    radioField(ctx, { legend: 'Bill dates are', path: '/demand/bill_dates', value: d.bill_dates,
+      choices: [['meter-reads', 'Meter reads (each bill starts on the day the last one ended)'],
+        ['inclusive', 'Inclusive (the end date is the bill\'s last day)']] }),
+    d.bill_dates === undefined ? h('p', { class: 'hint', id: 'bill-dates-unstated',
+      text: 'These bills do not say how their dates are read: when two bills share a day they are read as meter reads, otherwise as inclusive. Choose one to be sure.' }) : null,
     h('div', { class: 'rows' }, rows),
     h('button', { type: 'button', class: 'secondary', dataset: { action: 'add-bill' }, text: 'Add a bill' }),
+    billWeather(ctx, d),
   ];
 }
 
 function climateFields(ctx, ws) {
   const c = ws.climate;
-  const nodes = [selectField(ctx, { label: 'Climate data', path: '/climate/mode', value: c.mode, structural: true,
+  const nodes = [];
+  if (c.label && c.mode !== 'none') nodes.push(h('p', { class: 'climate-label', id: 'climate-label', text: `Climate: ${c.label}` }));
+  nodes.push(selectField(ctx, { label: 'Climate data', path: '/climate/mode', value: c.mode, structural: true,
     choices: [['none', 'None (heat need given directly)'], ['monthly_mean', 'Monthly mean temperatures'],
-      ['monthly_hdd', 'Monthly heating degree-days'], ['annual_hdd', 'Annual heating degree-days and design temperature']] })];
+      ['monthly_hdd', 'Monthly heating degree-days'], ['annual_hdd', 'Annual heating degree-days and design temperature']] }));
   if (c.mode === 'none') return nodes;
   nodes.push(selectField(ctx, { label: c.mode === 'monthly_mean' ? 'Temperatures in' : 'Degree-days in', path: '/climate/unit', value: c.unit,
       choices: [['degF', '°F'], ['degC', '°C']], structural: true }));
@@ -99,9 +124,31 @@ function climateFields(ctx, ws) {
   }
   nodes.push(h('div', { class: 'grid two' },
     quantityField(ctx, 'Degree-day base temperature', '/climate/base', c.base, TEMPS),
-    c.mode === 'monthly_mean' ? numberField(ctx, { label: 'Mean daily range (optional)', path: '/climate/daily_range', value: c.daily_range,
-      unit: c.unit === 'degC' ? '°C' : '°F' }) : null));
+    c.mode !== 'annual_hdd' ? quantityField(ctx, 'Design temperature (optional)', '/climate/design_temperature', c.design_temperature, TEMPS,
+      { hint: 'The 99 % heating design temperature. Given, it sets how much the days of each month vary; left empty, it is worked out from the months.' }) : null,
+    numberField(ctx, { label: 'Mean daily range (optional)', path: '/climate/daily_range', value: c.daily_range,
+      unit: c.unit === 'degC' ? '°C' : '°F' })));
   nodes.push(checkField(ctx, { label: 'Leap year (366 days)', path: '/climate/leap_year', checked: c.leap_year }));
+  nodes.push(...climateRecords(c));
+  return nodes;
+}
+
+/** What a climate carries from weather records beyond the fields above (day-to-day spread, hourly bins), each removable. */
+function climateRecords(c) {
+  const nodes = [];
+  if (c.mode === 'monthly_mean' && Array.isArray(c.monthly_sd)) {
+    nodes.push(h('div', { class: 'field record-note', id: 'climate-spread', dataset: { field: '/climate/monthly_sd' } },
+      h('p', { class: 'hint', text: 'Day-to-day spread of each month: from weather records (used instead of the usual estimate).' }),
+      h('button', { type: 'button', class: 'quiet', dataset: { action: 'climate-drop', key: 'monthly_sd' }, text: 'Use the usual estimate instead' }),
+      h('p', { class: 'field-msg', hidden: true })));
+  }
+  if (Array.isArray(c.bins) && c.bins.length) {
+    const hours = c.bins.reduce((sum, b) => sum + (typeof b?.hours === 'number' ? b.hours : 0), 0);
+    nodes.push(h('div', { class: 'field record-note', id: 'climate-bins', dataset: { field: '/climate/bins' } },
+      h('p', { class: 'hint', text: `Hours at each outdoor temperature: ${c.bins.length} temperature bins, ${Math.round(hours)} hours, from an hourly weather file (used instead of the bins worked out from the months).` }),
+      h('button', { type: 'button', class: 'quiet', dataset: { action: 'climate-drop', key: 'bins' }, text: 'Work the bins out from the months instead' }),
+      h('p', { class: 'field-msg', hidden: true })));
+  }
   return nodes;
 }
 
@@ -117,7 +164,9 @@ export function renderHouse(container, ctx) {
       method === 'direct' ? directFields(ctx, d) : method === 'heat-loss' ? heatLossFields(ctx, d) : billFields(ctx, ws, d)),
     method !== 'direct' ? h('p', { class: 'hint', text: method === 'heat-loss'
       ? 'Uses the climate below for degree-days.' : 'Uses the climate below to separate weather from base use.' }) : null);
-  const climate = h('fieldset', { class: 'group' }, h('legend', { text: 'Climate' }), climateFields(ctx, ws));
-  container.replaceChildren(quoteFields(ctx, ws), demand, climate);
+  const climate = h('fieldset', { class: 'group', id: 'climate-group' }, h('legend', { text: 'Climate' }), climateFields(ctx, ws));
+  // the weather file and the climate library: nodes owned by web/climates.js, placed here as they are
+  const tools = ctx.climateTools ? [ctx.climateTools.weatherNode, ctx.climateTools.libraryNode] : [];
+  container.replaceChildren(quoteFields(ctx, ws), demand, climate, ...tools);
 }
 

@@ -26,7 +26,8 @@ function supplierCard(k, format) {
   return h('header', { class: 'step-card supplier', id: 'kiosk-supplier' },
     h('div', {}, h('h2', { id: 'kiosk-supplier-name', text: s.name ?? k.check.supplier ?? '' }),
       s.contact ? h('p', { class: 'hint', id: 'kiosk-contact', text: s.contact }) : null),
-    h('p', {}, dates));
+    h('p', {}, dates),
+    k.file?.climate ? h('p', { class: 'hint', id: 'kiosk-climate', text: 'Heat-pump figures use the weather of this supplier\'s area.' }) : null);
 }
 
 function choice(action, value, pressed, label, detail) {

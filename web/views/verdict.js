@@ -361,7 +361,19 @@ function billsSection(result, ctx) {
       traceButton('bills', fit.base_per_day, `${format.number(fit.base_per_day, 4)} ${unit}`, 'Base use per day'), ' a day + ',
       traceButton('bills', fit.slope, `${format.number(fit.slope, 4)} ${unit}`, 'Use per degree-day'), ` per ${tUnit}·d`,
       isNum(fit.r2) ? ` (R² ${format.fixed(fit.r2, 3)})` : '',
-      isNum(result.demand.uncertainty_kwh) ? `; the heat need is known to about ±${format.number(result.demand.uncertainty_kwh, 3)} kWh.` : '.'));
+      isNum(result.demand.uncertainty_kwh) ? `; the heat need is known to about ±${format.number(result.demand.uncertainty_kwh, 3)} kWh.` : '.'),
+    fit.weather ? h('p', { class: 'hint', id: 'bills-weather', text: billsWeatherText(fit, format) }) : null);
+}
+
+/** Which weather the bills were set against (the core's fit.weather) and how closely the normal year's use is known. */
+function billsWeatherText(fit, format) {
+  const weather = {
+    'observed-daily': 'Each bill is set against the outdoor temperatures of its own days, from the weather file.',
+    'observed-period-mean': 'Each bill is set against the average outdoor temperature printed on it.',
+    normals: 'The bills are set against the climate\'s usual months, not the weather of their own days.',
+  }[fit.weather] ?? '';
+  const spread = isNum(fit.cv_nac) ? ` The use in a normal year is known to about ±${format.percent(fit.cv_nac, 1)}.` : '';
+  return `${weather}${spread}`.trim();
 }
 
 /** The price Monte Carlo: inputs live on the Fuels panel; here its progress, Cancel, and results. */
