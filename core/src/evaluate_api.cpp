@@ -57,7 +57,14 @@ json option_json(const option_result& r, const scenario& input) {
         out["heat_pump_kwh"] = r.heat_pump_kwh;
         out["backup_kwh"] = r.backup_kwh;
         out["backup_share"] = r.backup_share;
-        out["balance_point"] = t(r.balance_point_c);
+        out["house_balance_point"] = t(r.balance_point_c);
+        out["balance_point"] = r.capacity_balance_c ? t(*r.capacity_balance_c) : json(nullptr);
+        const bool us = input.settings.units == unit_system::us;
+        const auto power = [&](double kw) {
+            return us ? json{{"value", convert(kw, "kW", "Btu/h")}, {"unit", "Btu/h"}} : json{{"value", kw}, {"unit", "kW"}};
+        };
+        out["design_load"] = power(r.design_load_kw);
+        out["capacity_at_design"] = power(r.capacity_at_design_kw);
         out["hours_below_balance_point"] = r.season->hours_below_balance_point;
         out["changeover"] = r.changeover_c ? t(*r.changeover_c) : json(nullptr);
         if (!r.backup_option.empty()) {

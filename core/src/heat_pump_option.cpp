@@ -3,6 +3,7 @@
 #include <cmath>
 #include <cstdio>
 
+#include "fw/roots.hpp"
 #include "fw/scenario.hpp"
 #include "fw/units.hpp"
 
@@ -28,6 +29,7 @@ season_cost run(const scenario& input, const scenario_option& option, const std:
                 double losses) {
     heat_pump_inputs inputs;
     inputs.points = points;
+    inputs.modulating = option.stages != heat_pump_stages::single;
     inputs.cd = option.cd;
     inputs.cutoff_c = option.cutoff_c;
     inputs.changeover_c = changeover_c;
@@ -45,9 +47,34 @@ season_cost run(const scenario& input, const scenario_option& option, const std:
     return out;
 }
 
+/// The procedure a seasonal rating comes from (a single COP is read on the HSPF procedure's load line).
+rating_procedure procedure_for(efficiency_rating rating) {
+    if (rating == efficiency_rating::hspf2) return rating_procedure::hspf2_appendix_m1;
+    if (rating == efficiency_rating::scop) return rating_procedure::scop_en14825;
+    return rating_procedure::hspf_appendix_m;
+}
+
+/// [degC] The low-ambient cut-out assumed when none is given: 0 degF for single- and two-stage units,
+/// -13 degF (-25 degC) for variable-speed ones (common practice; manufacturers' limits vary).
+double default_cutoff_c(heat_pump_stages stages) {
+    return stages == heat_pump_stages::variable ? -25.0 : (0.0 - 32.0) * 5.0 / 9.0;
+}
+
+/// [degC] Where the heat pump's capacity meets the house's load line (its thermal balance point), if
+/// it does between -50 degC and the house's balance point.
+std::optional<double> capacity_balance_c(const std::vector<heat_pump_point>& points, double ua_kw_per_k, double balance_c) {
+    bool unused = false;
+    const auto surplus = [&](double t) { return interpolate(points, t, unused).capacity_kw - ua_kw_per_k * (balance_c - t); };
+    const double lo = -50.0, hi = balance_c;
+    const double s_lo = surplus(lo), s_hi = surplus(hi);
+    if (s_lo >= 0 || s_hi <= 0) return std::nullopt;
+    return illinois_root(surplus, lo, hi, s_lo, s_hi, 1e-9);
+}
+
 }  // namespace
 
-option_result evaluate_heat_pump_option(const scenario& input, const scenario_option& option) {
+option_result evaluate_heat_pump_option(const scenario& input, const scenario_option& given) {
+    scenario_option option = given;
     option_result r = result_for(input, option);
     const auto& climate = *input.climate;
     const bool f = climate.fahrenheit;
@@ -76,18 +103,22 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
     const double design_c = climate.given_design_c.value_or(climate.design_99_c);
     const double design_load_kw = ua_kw * std::max(0.0, balance_c - design_c);
 
-    // Data sheet, or the default curve scaled to the rating.
+    // Data sheet, or the default curve fitted to the rating by the rating's own procedure.
     std::vector<heat_pump_point> points = option.ratings;
     std::vector<std::string> sheet_trace;
     const double losses = 1.0 / ((1 - option.system.age_derating) * (1 - option.system.distribution_loss));
     if (points.empty()) {
         const auto rated = seasonal_efficiency_hhv(option.system, option.fuel, option.path + "/system");
         const double capacity = option.capacity_47_kw.value_or(std::max(design_load_kw, 0.5));
-        points = default_points_for_seasonal_cop(rated.rated_hhv_basis, capacity);
+        const auto procedure = procedure_for(option.system.rating);
+        points = default_points_for_rating(rated.rated_hhv_basis, procedure, capacity);
         for (const auto& line : rated.trace) sheet_trace.push_back(line);
+        sheet_trace.push_back("default curve fitted by " + std::string(procedure_name(procedure)) +
+                              " (its load line and bins, frost default, C_D 0.25): seasonal COP " +
+                              format_fixed(procedure_seasonal_cop(points, procedure), 3));
         r.warnings.push_back("no data-sheet points: a default curve (capacity 100/62/50 %, COP 100/66/55 % at 47/17/5 degF) "
-                             "is scaled so its seasonal COP over the DOE Region IV bins equals the rating; enter the "
-                             "data sheet's capacities and COPs for a real prediction");
+                             "is fitted to the " + std::string(rating_name(option.system.rating)) + " rating by its own test "
+                             "procedure; enter the data sheet's capacities and COPs for a real prediction");
         if (!option.capacity_47_kw)
             r.warnings.push_back("no capacity given: taken as the design load at " + temp_text(design_c) + " (" +
                                  format_fixed(capacity, 2) + " kW at 47 degF); equipment sizing needs a Manual J or EN 12831 "
@@ -102,6 +133,47 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
             line += " " + temp_text(p.outdoor_c) + " " + format_fixed(p.capacity_kw, 2) + " kW COP " + format_fixed(p.cop, 2) + ";";
         line.pop_back();
         sheet_trace.push_back(line);
+    }
+    if (option.stages != heat_pump_stages::single) {
+        // A staged or variable unit without minimum points: a stated share of the maximum (common practice).
+        const double share = option.stages == heat_pump_stages::variable ? 0.3 : 0.6;
+        bool defaulted = false;
+        for (auto& p : points)
+            if (p.min_capacity_kw <= 0) {
+                p.min_capacity_kw = share * p.capacity_kw;
+                p.min_cop = p.cop;
+                defaulted = true;
+            }
+        if (defaulted)
+            r.warnings.push_back(std::string(option.stages == heat_pump_stages::variable ? "variable-speed" : "two-stage") +
+                                 " unit without minimum capacities on its data sheet: taken as " + format_fixed(100 * share, 0) +
+                                 " % of the maximum at the maximum's COP (common practice); enter min_capacity and min_cop");
+    }
+    bool frost = false;
+    points = with_frost_default(points, frost);
+    if (frost)
+        sheet_trace.push_back("no point between 17 and 45 degF: frost default of the DOE procedure applied (at 35 degF capacity x "
+                              "0.90 and power x 0.985 of the 17-47 degF line, blended to none at 17 and 45 degF)");
+
+    if (!option.cutoff_c) {
+        option.cutoff_c = default_cutoff_c(option.stages);
+        r.warnings.push_back("no low-temperature cut-out given: the " +
+                             std::string(option.stages == heat_pump_stages::variable ? "variable-speed" : "single- or two-stage") +
+                             " heat pump is taken to stop below " + temp_text(*option.cutoff_c) +
+                             " (common practice); enter the data sheet's low-ambient limit");
+    }
+
+    // Sizing against the load line the bins use: capacity at the design temperature, and where capacity meets load.
+    {
+        bool unused = false;
+        r.design_load_kw = design_load_kw;
+        r.capacity_at_design_kw = interpolate(points, design_c, unused).capacity_kw;
+        r.capacity_balance_c = capacity_balance_c(points, ua_kw, balance_c);
+        if (r.capacity_at_design_kw < design_load_kw)
+            r.warnings.push_back("at the design temperature " + temp_text(design_c) + " the heat pump gives " +
+                                 format_fixed(r.capacity_at_design_kw, 1) + " kW of the " + format_fixed(design_load_kw, 1) +
+                                 " kW the house needs; the backup must carry the rest (resistance strips need their own "
+                                 "circuit and may need a larger electrical service: a licensed electrician to local code)");
     }
 
     // Backup: electric resistance, or another option's furnace or boiler (dual fuel).

@@ -161,12 +161,19 @@ double read_power_kw(const json& value, const std::string& path) {
 
 void read_heat_pump_fields(const json& system, const std::string& path, scenario_option& option) {
     const bool heat_pump = is_heat_pump(option.system.kind);
-    for (const char* key : {"ratings", "cutoff", "cd", "backup", "changeover", "capacity"}) {
+    for (const char* key : {"ratings", "cutoff", "cd", "backup", "changeover", "capacity", "stages"}) {
         if (system.contains(key) && !heat_pump)
             throw input_error(path + "/" + key, std::string(key) + " applies to heat pumps only");
         if (system.contains(key) && option.system.kind == system_kind::ground_source_heat_pump)
             throw input_error(path + "/" + key, std::string(key) + " applies to air-source heat pumps: a ground-source heat "
                                                 "pump's COP follows its ground loop, not the outdoor air; give its COP or SCOP");
+    }
+    if (const auto stages = optional_string(system, "stages", path)) {
+        if (*stages == "single") option.stages = heat_pump_stages::single;
+        else if (*stages == "two") option.stages = heat_pump_stages::two;
+        else if (*stages == "variable") option.stages = heat_pump_stages::variable;
+        else throw input_error(path + "/stages", "must be single, two or variable, got \"" + *stages + "\"");
+        option.stages_given = true;
     }
     if (const auto ratings = system.find("ratings"); ratings != system.end()) {
         if (!ratings->is_array() || ratings->size() < 2)
@@ -184,6 +191,23 @@ void read_heat_pump_fields(const json& system, const std::string& path, scenario
                 throw input_error(point_path + "/capacity/value", "must be > 0, got " + format_number(entry.capacity_kw));
             if (entry.cop < 1)
                 throw input_error(point_path + "/cop", "a heat pump's COP cannot be below 1, got " + format_number(entry.cop));
+            if (point.contains("min_capacity") || point.contains("min_cop")) {
+                if (!point.contains("min_capacity") || !point.contains("min_cop"))
+                    throw input_error(point_path + (point.contains("min_capacity") ? "/min_cop" : "/min_capacity"),
+                                      "is required with the other (the minimum capacity and its COP)");
+                if (option.stages == heat_pump_stages::single)
+                    throw input_error(point_path + "/min_capacity",
+                                      "a minimum capacity needs system.stages \"two\" or \"variable\" (a single-stage unit "
+                                      "has one capacity)");
+                entry.min_capacity_kw = read_power_kw(point.at("min_capacity"), point_path + "/min_capacity");
+                entry.min_cop = required_number(point, "min_cop", point_path);
+                if (!(entry.min_capacity_kw > 0 && entry.min_capacity_kw <= entry.capacity_kw))
+                    throw input_error(point_path + "/min_capacity/value",
+                                      "must be above 0 and at most the point's capacity, got " +
+                                          format_number(point.at("min_capacity").value("value", 0.0)));
+                if (entry.min_cop < 1)
+                    throw input_error(point_path + "/min_cop", "a heat pump's COP cannot be below 1, got " + format_number(entry.min_cop));
+            }
             for (const auto& other : option.ratings)
                 if (std::fabs(other.outdoor_c - entry.outdoor_c) < 1e-9)
                     throw input_error(point_path + "/outdoor", "two data-sheet points at the same outdoor temperature");
@@ -357,7 +381,7 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
     }
     read_heat_pump_fields(system, system_path, option);
     warn_unknown_keys(system, {"kind", "catalog", "efficiency", "distribution_loss", "age_derating", "ratings", "cutoff",
-                               "cd", "backup", "changeover", "capacity"},
+                               "cd", "backup", "changeover", "capacity", "stages", "auxiliary_electricity"},
                       system_path, warnings);
     option.system.distribution_loss = optional_number(system, "distribution_loss", system_path).value_or(0.0);
     option.system.age_derating = optional_number(system, "age_derating", system_path).value_or(0.0);
@@ -647,6 +671,25 @@ option_result result_for(const scenario& input, const scenario_option& option) {
     return r;
 }
 
+namespace {
+
+/// Without a climate, a seasonal COP on one basis for HSPF and HSPF2 alike: an HSPF2 rating's default
+/// curve, fitted by Appendix M1, read on Appendix M's region IV load line (its HSPF / 3.412), since HSPF
+/// and HSPF2 differ by their test's load line, not by the machine.
+seasonal_efficiency hspf2_on_the_hspf_basis(seasonal_efficiency rated, const system_request& system) {
+    const auto points = default_points_for_rating(rated.rated_hhv_basis, rating_procedure::hspf2_appendix_m1, 10.0);
+    const double cop = procedure_seasonal_cop(points, rating_procedure::hspf_appendix_m);
+    rated.trace.push_back("no climate: the default curve fitted to HSPF2 " + format_number(system.efficiency_value) + " by " +
+                          procedure_name(rating_procedure::hspf2_appendix_m1) + " has, on " +
+                          procedure_name(rating_procedure::hspf_appendix_m) + ", seasonal COP " + format_fixed(cop, 3) +
+                          " (HSPF " + format_fixed(cop * btu_per_wh, 2) + "), the basis an HSPF rating is read on");
+    rated.hhv_basis = rated.hhv_basis / rated.rated_hhv_basis * cop;
+    rated.rated_hhv_basis = cop;
+    return rated;
+}
+
+}  // namespace
+
 option_result evaluate_option(const scenario& input, const scenario_option& option) {
     if (option.system.kind == system_kind::air_source_heat_pump && input.climate)
         return evaluate_heat_pump_option(input, option);
@@ -667,7 +710,9 @@ option_result evaluate_option(const scenario& input, const scenario_option& opti
             r.warnings.push_back("wood above 20-25 % moisture burns poorly and smokes, and builds creosote in the "
                                  "chimney (a chimney-fire risk): season it or buy dry wood");
     }
-    const auto efficiency = seasonal_efficiency_hhv(option.system, fuel, option.path + "/system");
+    auto efficiency = seasonal_efficiency_hhv(option.system, fuel, option.path + "/system");
+    if (option.system.kind == system_kind::air_source_heat_pump && option.system.rating == efficiency_rating::hspf2)
+        efficiency = hspf2_on_the_hspf_basis(efficiency, option.system);
     r.seasonal_efficiency_hhv = efficiency.hhv_basis;
     for (const auto& w : efficiency.warnings) r.warnings.push_back(w);
 

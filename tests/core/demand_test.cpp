@@ -237,13 +237,19 @@ TEST(heat_pump_bins, energy_balance_closes_and_no_backup_when_capacity_suffices)
     EXPECT_GT(short_of.backup_heat_kwh, 0.0);
 }
 
-TEST(heat_pump_bins, default_curve_reproduces_hspf_over_region_iv) {
-    // HSPF is Btu/Wh over the DOE Region IV season: the scaled default curve's Region IV seasonal
-    // COP is HSPF / 3.412 (EIA 3,412 Btu/kWh).
-    for (double hspf : {7.5, 8.5, 10.0}) {
-        const auto points = fw::default_points_for_seasonal_cop(hspf / 3.41214163312794, 10.0);
-        EXPECT_NEAR(fw::region_iv_seasonal_cop(points), hspf / 3.41214163312794, 1e-6) << hspf;
-        EXPECT_NEAR(points[1].capacity_kw / points[0].capacity_kw, 0.62, 1e-12);
+TEST(heat_pump_bins, default_curve_reproduces_its_rating_by_its_own_procedure) {
+    // Issue 13: a rating-only heat pump's curve is fitted by the rating's procedure and, run back through
+    // that procedure's bins, reproduces the rating to 1 % (here to 1e-6). HSPF and HSPF2 in Btu/Wh
+    // (/ 3.412 for the seasonal COP, EIA 3,412 Btu/kWh); SCOP as it is.
+    for (double rating : {7.5, 8.5, 10.0})
+        for (auto procedure : {fw::rating_procedure::hspf_appendix_m, fw::rating_procedure::hspf2_appendix_m1}) {
+            const auto points = fw::default_points_for_rating(rating / 3.41214163312794, procedure, 10.0);
+            EXPECT_NEAR(fw::procedure_seasonal_cop(points, procedure), rating / 3.41214163312794, 1e-6) << rating;
+            EXPECT_NEAR(points[1].capacity_kw / points[0].capacity_kw, 0.62, 1e-12);
+        }
+    for (double scop : {3.0, 4.0, 4.6}) {
+        const auto points = fw::default_points_for_rating(scop, fw::rating_procedure::scop_en14825, 8.0);
+        EXPECT_NEAR(fw::procedure_seasonal_cop(points, fw::rating_procedure::scop_en14825), scop, 1e-6) << scop;
     }
 }
 

@@ -85,6 +85,8 @@ struct scenario_option {
     bool efficiency_given = true;
     // Heat pumps on bins.
     std::vector<heat_pump_point> ratings;
+    heat_pump_stages stages = heat_pump_stages::single;
+    bool stages_given = false;
     std::optional<double> cutoff_c;
     double cd = default_cd;
     bool cd_given = false;
@@ -175,6 +177,9 @@ struct option_result {
     double heat_pump_kwh = 0, backup_kwh = 0, backup_share = 0;
     std::optional<double> changeover_c;
     double balance_point_c = 0;
+    double design_load_kw = 0;               ///< the house's load at the design temperature (bins' load line)
+    double capacity_at_design_kw = 0;        ///< the heat pump's capacity there
+    std::optional<double> capacity_balance_c;  ///< where the heat pump's capacity meets the load
     std::string backup_option;               ///< dual fuel: id of the backup option
     double backup_fuel_quantity = 0;
     std::string backup_fuel_unit;
