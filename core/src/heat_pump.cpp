@@ -114,9 +114,17 @@ std::vector<heat_pump_point> with_frost_default(const std::vector<heat_pump_poin
     const auto scale = [](double capacity, double cop) { return std::pair{0.90 * capacity, 0.90 * capacity / (0.985 * capacity / cop)}; };
     std::tie(frosted.capacity_kw, frosted.cop) = scale(frosted.capacity_kw, frosted.cop);
     if (frosted.min_capacity_kw > 0) std::tie(frosted.min_capacity_kw, frosted.min_cop) = scale(frosted.min_capacity_kw, frosted.min_cop);
+    const auto given = sorted_points(points);
+    frosted.added = true;
     sorted.push_back(frosted);
-    if (std::none_of(sorted.begin(), sorted.end(), [&](const auto& p) { return std::fabs(p.outdoor_c - t45) < tolerance; }))
-        sorted.push_back(interpolate_sorted(sorted_points(points), t45, unused));
+    if (std::none_of(sorted.begin(), sorted.end(), [&](const auto& p) { return std::fabs(p.outdoor_c - t45) < tolerance; })) {
+        sorted.push_back(interpolate_sorted(given, t45, unused));
+        sorted.back().added = true;
+    }
+    if (std::count_if(given.begin(), given.end(), [&](const auto& p) { return p.outdoor_c <= t17 + tolerance; }) == 1) {
+        sorted.push_back(interpolate_sorted(given, given.front().outdoor_c - 10.0 * 5.0 / 9.0, unused));
+        sorted.back().added = true;
+    }
     applied = true;
     return sorted_points(sorted);
 }
@@ -126,12 +134,16 @@ heat_pump_season run_bins(const std::vector<temperature_bin>& bins, double ua_kw
     heat_pump_season season;
     const auto sorted = sorted_points(inputs.points);
     bool first_cop = true;
-    const double coldest_c = sorted.front().outdoor_c;
+    // Extrapolated: outside the data sheet's own points (not those the frost default added).
+    double coldest_c = INFINITY, warmest_c = -INFINITY;
+    for (const auto& p : sorted)
+        if (!p.added) coldest_c = std::min(coldest_c, p.outdoor_c), warmest_c = std::max(warmest_c, p.outdoor_c);
     for (const auto& bin : bins) {
         heat_pump_bin out{bin.t_c, bin.hours, 0, 0, 0, 0, 0, 0, false, false};
         const double load = bin.t_c < balance_point_c ? ua_kw_per_k * (balance_point_c - bin.t_c) : 0.0;
         bool extrapolated = false;
         const auto rated = interpolate_sorted(sorted, bin.t_c, extrapolated);
+        extrapolated = bin.t_c < coldest_c || bin.t_c > warmest_c;
         out.load_kw = load;
         out.capacity_kw = rated.capacity_kw;
         out.cop = rated.cop;

@@ -288,8 +288,9 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
     r.n2o_kg = emitted.n2o_kg;
 
     if (season.extrapolated_hours > 0) {
-        double coldest = points.front().outdoor_c;
-        for (const auto& p : points) coldest = std::min(coldest, p.outdoor_c);
+        double coldest = INFINITY;
+        for (const auto& p : points)
+            if (!p.added) coldest = std::min(coldest, p.outdoor_c);
         r.warnings.push_back(format_fixed(season.extrapolated_hours, 0) + " heating hours are colder than the data sheet's coldest "
                              "point (" + temp_text(coldest) + "); capacity and COP there are extrapolated linearly");
     }

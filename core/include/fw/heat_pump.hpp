@@ -18,6 +18,7 @@ struct heat_pump_point {
     double cop;
     double min_capacity_kw = 0;
     double min_cop = 0;
+    bool added = false;  ///< added by the frost default, not on the data sheet
 };
 
 /// How the compressor meets part load: on/off at one capacity, two stages, or variable speed.
@@ -71,7 +72,8 @@ heat_pump_point interpolate(const std::vector<heat_pump_point>& points, double t
 /// The points with the rating procedure's frost default added where no point lies between 17 and
 /// 45 degF: at 35 degF capacity x 0.90 and power x 0.985 of the straight 17-47 degF line, and a point
 /// at 45 degF on that line, so the frost loss blends to none at 17 and 45 degF (10 CFR 430 App. M/M1;
-/// AHRI 210/240, from memory). `applied` tells whether it was.
+/// AHRI 210/240, from memory). Below a sheet's only point at or under 17 degF the 17-47 degF line goes on
+/// (a point 10 degF lower is added on it). `applied` tells whether it was.
 std::vector<heat_pump_point> with_frost_default(const std::vector<heat_pump_point>& points, bool& applied);
 
 /// Runs the bins: load L = ua_kw_per_k x (balance - T) below the balance point. Single speed:
