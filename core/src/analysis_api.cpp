@@ -170,8 +170,13 @@ bool depends_on(const scenario& input, const variable& v, std::size_t k) {
     if (v.kind == "demand") return true;
     const auto varied = [&](std::size_t i) { return std::find(v.options.begin(), v.options.end(), i) != v.options.end(); };
     if (varied(k)) return true;
-    for (std::size_t i = 0; i < input.options.size(); ++i)
+    for (std::size_t i = 0; i < input.options.size(); ++i) {
         if (varied(i) && input.options[i].id == input.options[k].backup) return true;
+        // A fuel-burning system's own electricity may be priced at an electricity option's price.
+        if (varied(i) && v.kind == "price" && input.options[i].fuel.category == fuel_category::electricity &&
+            input.options[k].auxiliary && !input.settings.electricity_price_per_kwh)
+            return true;
+    }
     return false;
 }
 

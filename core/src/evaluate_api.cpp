@@ -47,6 +47,9 @@ json option_json(const option_result& r, const scenario& input) {
             {"co2_biogenic_kg", r.co2_biogenic_kg},
             {"ch4_kg", r.ch4_kg},
             {"n2o_kg", r.n2o_kg},
+            {"auxiliary_kwh", r.auxiliary_kwh},
+            {"auxiliary_cost", r.auxiliary_cost},
+            {"kept_services_cost", r.kept_services_cost},
             {"trace", r.trace},
             {"sources", sources_json(r.sources)}};
     if (r.season) {

@@ -149,6 +149,29 @@ fuel_record read_custom_fuel(const json& fuel, const std::string& path, std::vec
     return record;
 }
 
+/// Fixed charges [{label, amount_per_month | amount_per_year}] at `path`.
+std::vector<fixed_charge> read_fixed_charges(const json& charges, const std::string& path) {
+    if (!charges.is_array()) throw input_error(path, "must be an array");
+    std::vector<fixed_charge> out;
+    for (std::size_t i = 0; i < charges.size(); ++i) {
+        const std::string charge_path = path + "/" + std::to_string(i);
+        const auto& charge = charges[i];
+        require_object(charge, charge_path);
+        fixed_charge entry;
+        entry.label = optional_string(charge, "label", charge_path).value_or("fixed charge");
+        const auto monthly = optional_number(charge, "amount_per_month", charge_path);
+        const auto yearly = optional_number(charge, "amount_per_year", charge_path);
+        if (bool(monthly) == bool(yearly)) throw input_error(charge_path, "give either amount_per_month or amount_per_year");
+        const double amount = monthly ? *monthly : *yearly;
+        if (amount < 0)
+            throw input_error(charge_path + (monthly ? "/amount_per_month" : "/amount_per_year"), "must be >= 0, got " + format_number(amount));
+        entry.amount_per_year = monthly ? *monthly * 12 : *yearly;
+        entry.text = monthly ? format_fixed(*monthly, 2) + " per month x 12" : format_fixed(*yearly, 2) + " per year";
+        out.push_back(entry);
+    }
+    return out;
+}
+
 /// A temperature {value, unit} in degC.
 double read_temperature_c(const json& value, const std::string& path) {
     return quantity_in(value, path, dimension::temperature, "degC");
@@ -161,7 +184,7 @@ double read_power_kw(const json& value, const std::string& path) {
 
 void read_heat_pump_fields(const json& system, const std::string& path, scenario_option& option) {
     const bool heat_pump = is_heat_pump(option.system.kind);
-    for (const char* key : {"ratings", "cutoff", "cd", "backup", "changeover", "capacity", "stages"}) {
+    for (const char* key : {"ratings", "cutoff", "cd", "backup", "changeover", "stages"}) {
         if (system.contains(key) && !heat_pump)
             throw input_error(path + "/" + key, std::string(key) + " applies to heat pumps only");
         if (system.contains(key) && option.system.kind == system_kind::ground_source_heat_pump)
@@ -231,8 +254,35 @@ void read_heat_pump_fields(const json& system, const std::string& path, scenario
         }
     }
     if (system.contains("capacity")) {
+        if (option.system.kind == system_kind::ground_source_heat_pump)
+            throw input_error(path + "/capacity", "capacity applies to air-source heat pumps and fuel-burning systems");
         option.capacity_47_kw = read_power_kw(system.at("capacity"), path + "/capacity");
         if (*option.capacity_47_kw <= 0) throw input_error(path + "/capacity/value", "must be > 0");
+        if (*option.capacity_47_kw > 300)
+            throw input_error(path + "/capacity/value", "is more than any house's heating system (at most 300 kW, 1,023,000 Btu/h)");
+    }
+    if (system.contains("auxiliary_electricity")) {
+        if (!burns_fuel(option.system.kind))
+            throw input_error(path + "/auxiliary_electricity", "applies to fuel-burning systems (a heat pump's fans and pumps are "
+                                                               "in its rating; electric heat has none)");
+        const auto& aux = system.at("auxiliary_electricity");
+        require_object(aux, path + "/auxiliary_electricity");
+        const auto value = optional_number(aux, "value", path + "/auxiliary_electricity");
+        const auto unit = optional_string(aux, "unit", path + "/auxiliary_electricity").value_or("");
+        if (!value) throw input_error(path + "/auxiliary_electricity/value", "is required");
+        if (unit != "kWh" && unit != "W")
+            throw input_error(path + "/auxiliary_electricity/unit", "must be kWh (a year, the E_ae rating) or W (while the burner "
+                                                                    "runs), got \"" + unit + "\"");
+        const double limit = unit == "kWh" ? 5000 : 2000;
+        if (!(*value >= 0 && *value <= limit))
+            throw input_error(path + "/auxiliary_electricity/value", "must be from 0 to " + format_number(limit) + " " + unit +
+                                                                         ", got " + format_number(*value));
+        option.auxiliary = scenario_option::auxiliary_spec{*value, unit == "W", "as given"};
+    } else if (burns_fuel(option.system.kind)) {
+        const auto* typical = option.system_catalog ? &find_system(*option.system_catalog) : typical_system_for(option.system.kind, option.fuel.id, option.system.efficiency_value, option.system.rating);
+        if (typical && typical->auxiliary_value > 0)
+            option.auxiliary = scenario_option::auxiliary_spec{typical->auxiliary_value, typical->auxiliary_watts,
+                                                               "default of " + typical->id + ": " + typical->auxiliary_source};
     }
 }
 
@@ -324,27 +374,7 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
     // Validates the priced unit now so the error points at the price.
     heating_value_per_sale_unit(option.fuel, option.price_unit, option.sale, path + "/price/per");
 
-    if (const auto charges = item.find("fixed_charges"); charges != item.end()) {
-        if (!charges->is_array()) throw input_error(path + "/fixed_charges", "must be an array");
-        for (std::size_t i = 0; i < charges->size(); ++i) {
-            const std::string charge_path = path + "/fixed_charges/" + std::to_string(i);
-            const auto& charge = (*charges)[i];
-            require_object(charge, charge_path);
-            fixed_charge entry;
-            entry.label = optional_string(charge, "label", charge_path).value_or("fixed charge");
-            const auto monthly = optional_number(charge, "amount_per_month", charge_path);
-            const auto yearly = optional_number(charge, "amount_per_year", charge_path);
-            if (bool(monthly) == bool(yearly))
-                throw input_error(charge_path, "give either amount_per_month or amount_per_year");
-            const double amount = monthly ? *monthly : *yearly;
-            if (amount < 0)
-                throw input_error(charge_path + (monthly ? "/amount_per_month" : "/amount_per_year"),
-                                  "must be >= 0, got " + format_number(amount));
-            entry.amount_per_year = monthly ? *monthly * 12 : *yearly;
-            entry.text = monthly ? format_fixed(*monthly, 2) + " per month x 12" : format_fixed(*yearly, 2) + " per year";
-            option.fixed_charges.push_back(entry);
-        }
-    }
+    if (item.contains("fixed_charges")) option.fixed_charges = read_fixed_charges(item.at("fixed_charges"), path + "/fixed_charges");
 
     if (!item.contains("system")) throw input_error(path + "/system", "is required");
     const auto& system = item.at("system");
@@ -448,7 +478,42 @@ scenario_settings read_settings(const json& document, std::vector<issue>& warnin
         find_gwp_set(*gwp, "/settings/gwp");
         settings.gwp = *gwp;
     }
-    warn_unknown_keys(s, {"units", "currency", "electricity_co2e_kg_per_kwh", "gwp", "locale"}, "/settings", warnings);
+    if (s.contains("electricity")) {
+        const auto& electricity = s.at("electricity");
+        const std::string path = "/settings/electricity";
+        require_object(electricity, path);
+        if (electricity.contains("price")) {
+            const auto& price = electricity.at("price");
+            require_object(price, path + "/price");
+            const auto amount = optional_number(price, "amount", path + "/price");
+            if (!amount) throw input_error(path + "/price/amount", "is required (the price of a kWh)");
+            if (!(*amount > 0 && *amount < 10))
+                throw input_error(path + "/price/amount", "must be a price per kWh above 0 and below 10, got " + format_number(*amount));
+            const auto per = optional_string(price, "per", path + "/price").value_or("kWh");
+            if (per != "kWh") throw input_error(path + "/price/per", "must be kWh, got \"" + per + "\"");
+            settings.electricity_price_per_kwh = *amount;
+        }
+        if (electricity.contains("fixed_charges"))
+            settings.kept_services.push_back({"electricity", read_fixed_charges(electricity.at("fixed_charges"), path + "/fixed_charges")});
+        warn_unknown_keys(electricity, {"price", "fixed_charges"}, path, warnings);
+    }
+    if (s.contains("kept_services")) {
+        const auto& kept = s.at("kept_services");
+        if (!kept.is_array()) throw input_error("/settings/kept_services", "must be an array of {fuel, fixed_charges}");
+        for (std::size_t i = 0; i < kept.size(); ++i) {
+            const std::string path = "/settings/kept_services/" + std::to_string(i);
+            require_object(kept[i], path);
+            const auto fuel = optional_string(kept[i], "fuel", path);
+            if (!fuel) throw input_error(path + "/fuel", "is required (the id of the fuel whose service stays connected)");
+            find_fuel(*fuel, path + "/fuel");
+            if (!kept[i].contains("fixed_charges"))
+                throw input_error(path + "/fixed_charges", "is required (the charges the service costs whatever it supplies)");
+            settings.kept_services.push_back({*fuel, read_fixed_charges(kept[i].at("fixed_charges"), path + "/fixed_charges")});
+            warn_unknown_keys(kept[i], {"fuel", "fixed_charges", "label"}, path, warnings);
+        }
+    }
+    warn_unknown_keys(s, {"units", "currency", "electricity_co2e_kg_per_kwh", "gwp", "locale", "electricity", "kept_services"},
+                      "/settings", warnings);
     return settings;
 }
 
@@ -690,7 +755,129 @@ seasonal_efficiency hspf2_on_the_hspf_basis(seasonal_efficiency rated, const sys
 
 }  // namespace
 
+namespace {
+
+/// [currency/kWh] The site's electricity price for a fuel-burning system's own electricity:
+/// `settings.electricity.price`, else the first electricity option's (its first block), with where it came from.
+std::optional<std::pair<double, std::string>> site_electricity_price(const scenario& input) {
+    if (input.settings.electricity_price_per_kwh)
+        return std::pair{*input.settings.electricity_price_per_kwh, std::string("the site's electricity price")};
+    for (const auto& other : input.options)
+        if (other.fuel.category == fuel_category::electricity) {
+            const double kwh_per_unit = heating_value_per_sale_unit(other.fuel, other.price_unit, other.sale, {}).hhv_j / 3.6e6;
+            return std::pair{other.price_per_unit / kwh_per_unit, "the electricity price of option " + other.id};
+        }
+    return std::nullopt;
+}
+
+/// [kW] The house's heating load at the climate's design temperature on the load line the bins use
+/// (space heat spread over the degree-hours below the balance point), if there is a climate.
+std::optional<double> house_design_load_kw(const scenario& input) {
+    if (!input.climate) return std::nullopt;
+    const auto& climate = *input.climate;
+    const double balance_c = input.balance_point_c.value_or(climate.fahrenheit ? convert(65, "degF", "degC") : 18.0);
+    double degree_hours = 0;
+    for (const auto& bin : climate.bins)
+        if (bin.t_c < balance_c) degree_hours += bin.hours * (balance_c - bin.t_c);
+    if (degree_hours <= 0) return std::nullopt;
+    return input.space_heat_kwh / degree_hours * std::max(0.0, balance_c - climate.given_design_c.value_or(climate.design_99_c));
+}
+
+/// Adds what an option costs beside its heating energy: a fuel-burning system's own electricity
+/// (blower, circulator, burner motor, auger) at the site's electricity price, the fixed charges of
+/// services the house keeps whatever heats it, and the sizing check of a fuel-burning system's capacity.
+void add_site_costs(const scenario& input, const scenario_option& option, option_result& r) {
+    const auto& currency = input.settings.currency;
+    const bool us = input.settings.units == unit_system::us;
+    const auto power_text = [&](double kw) {
+        return us ? format_fixed(convert(kw, "kW", "Btu/h"), 0) + " Btu/h" : format_fixed(kw, 1) + " kW";
+    };
+    const auto design_load = burns_fuel(option.system.kind) ? house_design_load_kw(input) : std::nullopt;
+    if (option.auxiliary && option.auxiliary->value > 0) {
+        const auto& aux = *option.auxiliary;
+        std::optional<double> kwh;
+        if (!aux.watts) {
+            kwh = aux.value;
+            r.trace.push_back("auxiliary electricity " + format_number(aux.value) + " kWh a year (" + aux.text + ")");
+        } else {
+            const auto capacity = option.capacity_47_kw ? option.capacity_47_kw : design_load;
+            if (capacity && *capacity > 0) {
+                const double hours = r.useful_heat_kwh / *capacity;
+                kwh = aux.value / 1000 * hours;
+                r.trace.push_back("auxiliary electricity " + format_number(aux.value) + " W while the burner runs (" + aux.text +
+                                  ") x " + format_fixed(hours, 0) + " burner hours (useful heat / " +
+                                  (option.capacity_47_kw ? "output capacity " : "the house's design load ") + power_text(*capacity) +
+                                  ") = " + format_fixed(*kwh, 0) + " kWh");
+            } else {
+                r.warnings.push_back("auxiliary electricity of " + format_number(aux.value) + " W left out: give the system's "
+                                     "output capacity (or a climate) to count its burner hours, or give it in kWh a year");
+            }
+        }
+        if (kwh) {
+            r.auxiliary_kwh = *kwh;
+            const auto emitted = emissions_of(find_fuel("electricity"), *kwh, input.settings);
+            r.co2e_kg += emitted.co2e_kg;
+            r.co2_fossil_kg += emitted.co2_fossil_kg;
+            r.trace.push_back("auxiliary electricity emissions " + emitted.text);
+            if (const auto price = site_electricity_price(input)) {
+                r.auxiliary_cost = *kwh * price->first;
+                r.energy_cost += r.auxiliary_cost;
+                r.cost_parts.push_back({"electricity", r.auxiliary_cost, 0.0});
+                r.trace.push_back(format_fixed(*kwh, 0) + " kWh x " + format_number(price->first) + " " + currency + "/kWh (" +
+                                  price->second + ") = " + format_fixed(r.auxiliary_cost, 2) + " " + currency);
+            } else {
+                r.warnings.push_back("its auxiliary electricity (" + format_fixed(*kwh, 0) + " kWh a year) is not priced: the "
+                                     "scenario has no electricity price (settings.electricity or an electricity option)");
+            }
+        }
+    }
+    // Services the house keeps: their fixed charges, unless the option already pays for that fuel.
+    for (const auto& service : input.settings.kept_services) {
+        bool pays = option.fuel.id == service.fuel_id;
+        if (!pays && option.backup != "electric-resistance")
+            for (const auto& other : input.options)
+                if (other.id == option.backup) pays = other.fuel.id == service.fuel_id;
+        if (pays) continue;
+        double total = 0;
+        for (const auto& charge : service.charges) {
+            total += charge.amount_per_year;
+            r.trace.push_back("kept " + service.fuel_id + " service, " + charge.label + ": " + charge.text + " = " +
+                              format_fixed(charge.amount_per_year, 2) + " " + currency);
+        }
+        r.kept_services_cost += total;
+        r.fixed_cost += total;
+        r.cost_parts.push_back({service.fuel_id, 0.0, total});
+    }
+    r.annual_cost = r.energy_cost + r.fixed_cost;
+    // Sizing of a fuel-burning system with a given output capacity: 100-140 % of the design load
+    // (ACCA Manual S furnace sizing limits, from memory; common practice for boilers too).
+    if (design_load && option.capacity_47_kw && *design_load > 0) {
+        const double ratio = *option.capacity_47_kw / *design_load;
+        if (ratio < 1.0)
+            r.warnings.push_back("its output " + power_text(*option.capacity_47_kw) + " is below the house's design load " +
+                                 power_text(*design_load) + ": it cannot keep the house warm on the coldest days (sizing "
+                                 "needs a Manual J or EN 12831 load calculation by a professional)");
+        else if (ratio > 1.4)
+            r.warnings.push_back("its output " + power_text(*option.capacity_47_kw) + " is " + format_fixed(ratio, 1) +
+                                 " times the house's design load " + power_text(*design_load) +
+                                 ": oversized (more than 1.4 x, ACCA Manual S, from memory), it will short-cycle");
+    }
+}
+
+/// The option's heating energy, cost and emissions (evaluate_option before the site's other costs).
+option_result evaluate_option_energy(const scenario& input, const scenario_option& option);
+
+}  // namespace
+
 option_result evaluate_option(const scenario& input, const scenario_option& option) {
+    auto r = evaluate_option_energy(input, option);
+    add_site_costs(input, option, r);
+    return r;
+}
+
+namespace {
+
+option_result evaluate_option_energy(const scenario& input, const scenario_option& option) {
     if (option.system.kind == system_kind::air_source_heat_pump && input.climate)
         return evaluate_heat_pump_option(input, option);
     if (!option.efficiency_given)
@@ -806,6 +993,8 @@ option_result evaluate_option(const scenario& input, const scenario_option& opti
     }
     return r;
 }
+
+}  // namespace
 
 const std::vector<std::string>& cautions() {
     static const std::vector<std::string> list = {

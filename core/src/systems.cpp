@@ -109,13 +109,38 @@ const std::vector<system_record>& system_table() {
                                  item.at("fuels").get<std::vector<std::string>>(),
                                  {},
                                  load_rated(item.at("typical")),
-                                 load_rated(item.at("minimum"))};
+                                 load_rated(item.at("minimum")),
+                                 0.0,
+                                 false,
+                                 {}};
             for (const auto& rating : item.at("ratings")) record.ratings.push_back(parse_rating(rating.get<std::string>()));
+            if (item.contains("auxiliary_electricity")) {
+                const auto& aux = item.at("auxiliary_electricity");
+                record.auxiliary_value = aux.at("value").get<double>();
+                record.auxiliary_watts = aux.at("unit").get<std::string>() == "W";
+                const auto key = aux.at("source").get<std::string>();
+                record.auxiliary_source = doc.at("sources").contains(key) ? doc.at("sources").at(key).get<std::string>() : key;
+            }
             records.push_back(std::move(record));
         }
         return records;
     }();
     return table;
+}
+
+const system_record* typical_system_for(system_kind kind, const std::string& fuel_id, double efficiency_value,
+                                        efficiency_rating rating) {
+    const system_record* best = nullptr;
+    double best_gap = INFINITY;
+    for (const auto& record : system_table()) {
+        if (record.kind != kind || std::find(record.fuels.begin(), record.fuels.end(), fuel_id) == record.fuels.end()) continue;
+        const double gap = record.typical.rating == rating ? std::fabs(record.typical.value - efficiency_value) : 1e9;
+        if (!best || gap < best_gap) {
+            best = &record;
+            best_gap = gap;
+        }
+    }
+    return best;
 }
 
 const system_record& find_system(const std::string& id, const std::string& path) {

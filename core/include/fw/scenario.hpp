@@ -19,12 +19,26 @@ namespace fw {
 
 enum class unit_system { us, metric };
 
+struct fixed_charge {
+    std::string label;
+    double amount_per_year = 0;  ///< [currency/year]
+    std::string text;            ///< as entered, for the trace
+};
+
+/// A fuel whose service stays connected whatever heats the house (gas kept for a range and a water heater).
+struct kept_service {
+    std::string fuel_id;
+    std::vector<fixed_charge> charges;
+};
+
 struct scenario_settings {
     unit_system units = unit_system::us;
     std::string currency = "USD";
     double electricity_co2e_kg_per_kwh = 0;
     bool electricity_factor_given = false;
     std::string gwp = "AR5";
+    std::optional<double> electricity_price_per_kwh;  ///< [currency/kWh] `settings.electricity.price`
+    std::vector<kept_service> kept_services;          ///< `settings.kept_services`, and electricity's fixed charges
 };
 
 /// Scenario `economics`: rates are fractions per year on one basis (real or nominal).
@@ -53,12 +67,6 @@ struct uncertainty_settings {
         const auto found = spread.find(fuel_id);
         return found == spread.end() ? default_spread : found->second;
     }
-};
-
-struct fixed_charge {
-    std::string label;
-    double amount_per_year = 0;  ///< [currency/year]
-    std::string text;            ///< as entered, for the trace
 };
 
 /// One block of a tiered (block-rate) price: `amount` per unit for the annual quantity from `from` to `to`.
@@ -93,7 +101,14 @@ struct scenario_option {
     std::string backup = "electric-resistance";  ///< or the id of another option (dual fuel)
     std::optional<double> changeover_c;
     bool changeover_optimal = false;
-    std::optional<double> capacity_47_kw;
+    std::optional<double> capacity_47_kw;  ///< heat pumps: capacity at 47 degF; other systems: output capacity
+    /// Auxiliary electricity of a fuel-burning system: kWh a year (the E_ae rating) or W while the burner runs.
+    struct auxiliary_spec {
+        double value = 0;
+        bool watts = false;
+        std::string text;  ///< where it comes from, for the trace
+    };
+    std::optional<auxiliary_spec> auxiliary;
     bool existing = false;
     double installed_cost = 0, incentives = 0, annual_maintenance = 0;  ///< [currency], [currency/year]
     std::optional<double> life_years;
@@ -177,6 +192,8 @@ struct option_result {
     double heat_pump_kwh = 0, backup_kwh = 0, backup_share = 0;
     std::optional<double> changeover_c;
     double balance_point_c = 0;
+    double auxiliary_kwh = 0, auxiliary_cost = 0;  ///< a fuel-burning system's own electricity [kWh/yr, currency/yr]
+    double kept_services_cost = 0;           ///< fixed charges of services the house keeps [currency/yr]
     double design_load_kw = 0;               ///< the house's load at the design temperature (bins' load line)
     double capacity_at_design_kw = 0;        ///< the heat pump's capacity there
     std::optional<double> capacity_balance_c;  ///< where the heat pump's capacity meets the load

@@ -35,7 +35,16 @@ struct system_record {
     std::vector<efficiency_rating> ratings;
     rated_efficiency typical;
     rated_efficiency minimum;
+    /// Auxiliary electricity of a typical unit: kWh a year, or W while the burner runs (`watts`); 0 for none.
+    double auxiliary_value = 0;
+    bool auxiliary_watts = false;
+    std::string auxiliary_source;
 };
+
+/// The catalog record a system of this kind and fuel most likely is: of those burning the fuel, the one
+/// whose typical efficiency in the same rating is nearest `efficiency_value` (else the first), if any.
+const system_record* typical_system_for(system_kind kind, const std::string& fuel_id, double efficiency_value,
+                                        efficiency_rating rating);
 
 const std::vector<system_record>& system_table();
 
