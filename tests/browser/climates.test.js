@@ -127,6 +127,38 @@ describe('House tab: bills as printed, weather file, climate library (Chromium, 
     await page.tap('label[for="f-demand-bill-dates-meter-reads"]');
   });
 
+  test('twelve gas bills typed as the utility prints them give a verdict, heat pump included', { timeout: TIMEOUT }, async () => {
+    // Issue 12: each bill starts on the day the previous one ended (11/12-12/11, then 12/11-1/13...).
+    // This used to end in "internal error: a result came out as NaN" under the heat pump.
+    await page.tap('#tab-house');
+    await page.tap('label[for="f-demand-method-bills"]');
+    await page.waitForSelector('#f-demand-bill-dates-meter-reads');
+    await page.tap('label[for="f-demand-bill-dates-meter-reads"]');
+    await page.selectOption('#f-demand-bills-option', 'gas-furnace');
+    // Remove the bills earlier tests left, so the twelve typed here are the quote's bills.
+    while (await page.$('[data-action="remove-bill"]')) await page.tap('[data-action="remove-bill"]');
+    const reads = ['2024-11-12', '2024-12-11', '2025-01-13', '2025-02-11', '2025-03-12', '2025-04-10', '2025-05-12',
+      '2025-06-10', '2025-07-11', '2025-08-11', '2025-09-10', '2025-10-10', '2025-11-10'];
+    const therms = [95, 160, 180, 150, 110, 60, 30, 22, 21, 25, 50, 90];
+    for (let i = 0; i < 12; i += 1) {
+      await page.tap('[data-action="add-bill"]');
+      if (i === 0) await page.fill('#f-demand-bills-0-start', reads[0]);
+      else assert.equal(await page.inputValue(`#f-demand-bills-${i}-start`), reads[i], `bill ${i + 1} starts where bill ${i} ended`);
+      await page.fill(`#f-demand-bills-${i}-end`, reads[i + 1]);
+      await typeInto(`#f-demand-bills-${i}-quantity`, String(therms[i]));
+      await page.selectOption(`#f-demand-bills-${i}-unit`, 'therm');
+    }
+    await page.tap('#tab-verdict');
+    await answered();
+    assert.equal(await page.$eval('#verdict-body', (node) => node.dataset.state), 'done', 'a verdict, not a list of problems');
+    const text = await page.$eval('#verdict-body', (node) => node.textContent);
+    assert.doesNotMatch(text, /internal error|NaN/);
+    assert.ok(await page.$('#verdict-body tr[data-option="heat-pump"]'), 'the heat pump is in the ranking');
+    const doc = await exported();
+    assert.equal(doc.demand.bills.length, 12);
+    assert.equal(doc.demand.bills[1].start, '2024-12-11');
+  });
+
   test('a weather file: what was read, its climate and its days put into the quote, kept through export', { timeout: TIMEOUT }, async () => {
     // the file does not say its unit: the core's message beside the control, then the unit chosen reads it again
     const first = await pickAndWait('#weather-file', '#weather-msg', csvFile('invented-ridge.csv', inventedDailyCsv()));
