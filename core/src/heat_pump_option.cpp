@@ -166,12 +166,12 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
     // Sizing against the load line the bins use: capacity at the design temperature, and where capacity meets load.
     {
         bool unused = false;
-        r.design_load_kw = design_load_kw;
+        r.design_load_kw = house_design_load_kw(input).value_or(design_load_kw);
         r.capacity_at_design_kw = interpolate(points, design_c, unused).capacity_kw;
         r.capacity_balance_c = capacity_balance_c(points, ua_kw, balance_c);
-        if (r.capacity_at_design_kw < design_load_kw)
+        if (r.capacity_at_design_kw < r.design_load_kw)
             r.warnings.push_back("at the design temperature " + temp_text(design_c) + " the heat pump gives " +
-                                 format_fixed(r.capacity_at_design_kw, 1) + " kW of the " + format_fixed(design_load_kw, 1) +
+                                 format_fixed(r.capacity_at_design_kw, 1) + " kW of the " + format_fixed(r.design_load_kw, 1) +
                                  " kW the house needs; the backup must carry the rest (resistance strips need their own "
                                  "circuit and may need a larger electrical service: a licensed electrician to local code)");
     }

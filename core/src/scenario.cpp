@@ -770,19 +770,6 @@ std::optional<std::pair<double, std::string>> site_electricity_price(const scena
     return std::nullopt;
 }
 
-/// [kW] The house's heating load at the climate's design temperature on the load line the bins use
-/// (space heat spread over the degree-hours below the balance point), if there is a climate.
-std::optional<double> house_design_load_kw(const scenario& input) {
-    if (!input.climate) return std::nullopt;
-    const auto& climate = *input.climate;
-    const double balance_c = input.balance_point_c.value_or(climate.fahrenheit ? convert(65, "degF", "degC") : 18.0);
-    double degree_hours = 0;
-    for (const auto& bin : climate.bins)
-        if (bin.t_c < balance_c) degree_hours += bin.hours * (balance_c - bin.t_c);
-    if (degree_hours <= 0) return std::nullopt;
-    return input.space_heat_kwh / degree_hours * std::max(0.0, balance_c - climate.given_design_c.value_or(climate.design_99_c));
-}
-
 /// Adds what an option costs beside its heating energy: a fuel-burning system's own electricity
 /// (blower, circulator, burner motor, auger) at the site's electricity price, the fixed charges of
 /// services the house keeps whatever heats it, and the sizing check of a fuel-burning system's capacity.
@@ -868,6 +855,22 @@ void add_site_costs(const scenario& input, const scenario_option& option, option
 option_result evaluate_option_energy(const scenario& input, const scenario_option& option);
 
 }  // namespace
+
+std::optional<double> house_design_load_kw(const scenario& input) {
+    if (!input.climate) return std::nullopt;
+    const auto& climate = *input.climate;
+    const double design_c = climate.given_design_c.value_or(climate.design_99_c);
+    if (input.design_heat_loss_kw) return *input.design_heat_loss_kw;
+    if (input.ua_w_per_k && input.indoor_c) return *input.ua_w_per_k * std::max(0.0, *input.indoor_c - design_c) / 1000;
+    if (input.fit && input.fit_efficiency > 0)
+        return input.fit->slope_kwh_per_k_day * input.fit_efficiency * std::max(0.0, input.fit->tau_c - design_c) / 24;
+    const double balance_c = input.balance_point_c.value_or(climate.fahrenheit ? convert(65, "degF", "degC") : 18.0);
+    double degree_hours = 0;
+    for (const auto& bin : climate.bins)
+        if (bin.t_c < balance_c) degree_hours += bin.hours * (balance_c - bin.t_c);
+    if (degree_hours <= 0) return std::nullopt;
+    return input.space_heat_kwh / degree_hours * std::max(0.0, balance_c - design_c);
+}
 
 option_result evaluate_option(const scenario& input, const scenario_option& option) {
     auto r = evaluate_option_energy(input, option);

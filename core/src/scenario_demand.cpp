@@ -338,6 +338,9 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             throw input_error("/demand/ua", "give ua {value, unit} or design_heat_loss with indoor and design_outdoor");
         }
         out.ua_w_per_k = ua;
+        out.indoor_c = indoor_c;
+        if (demand.contains("design_heat_loss") && !demand.contains("ua"))
+            out.design_heat_loss_kw = quantity_in(demand.at("design_heat_loss"), "/demand/design_heat_loss", dimension::power, "kW");
         if (out.balance_point_c) {
             out.demand_trace.push_back("balance point " + temp_text(*out.balance_point_c) + " as given");
         } else if (demand.contains("internal_gains")) {
@@ -537,6 +540,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             total_kwh += b.fuel_kwh;
         }
         const double eta = efficiency.hhv_basis;
+        out.fit_efficiency = eta;
         out.demand_trace.push_back("current equipment: " + equipment.fuel.name + ", " + efficiency.trace.front());
         if (bills.size() < 3) {
             if (total_days < 300)

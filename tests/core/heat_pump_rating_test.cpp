@@ -164,4 +164,30 @@ TEST(heat_pump_rating, sizing_outputs_and_a_warning_when_the_heat_pump_falls_sho
     EXPECT_NE(warnings.find("taken to stop below -13.0 degF (common practice)"), std::string::npos) << warnings;
 }
 
+TEST(heat_pump_rating, the_design_load_comes_from_what_the_demand_was_given) {
+    // Heat-loss method with a design heat loss of 12 kW: that is the design load (the contractor's own
+    // figure); with a UA of 300 W/K and indoor 21 degC it is UA x (21 - design) = 300 x 36 = 10.8 kW at -15 degC.
+    json scenario = {{"schema", "fuelwright.scenario/1"},
+                     {"settings", {{"units", "metric"}, {"currency", "EUR"}}},
+                     {"climate", {{"unit", "degC"},
+                                  {"monthly_mean", {-5.0, -3.5, 1.5, 8.0, 14.0, 19.0, 22.0, 21.0, 16.5, 10.0, 4.0, -2.0}},
+                                  {"design_temperature", {{"value", -15}, {"unit", "degC"}}}}},
+                     {"demand", {{"method", "heat-loss"},
+                                 {"design_heat_loss", {{"value", 12}, {"unit", "kW"}}},
+                                 {"indoor", {{"value", 21}, {"unit", "degC"}}},
+                                 {"balance_point", {{"value", 16}, {"unit", "degC"}}}}},
+                     {"options", json::array({{{"id", "hp"}, {"fuel", "electricity"}, {"price", {{"amount", 0.3}, {"per", "kWh"}}},
+                                               {"system", {{"kind", "air-source-heat-pump"},
+                                                           {"efficiency", {{"value", 3.8}, {"rating", "SCOP"}}},
+                                                           {"capacity", {{"value", 8}, {"unit", "kW"}}}}}}})}};
+    auto result = json::parse(fw::evaluate_json(scenario.dump()));
+    ASSERT_TRUE(result.at("errors").empty()) << result.dump();
+    EXPECT_EQ(result.at("options").at(0).at("design_load"), (json{{"value", 12.0}, {"unit", "kW"}}));
+    scenario["demand"].erase("design_heat_loss");
+    scenario["demand"]["ua"] = {{"value", 300}, {"unit", "W/K"}};
+    result = json::parse(fw::evaluate_json(scenario.dump()));
+    ASSERT_TRUE(result.at("errors").empty()) << result.dump();
+    EXPECT_NEAR(result.at("options").at(0).at("design_load").at("value").get<double>(), 10.8, 1e-9);
+}
+
 }  // namespace

@@ -139,6 +139,9 @@ struct scenario {
     std::optional<double> balance_point_c;  ///< for the heat-pump bins
     bool balance_point_defaulted = false;
     std::optional<double> ua_w_per_k;
+    std::optional<double> design_heat_loss_kw;  ///< heat-loss method: the design heat loss as given
+    std::optional<double> indoor_c;             ///< heat-loss method: the indoor temperature as given
+    double fit_efficiency = 0;                  ///< bills method: the billed equipment's seasonal efficiency (HHV)
     std::optional<prism_fit> fit;
     std::string fit_unit;                   ///< energy unit of the fit's per-day figures
     std::optional<double> demand_uncertainty_kwh;  ///< standard error of the useful heat
@@ -208,6 +211,12 @@ scenario read_scenario(const nlohmann::json& document, std::vector<issue>& error
 
 /// [currency/year] Cost of `quantity` price units a year at the option's price or block rates.
 double priced_cost(const scenario_option& option, double quantity);
+
+/// [kW] The house's heating load at the climate's design temperature, from what the demand was given:
+/// the design heat loss as given; UA x (indoor - design); the bills fit's slope x efficiency x (tau - design)
+/// / 24 h; or else the load line the bins use (space heat over the degree-hours below the balance point).
+/// nullopt without a climate.
+std::optional<double> house_design_load_kw(const scenario& input);
 
 /// Evaluates one option of a scenario; throws input_error for an impossible combination.
 option_result evaluate_option(const scenario& input, const scenario_option& option);
