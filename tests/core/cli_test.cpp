@@ -104,3 +104,40 @@ TEST(cli, bad_input_exits_2_with_errors_on_stdout_and_stderr) {
 }
 
 }  // namespace
+
+namespace {
+
+TEST(cli, a_batch_of_scenarios_one_per_line_answers_every_line_in_order) {
+    // Issue 15: a supplier re-prices stored quotes; a bad line gets its errors and the batch goes on.
+    const char* data = std::getenv("FUELWRIGHT_DATA_DIR");
+    ASSERT_NE(data, nullptr);
+    std::ifstream file(std::string(data) + "/examples/maple-hollow-gas-vs-heat-pump.json");
+    const auto scenario = nlohmann::json::parse(file);
+    const std::string path = testing::TempDir() + "fuelwright_batch.ndjson";
+    {
+        std::ofstream out(path);
+        out << scenario.dump() << "\n" << "{\"schema\": \"fuelwright.scenario/1\"}\n\n" << scenario.dump() << "\r\n";
+    }
+    for (const char* jobs : {"1", "3"}) {
+        const auto run = run_cli(std::string("evaluate --ndjson --jobs ") + jobs + " '" + path + "'");
+        EXPECT_EQ(run.exit_code, 2) << run.err;
+        EXPECT_EQ(run.err, "fuelwright: 1 of 3 scenarios have errors\n");
+        std::istringstream lines(run.out);
+        std::vector<nlohmann::json> answers;
+        for (std::string line; std::getline(lines, line);) answers.push_back(nlohmann::json::parse(line));
+        ASSERT_EQ(answers.size(), 3u);
+        EXPECT_EQ(answers[0].at("line"), 1);
+        EXPECT_EQ(answers[1].at("line"), 2);
+        EXPECT_EQ(answers[2].at("line"), 4);  // the blank line 3 is skipped
+        EXPECT_EQ(answers[1].at("errors").at(0).at("path"), "/options");
+        // Each answer is what `evaluate FILE` gives for that scenario, with its line number beside it.
+        auto single = nlohmann::json::parse(run_cli("evaluate " + std::string(data) + "/examples/maple-hollow-gas-vs-heat-pump.json").out);
+        single["line"] = 4;
+        EXPECT_EQ(answers[2], single);
+    }
+    const auto bad = run_cli("evaluate --ndjson --jobs 0 -");
+    EXPECT_EQ(bad.exit_code, 2);
+    EXPECT_EQ(bad.err, "fuelwright: --jobs: --jobs must be a whole number from 1 to 256, got \"0\"\n");
+}
+
+}  // namespace

@@ -2,6 +2,7 @@
 // same entry point the WASM module calls, prints the JSON result on stdout, and exits 2 with one
 // line per error on stderr when the result carries errors.
 #include <algorithm>
+#include <atomic>
 #include <cstdio>
 #include <ctime>
 #include <fstream>
@@ -11,6 +12,7 @@
 #include <map>
 #include <nlohmann/json.hpp>
 #include <string>
+#include <thread>
 #include <vector>
 
 #include "fw/api.hpp"
@@ -27,6 +29,8 @@ commands:
   heating-value --ultimate "C:50.2,H:6.1,O:43.2,N:0.1,S:0,ash:0.4" [--moisture PCT] [--basis dry|as-received|daf]
                 [--hhv-dry MJ_PER_KG]
   evaluate FILE                evaluate a scenario (FILE or - for standard input)
+  evaluate --ndjson [--jobs N] FILE
+                               one scenario per line in, one answer per line out (with its "line"), N at once
   break-even FILE --a ID --b ID --vary price|efficiency|demand [--of ID] [--basis annual|life-cycle]
                                the price (or efficiency) at which two options cost the same
   sweep FILE [--vary price|efficiency|demand] [--of ID] [--from X] [--to X] [--points N] [--basis B]
@@ -137,6 +141,63 @@ int file_command(const std::vector<std::string>& args, const char* name, std::st
     return finish(entry(*text));
 }
 
+/// `evaluate --ndjson [--jobs N] FILE|-`: one scenario per line in, one answer per line out, in input
+/// order, each with the input's line number as "line"; a bad line gets its errors and the batch goes on.
+/// Blank lines are skipped. Exit 0 when every answer is clean, 2 when any has errors (counted on stderr).
+int evaluate_batch(const std::vector<std::string>& args) {
+    std::string name;
+    unsigned jobs = 1;
+    for (std::size_t i = 0; i < args.size(); ++i) {
+        if (args[i] == "--ndjson") continue;
+        if (args[i] == "--jobs" && i + 1 < args.size()) {
+            const std::string& value = args[++i];
+            char* end = nullptr;
+            const long n = std::strtol(value.c_str(), &end, 10);
+            if (end == value.c_str() || *end != '\0' || n < 1 || n > 256)
+                return usage_error("--jobs", "--jobs must be a whole number from 1 to 256, got \"" + value + "\"");
+            jobs = static_cast<unsigned>(n);
+        } else if (name.empty() && (args[i] == "-" || args[i].rfind("--", 0) != 0)) {
+            name = args[i];
+        } else {
+            return usage_error(args[i], "unknown option for evaluate --ndjson; accepted: --jobs N and one FILE (or -)");
+        }
+    }
+    if (name.empty()) return usage_error("", "evaluate --ndjson takes one FILE (or - for standard input)");
+    const auto text = read_input(name);
+    if (!text) return usage_error(name, "cannot read file \"" + name + "\"");
+    std::vector<std::pair<std::size_t, std::string>> lines;  // (line number, text)
+    std::size_t start = 0, number = 0;
+    while (start <= text->size()) {
+        const auto end = std::min(text->find('\n', start), text->size());
+        ++number;
+        std::string line = text->substr(start, end - start);
+        if (!line.empty() && line.back() == '\r') line.pop_back();
+        if (line.find_first_not_of(" \t") != std::string::npos) lines.push_back({number, std::move(line)});
+        start = end + 1;
+    }
+    std::vector<std::string> answers(lines.size());
+    std::atomic<std::size_t> next{0};
+    const auto work = [&] {
+        for (std::size_t i = next++; i < lines.size(); i = next++) {
+            auto answer = json::parse(fw::evaluate_json(lines[i].second));
+            answer["line"] = lines[i].first;
+            answers[i] = answer.dump(-1, ' ', false, json::error_handler_t::replace);
+        }
+    };
+    std::vector<std::thread> workers;
+    for (unsigned k = 1; k < std::min<std::size_t>(jobs, lines.size()); ++k) workers.emplace_back(work);
+    work();
+    for (auto& worker : workers) worker.join();
+    std::size_t with_errors = 0;
+    for (const auto& answer : answers) {
+        std::cout << answer << "\n";
+        with_errors += answer.find("\"errors\":[]") == std::string::npos;
+    }
+    if (with_errors > 0)
+        std::cerr << "fuelwright: " << with_errors << " of " << answers.size() << " scenarios have errors\n";
+    return with_errors > 0 ? 2 : 0;
+}
+
 /// Commands that read a scenario FILE and take --flags into the request beside it.
 int analysis_command(const std::vector<std::string>& args, const char* name,
                      const std::vector<std::pair<std::string, bool>>& flags,  // flag, numeric
@@ -233,6 +294,7 @@ int main(int argc, char** argv) {
     if (command == "heating-value") return heating_value_command(rest);
     if (command == "convert") return convert_command(rest);
     if (command == "units") return finish(fw::units_json());
+    if (command == "evaluate" && std::find(rest.begin(), rest.end(), "--ndjson") != rest.end()) return evaluate_batch(rest);
     if (command == "evaluate") return file_command(rest, "evaluate", fw::evaluate_json);
     if (command == "climate") return file_command(rest, "climate", fw::climate_json);
     if (command == "check-prices") return check_prices_command(rest);
