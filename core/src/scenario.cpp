@@ -288,6 +288,32 @@ void read_heat_pump_fields(const json& system, const std::string& path, scenario
 
 }  // namespace
 
+given_heating_value read_given_heating_value(const json& hv, const std::string& path, const fuel_record& fuel,
+                                             const std::string& target_unit, const sale_options& sale, std::vector<issue>& warnings) {
+    require_object(hv, path);
+    const double value = required_number(hv, "value", path);
+    if (value <= 0) throw input_error(path + "/value", "must be > 0, got " + format_number(value));
+    const auto unit_text = required_string(hv, "unit", path);
+    const auto [energy_unit, sale_unit] = energy_per_unit(unit_text, path + "/unit");
+    const auto basis = optional_string(hv, "basis", path).value_or("HHV");
+    warn_unknown_keys(hv, {"value", "unit", "basis"}, path, warnings);
+    if (basis != "HHV" && basis != "LHV") throw input_error(path + "/basis", "unknown basis \"" + basis + "\"; accepted: HHV, LHV");
+    const auto given_unit = heating_value_per_sale_unit(fuel, sale_unit, sale, path + "/unit");
+    const auto target = heating_value_per_sale_unit(fuel, target_unit, sale, path);
+    double j_per_given = convert(value, energy_unit, "J", path + "/value");
+    if (basis == "LHV") j_per_given /= fuel.lhv_over_hhv;
+    // A plausible heating value: within a factor of two of the catalog's for the same unit.
+    const double ratio = j_per_given / given_unit.hhv_j;
+    if (!(ratio > 0.5 && ratio < 2.0))
+        throw input_error(path + "/value", format_number(value) + " " + unit_text + " is " + format_fixed(ratio, 2) +
+                                               " times the catalog's heating value of " + fuel.id + "; check the value and its unit");
+    given_heating_value out;
+    out.hhv_j_per_unit = j_per_given * target.hhv_j / given_unit.hhv_j;
+    out.text = format_number(value) + " " + unit_text + " (" + basis + ", given)";
+    if (basis == "LHV") out.text += " / LHV/HHV " + format_number(fuel.lhv_over_hhv) + " = HHV";
+    return out;
+}
+
 scenario_option read_option(const json& item, const std::string& path, std::vector<issue>& warnings) {
     require_object(item, path);
     scenario_option option;
@@ -420,24 +446,9 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
         warnings.push_back({system_path + "/catalog", record->id + " is not usually fired with " + option.fuel.id});
 
     if (const auto hv = item.find("heating_value"); hv != item.end()) {
-        const std::string hv_path = path + "/heating_value";
-        require_object(*hv, hv_path);
-        const double value = required_number(*hv, "value", hv_path);
-        if (value <= 0) throw input_error(hv_path + "/value", "must be > 0, got " + format_number(value));
-        const auto unit_text = required_string(*hv, "unit", hv_path);
-        const auto [energy_unit, sale_unit] = energy_per_unit(unit_text, hv_path + "/unit");
-        const auto basis = optional_string(*hv, "basis", hv_path).value_or("HHV");
-        warn_unknown_keys(*hv, {"value", "unit", "basis"}, hv_path, warnings);
-        if (basis != "HHV" && basis != "LHV")
-            throw input_error(hv_path + "/basis", "unknown basis \"" + basis + "\"; accepted: HHV, LHV");
-        const auto given_unit = heating_value_per_sale_unit(option.fuel, sale_unit, option.sale, hv_path + "/unit");
-        const auto priced_unit = heating_value_per_sale_unit(option.fuel, option.price_unit, option.sale, hv_path);
-        double j_per_given = convert(value, energy_unit, "J");
-        if (basis == "LHV") j_per_given /= option.fuel.lhv_over_hhv;
-        option.heating_value_override_j = j_per_given * priced_unit.hhv_j / given_unit.hhv_j;
-        option.heating_value_override_text = format_number(value) + " " + unit_text + " (" + basis + ", given)";
-        if (basis == "LHV")
-            option.heating_value_override_text += " / LHV/HHV " + format_number(option.fuel.lhv_over_hhv) + " = HHV";
+        const auto given = read_given_heating_value(*hv, path + "/heating_value", option.fuel, option.price_unit, option.sale, warnings);
+        option.heating_value_override_j = given.hhv_j_per_unit;
+        option.heating_value_override_text = given.text;
     }
     warn_unknown_keys(item, {"id", "label", "fuel", "price", "fixed_charges", "system", "heating_value", "wood_species",
                              "moisture_pct", "bag_mass", "face_cord_fraction", "existing", "installed_cost",

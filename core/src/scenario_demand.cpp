@@ -433,11 +433,27 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             if (*amount < 0) throw input_error(path + "/quantity", "must be >= 0, got " + format_number(*amount));
             const auto unit = optional_string(item, "unit", path);
             if (!unit) throw input_error(path + "/unit", "is required (the unit the bill is in)");
-            const auto hv = heating_value_per_sale_unit(equipment.fuel, *unit, equipment.sale, path + "/unit");
+            // The bill's own heating value (a utility's therm factor) where it prints one, else the equipment's
+            // given heating value scaled to the bill's unit, else the catalog's.
+            double hhv_j = heating_value_per_sale_unit(equipment.fuel, *unit, equipment.sale, path + "/unit").hhv_j;
+            if (item.contains("heating_value")) {
+                const auto given = read_given_heating_value(item.at("heating_value"), path + "/heating_value", equipment.fuel, *unit,
+                                                            equipment.sale, warnings);
+                hhv_j = given.hhv_j_per_unit;
+                out.demand_trace.push_back("bill of " + *start + " to " + *end + ": heating value " + given.text);
+            } else if (equipment.heating_value_override_j) {
+                const double catalog = heating_value_per_sale_unit(equipment.fuel, equipment.price_unit, equipment.sale, {}).hhv_j;
+                hhv_j *= *equipment.heating_value_override_j / catalog;
+                if (i == 0) out.demand_trace.push_back("bills at the heating value given for the equipment: " +
+                                                       equipment.heating_value_override_text);
+            }
+            if (*amount * hhv_j / 3.6e6 > 1e7)
+                throw input_error(path + "/quantity", format_number(*amount) + " " + *unit +
+                                                          " is more fuel than any house burns in a billing period (10,000 MWh)");
             bill_period bill;
             bill.first_day = first;
             bill.last_day = last;
-            bill.fuel_kwh = *amount * hv.hhv_j / 3.6e6;
+            bill.fuel_kwh = *amount * hhv_j / 3.6e6;
             if (item.contains("mean_temperature")) {
                 bill.mean_c = temperature_c(item.at("mean_temperature"), path + "/mean_temperature");
                 if (bill.mean_c < -60 || bill.mean_c > 45)
@@ -448,7 +464,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             }
             bills.push_back(bill);
             dates.push_back({first, last, *start, *end});
-            warn_unknown_keys(item, {"start", "end", "quantity", "unit", "mean_temperature"}, path, warnings);
+            warn_unknown_keys(item, {"start", "end", "quantity", "unit", "mean_temperature", "heating_value"}, path, warnings);
         }
         std::vector<std::size_t> order(bills.size());
         std::iota(order.begin(), order.end(), 0);

@@ -181,6 +181,31 @@ TEST(bills_weather, a_year_that_always_needs_heat_cannot_split_base_use_from_hea
     })) << warnings.dump();
 }
 
+TEST(bills_weather, a_gas_bill_in_ccf_uses_the_therm_factor_it_prints) {
+    // 100 ccf at a therm factor of 1.037 therm/ccf (as a utility prints it) = 103.7 therm = 103.7 x
+    // 29.30710701722 kWh (1 therm = 100,000 Btu_IT); without it the catalog's 1036 Btu/ft3 (EIA) gives 103.6 therm.
+    const auto reads = meter_reads(2024);
+    json bills = json::array();
+    const double ccf[] = {100, 170, 180};  // more gas in the colder periods
+    for (int i = 0; i < 3; ++i)
+        bills.push_back({{"start", reads[i]}, {"end", reads[i + 1]}, {"quantity", ccf[i]}, {"unit", "ccf"},
+                         {"heating_value", {{"value", 1.037}, {"unit", "therm/ccf"}}}});
+    auto scenario = bills_scenario({}, {}, json::object());
+    scenario["options"][0].erase("heating_value");
+    scenario["demand"]["bills"] = bills;
+    const auto result = evaluate(scenario);
+    ASSERT_TRUE(result.at("errors").empty()) << result.dump();
+    const long days = fw::parse_day_number(reads[1], "") - fw::parse_day_number(reads[0], "");
+    EXPECT_NEAR(result.at("demand").at("fit").at("points").at(0).at("use_per_day").get<double>(), 103.7 * 29.30710701722 / days, 1e-9);
+    scenario["demand"]["bills"][0].erase("heating_value");
+    const auto catalog = evaluate(scenario);
+    EXPECT_NEAR(catalog.at("demand").at("fit").at("points").at(0).at("use_per_day").get<double>(), 103.6 * 29.30710701722 / days, 1e-9);
+    // A therm factor typed in the wrong unit (1.037 MJ/ccf) is refused at its field.
+    scenario["demand"]["bills"][1]["heating_value"]["unit"] = "MJ/ccf";
+    const auto wrong = evaluate(scenario);
+    EXPECT_EQ(wrong.at("errors").at(0).at("path"), "/demand/bills/1/heating_value/value");
+}
+
 TEST(bills_weather, a_bill_the_observed_weather_does_not_cover_gets_a_message) {
     const auto reads = meter_reads(2024);
     const long first = fw::parse_day_number(reads.front(), "");

@@ -163,6 +163,16 @@ std::map<long, double> read_observed(const nlohmann::json& observed, const std::
 void read_demand(const nlohmann::json& demand, scenario& out, const nlohmann::json& options_json,
                  std::vector<issue>& warnings);
 
+/// A heating value as a bill or a utility states it ({value, unit: "Btu/ft3" | "therm/ccf" | "MJ/m3" | ...,
+/// basis}), as J (HHV) per `target_unit` of the fuel, with the text for the trace.
+struct given_heating_value {
+    double hhv_j_per_unit = 0;
+    std::string text;
+};
+given_heating_value read_given_heating_value(const nlohmann::json& hv, const std::string& path, const fuel_record& fuel,
+                                             const std::string& target_unit, const sale_options& sale,
+                                             std::vector<issue>& warnings);
+
 /// The option's data read from JSON (also used for the fuel and system of a bills demand).
 scenario_option read_option(const nlohmann::json& item, const std::string& path, std::vector<issue>& warnings);
 
