@@ -781,6 +781,10 @@ std::optional<std::pair<double, std::string>> site_electricity_price(const scena
     return std::nullopt;
 }
 
+/// [h/year] Burner hours assumed when neither an output capacity nor a climate tells them (common practice:
+/// about 2,000 equivalent full-load hours for a heating system sized to its house).
+constexpr double assumed_burner_hours = 2000;
+
 /// Adds what an option costs beside its heating energy: a fuel-burning system's own electricity
 /// (blower, circulator, burner motor, auger) at the site's electricity price, the fixed charges of
 /// services the house keeps whatever heats it, and the sizing check of a fuel-burning system's capacity.
@@ -807,8 +811,16 @@ void add_site_costs(const scenario& input, const scenario_option& option, option
                                   (option.capacity_47_kw ? "output capacity " : "the house's design load ") + power_text(*capacity) +
                                   ") = " + format_fixed(*kwh, 0) + " kWh");
             } else {
-                r.warnings.push_back("auxiliary electricity of " + format_number(aux.value) + " W left out: give the system's "
-                                     "output capacity (or a climate) to count its burner hours, or give it in kWh a year");
+                // Neither an output capacity nor a climate: burner hours taken as 2,000 equivalent full-load hours
+                // a year (common practice for a heating system sized to its house).
+                kwh = aux.value / 1000 * assumed_burner_hours;
+                r.trace.push_back("auxiliary electricity " + format_number(aux.value) + " W while the burner runs (" + aux.text +
+                                  ") x " + format_fixed(assumed_burner_hours, 0) + " burner hours (assumed: no output capacity or "
+                                  "climate given; common practice) = " + format_fixed(*kwh, 0) + " kWh");
+                if (aux.text == "as given")
+                    r.warnings.push_back("its auxiliary electricity of " + format_number(aux.value) + " W is counted for an assumed " +
+                                         format_fixed(assumed_burner_hours, 0) + " burner hours a year: give the system's output "
+                                         "capacity or a climate to count them");
             }
         }
         if (kwh) {

@@ -221,9 +221,11 @@ TEST(economics, break_even_price_gives_equal_costs) {
     const auto never = json::parse(fw::break_even_json(json{{"scenario", same}, {"a", "oil"}, {"b", "oil2"}, {"vary", "price"}, {"of", "heating-oil-2"}}.dump()));
     EXPECT_TRUE(never.at("break_even").is_null()) << never.dump();
     EXPECT_EQ(never.at("reason"), "the two costs change equally with the price of No. 2 heating oil: the lines never cross");
-    // The same fuel at two efficiencies, no fixed charges: both costs are proportional to the price
-    // and meet only at zero, so there is no break-even price, and the more efficient one stays cheaper.
+    // The same fuel at two efficiencies, no fixed charges and no electricity of their own: both costs are
+    // proportional to the price and meet only at zero, so there is no break-even price, and the more
+    // efficient one stays cheaper.
     auto proportional = switching_scenario();
+    proportional["options"][0]["system"]["auxiliary_electricity"] = {{"value", 0}, {"unit", "kWh"}};
     proportional["options"][2] = proportional["options"][0];
     proportional["options"][2]["id"] = "oil-new";
     proportional["options"][2]["label"] = "Condensing oil boiler";

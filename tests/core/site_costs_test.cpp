@@ -76,11 +76,12 @@ TEST(site_costs, a_boiler_circulator_in_watts_runs_with_the_burner) {
     ASSERT_TRUE(result.at("errors").empty()) << result.dump();
     EXPECT_NEAR(option(result, "furnace").at("auxiliary_kwh").get<double>(), 80, 1e-9);
     EXPECT_NEAR(option(result, "furnace").at("auxiliary_cost").get<double>(), 12.8, 1e-9);
-    // Without a capacity or a climate the burner hours are unknown: left out, and the warning says so.
+    // Without a capacity or a climate the burner hours are not known: 2,000 assumed (common practice),
+    // 80 W x 2000 h = 160 kWh, and the warning says so.
     json plain = furnace(84, {{"kind", "boiler"}, {"auxiliary_electricity", {{"value", 80}, {"unit", "W"}}}});
     const auto unknown = evaluate(scenario(json::array({plain, heat_pump()})));
-    EXPECT_EQ(option(unknown, "furnace").at("auxiliary_kwh").get<double>(), 0.0);
-    EXPECT_NE(unknown.at("warnings").dump().find("auxiliary electricity of 80 W left out"), std::string::npos);
+    EXPECT_NEAR(option(unknown, "furnace").at("auxiliary_kwh").get<double>(), 160, 1e-9);
+    EXPECT_NE(unknown.at("warnings").dump().find("is counted for an assumed 2000 burner hours a year"), std::string::npos);
     // A heat pump's fans are in its rating: the field is refused there.
     json hp = heat_pump();
     hp["system"]["auxiliary_electricity"] = {{"value", 100}, {"unit", "kWh"}};
