@@ -119,7 +119,7 @@ describe('Equipment as rated and sold (Chromium, 768x1024 with touch)', () => {
     await verdictSettled(page);
     const { doc } = await exported();
     assert.deepEqual(doc.options.find((o) => o.id === 'heat-pump').system.cutoff, { value: -10, unit: 'degF' });
-    assert.match((await equipmentOf('heat-pump')).sizing, /Below -10 °F the compressor stops and the backup \(electric resistance strips\) heats alone\.$/);
+    assert.match((await equipmentOf('heat-pump')).sizing, /Below -10 °F the compressor stops and the backup \(electric resistance strips\) heats alone\.( Resistance strips need their own circuit and may need a larger electrical service: a licensed electrician decides, to local code\.)?$/);
   });
 
   test('a furnace shows its default own electricity as a placeholder, and its cost in the verdict', { timeout: TIMEOUT }, async () => {
@@ -154,6 +154,7 @@ describe('Equipment as rated and sold (Chromium, 768x1024 with touch)', () => {
     const before = await annualCost('heat-pump');
     const furnaceBefore = await annualCost('gas-furnace');
     assert.equal((await equipmentOf('heat-pump')).lines.kept_services_cost, undefined);
+    const stamp = await page.evaluate(() => document.body.dataset.saved);
     await page.tap('#tab-fuels');
     const gasCard = page.locator('.fuel-card', { has: page.locator('h3', { hasText: 'Natural gas' }) });
     const tick = gasCard.locator('input[data-path$="/keep_service"]');
@@ -169,11 +170,10 @@ describe('Equipment as rated and sold (Chromium, 768x1024 with touch)', () => {
     assert.equal(await annualCost('gas-furnace'), furnaceBefore, 'the gas furnace pays it already');
     assert.equal((await equipmentOf('heat-pump')).lines.kept_services_cost, '$180 a year');
     assert.equal((await equipmentOf('oil-boiler')).lines.kept_services_cost, '$180 a year');
+    await page.waitForFunction((s) => document.body.dataset.saved && document.body.dataset.saved !== s, stamp);
   });
 
   test('every new field is kept through save, reload, export and import', { timeout: TIMEOUT }, async () => {
-    const stamp = await page.evaluate(() => document.body.dataset.saved);
-    await page.waitForFunction((s) => document.body.dataset.saved && document.body.dataset.saved !== s, stamp).catch(() => {});
     await page.reload();
     await verdictSettled(page);
     const check = async (where) => {
@@ -202,12 +202,18 @@ describe('Equipment as rated and sold (Chromium, 768x1024 with touch)', () => {
       await page.setViewportSize({ width, height });
       await page.tap('#tab-systems');
       await page.screenshot({ path: join(ARTIFACTS, `chromium-systems-equipment-${width}.png`), fullPage: true });
+      // the cards themselves, readable at their size
+      await page.locator('.system-card[data-system-id="heat-pump"]').screenshot({ path: join(ARTIFACTS, `chromium-systems-heat-pump-${width}.png`) });
+      await page.locator('.system-card[data-system-id="gas-furnace"]').screenshot({ path: join(ARTIFACTS, `chromium-systems-furnace-${width}.png`) });
       const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
       assert.ok(overflow <= 0, `the Systems tab scrolls sideways by ${overflow} px at ${width} px`);
+      await page.tap('#tab-fuels');
+      await page.locator('.fuel-card', { has: page.locator('input[data-path$="/keep_service"]') }).screenshot({ path: join(ARTIFACTS, `chromium-fuels-gas-${width}.png`) });
       await page.tap('#tab-verdict');
       await verdictSettled(page);
       await page.locator('#equipment').scrollIntoViewIfNeeded();
       await page.screenshot({ path: join(ARTIFACTS, `chromium-verdict-equipment-${width}.png`), fullPage: true });
+      await page.locator('#equipment').screenshot({ path: join(ARTIFACTS, `chromium-verdict-equipment-section-${width}.png`) });
       assert.doesNotMatch(await page.textContent('#equipment'), /\bnull\b|undefined|NaN|_kwh|_cost|degF/);
     }
     assert.deepEqual(consoleErrors, []);
