@@ -161,7 +161,7 @@ export function siteCostLines(option, { format, keptName = 'Gas service kept for
 
 /** What the kept services are called on the verdict: the gas service, or services of several fuels. */
 export function keptServicesName(ws, catalog) {
-  const fuels = [...new Set(ws.fuels.filter((f) => f.keep_service).map(catalogFuel))];
+  const fuels = [...new Set((ws.fuels ?? []).filter((f) => f.keep_service).map(catalogFuel))];
   if (fuels.length === 1 && fuels[0] === 'natural-gas') return 'Gas service kept for other appliances';
   if (fuels.length === 1) return `${catalog?.fuels?.find((f) => f.id === fuels[0])?.name ?? 'Fuel'} service kept for other appliances`;
   return 'Services kept for other appliances';

@@ -213,7 +213,7 @@ export function backupName(option, result) {
 export function equipmentNotes(result, ws, ctx, by = 'annual') {
   const keptName = keptServicesName(ws, ctx.catalog);
   return rankedOptions(result, by).map((option) => {
-    const system = ws.systems.find((s) => s.id === option.id)?.system ?? {};
+    const system = (ws.systems ?? []).find((s) => s.id === option.id)?.system ?? {};
     const sizing = sizingSentence(option, { ws, result, format: ctx.format, system, backupName: backupName(option, result) });
     const short = sizing && option.capacity_at_design?.value < option.design_load?.value;
     return { option, lines: siteCostLines(option, { format: ctx.format, keptName }), sizing, resistance: short && !option.backup_option };
