@@ -19,7 +19,7 @@ import {
   notSavedMessage, openQuotes, recordProblem, savePreferences, setCurrentQuoteId, unsavedNewerThan, verdictSummary, workspaceFromFile,
   workspaceOf,
 } from './storage.js';
-import { Store } from './store.js';
+import { Store, setAt } from './store.js';
 import { DISPLAY, convert, convertQuantity, unitLabel } from './units.js';
 import { renderFuels, saleUnitsOf, fuelName } from './views/fuels.js';
 import { renderHouse } from './views/house.js';
@@ -624,9 +624,33 @@ function fitSystemToCatalog(ws, sys) {
   if (sys.label_auto) sys.label = autoLabel(ws, sys);
 }
 
+/**
+ * A value typed beside a unit menu takes the unit the menu shows when the workspace has none yet (the
+ * menu was not touched), so what was typed is sent in the unit it was typed in.
+ */
+function takeShownUnit(path) {
+  if (!path.endsWith('/value')) return;
+  const unitPath = `${path.slice(0, -'/value'.length)}/unit`;
+  if (store.get(unitPath) !== undefined) return;
+  const menu = document.querySelector(`select[data-path="${CSS.escape(unitPath)}"]`);
+  if (menu?.value) setAt(store.state, unitPath, menu.value);  // written with the value, in one change
+}
+
+/** Whether a fuel entry has a fixed charge with an amount (what a kept service adds). */
+const hasCharge = (entry) => (entry?.fixed_charges ?? []).some((c) => typeof (c.amount_per_month ?? c.amount_per_year) === 'number');
+
 function onField(path, value, { structural }) {
   const ws = store.state;
   let m;
+  takeShownUnit(path);
+  if ((m = /^\/fuels\/(\d+)\/fixed_charges\/\d+\/amount_per_(month|year)$/.exec(path)) && ws.fuels[Number(m[1])]?.keep_service) {
+    // the kept service's note says whether there is a charge to add: repainted when that changes
+    const entry = ws.fuels[Number(m[1])];
+    const had = hasCharge(entry);
+    setAt(ws, path, value);
+    store.set(path, value, { structural: had !== hasCharge(entry) });
+    return;
+  }
   if ((m = /^\/fuels\/(\d+)\/fuel$/.exec(path))) {
     const entry = ws.fuels[Number(m[1])];
     store.mutate(() => {
@@ -754,6 +778,7 @@ function switchUnits(system) {
       for (const point of s.ratings ?? []) {
         point.outdoor = convertUnitOnly(convertQuantity(point.outdoor, system), system);
         point.capacity = convertUnitOnly(convertQuantity(point.capacity, system), system);
+        if (point.min_capacity) point.min_capacity = convertUnitOnly(convertQuantity(point.min_capacity, system), system);
       }
       for (const key of ['cutoff', 'changeover', 'capacity']) if (s[key]) s[key] = convertUnitOnly(convertQuantity(s[key], system), system);
     }

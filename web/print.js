@@ -7,7 +7,9 @@ import { costBars } from './charts.js';
 import { asSentence } from './format.js';
 import { fuelName } from './views/fuels.js';
 import { KIND_NAMES } from './views/systems.js';
-import { displayValues, rankedOptions } from './views/verdict.js';
+import { equipmentNotes, displayValues, rankedOptions } from './views/verdict.js';
+import { FUEL_BURNING_KINDS, STAGES, auxiliaryDefault, equipmentElectricityPrice, powerText } from './equipment.js';
+import { HEAT_PUMP_KINDS } from './scenario.js';
 import { ENERGY_KWH, unitLabel } from './units.js';
 
 const DISCLAIMER = 'This sheet compares running costs and emissions from the figures entered on the day. It is an estimate, '
@@ -29,11 +31,31 @@ function assumptions(ws, result, ctx) {
   for (const entry of ws.fuels) {
     const charges = (entry.fixed_charges ?? []).map((c) => (c.amount_per_month !== undefined
       ? `${format.price(c.amount_per_month)} a month` : `${format.price(c.amount_per_year)} a year`)).join(', ');
-    items.push([fuelName(entry, ctx.catalog), `${format.price(entry.price?.amount)} per ${unitLabel(entry.price?.per ?? '')}${charges ? `; fixed ${charges}` : ''}`]);
+    const used = ws.systems.some((sys) => sys.fuel_key === entry.key);
+    const price = used ? `${format.price(entry.price?.amount)} per ${unitLabel(entry.price?.per ?? '')}` : 'no system here burns it';
+    const kept = entry.keep_service ? '; the service is kept for other appliances' : '';
+    items.push([fuelName(entry, ctx.catalog), `${price}${charges ? `; fixed ${charges}` : ''}${kept}`]);
   }
   for (const sys of ws.systems) {
-    const eff = sys.system?.efficiency;
-    items.push([sys.label || sys.id, `${KIND_NAMES[sys.system?.kind] ?? sys.system?.kind}${eff?.value !== undefined ? `, ${format.number(eff.value)} ${eff.rating}` : ''}`]);
+    const s = sys.system ?? {};
+    const eff = s.efficiency;
+    const parts = [`${KIND_NAMES[s.kind] ?? s.kind}${eff?.value !== undefined ? `, ${format.number(eff.value)} ${eff.rating}` : ''}`];
+    if (HEAT_PUMP_KINDS.includes(s.kind) && s.stages) parts.push(`${STAGES.find(([id]) => id === s.stages)?.[1]?.toLowerCase() ?? s.stages} compressor`);
+    if (FUEL_BURNING_KINDS.includes(s.kind)) {
+      if (typeof s.capacity?.value === 'number') parts.push(`output ${powerText(s.capacity, format)}`);
+      const entry = ws.fuels.find((f) => f.key === sys.fuel_key);
+      const aux = typeof s.auxiliary_electricity?.value === 'number' ? s.auxiliary_electricity
+        : auxiliaryDefault(s, typeof entry?.fuel === 'string' ? entry.fuel : '', ctx.catalog);
+      if (aux) {
+        parts.push(`its own electricity ${format.number(aux.value)} ${aux.unit === 'W' ? 'W while the burner runs' : 'kWh a year'}${
+          aux === s.auxiliary_electricity ? '' : ' (typical)'}`);
+      }
+    }
+    items.push([sys.label || sys.id, parts.join(', ')]);
+  }
+  const electricity = equipmentElectricityPrice(ws);
+  if (electricity.from === 'typed' && ws.systems.some((sys) => FUEL_BURNING_KINDS.includes(sys.system?.kind))) {
+    items.push(['Electricity for the equipment', `${format.price(electricity.amount)} per kWh`]);
   }
   items.push(['Emissions', `CO2e with IPCC ${ws.settings.gwp ?? 'AR5'} warming potentials; electricity ${
     ws.settings.electricity_co2e_kg_per_kwh ?? result?.settings?.electricity_co2e_kg_per_kwh ?? '—'} kg CO2e/kWh`]);
@@ -94,6 +116,14 @@ export function renderQuoteSheet(sheet, ctx, result, extra = {}) {
     parts.push(h('section', {}, h('h2', { text: 'Results' }), resultsTable(ws, result, ctx)));
     const rows = rankedOptions(result, 'annual').map((o) => ({ id: o.id, label: o.label ?? o.id, energy: o.energy_cost, fixed: o.fixed_cost }));
     parts.push(h('section', { class: 'sheet-chart' }, h('h2', { text: 'Cost per year' }), costBars(rows, { money: format.money, title: 'Annual cost: energy and fixed charges' })));
+    const notes = equipmentNotes(result, ws, ctx);
+    if (notes.length) {
+      parts.push(h('section', { id: 'sheet-equipment' }, h('h2', { text: 'Equipment and charges beside the fuel' }),
+        h('ul', {}, notes.map(({ option, lines, sizing, resistance }) => h('li', {}, h('strong', { text: `${option.label ?? option.id}: ` }),
+          [...lines.map((line) => `${line.label}: ${line.text}.`), sizing,
+            resistance ? 'Resistance strips need their own circuit: a licensed electrician decides, to local code.' : null].filter(Boolean).join(' ')))),
+        h('p', { text: 'These amounts are already in each option\'s cost a year. Sizing needs a load calculation by a professional.' })));
+    }
     const changes = sensitivity(result, ctx, extra);
     if (changes) parts.push(changes);
   } else {

@@ -6,6 +6,7 @@
 // carrying its fuel's price. It also keeps the fields of every demand method and
 // climate form, so switching the method picker loses nothing; only the chosen
 // method's fields are sent. Every entered quantity keeps its own unit.
+import { FUEL_BURNING_KINDS, MODULATING, electricSystems } from './equipment.js';
 import { unreadableVersionMessage } from './versions.js';
 
 export const SCENARIO_FAMILY = 'fuelwright.scenario';
@@ -23,6 +24,8 @@ const ECONOMIC_FIELDS = ['existing', 'installed_cost', 'incentives', 'annual_mai
 export const HEAT_PUMP_KINDS = ['air-source-heat-pump', 'ground-source-heat-pump'];
 export const SYSTEM_KINDS = ['furnace', 'boiler', 'stove', 'electric-resistance', 'air-source-heat-pump',
   'ground-source-heat-pump'];
+/** A heat pump's compressor as `system.stages` spells it. */
+export const STAGE_IDS = ['single', 'two', 'variable'];
 export const RATINGS = ['AFUE', 'thermal', 'seasonal-gcv', 'seasonal-ncv', 'COP', 'SCOP', 'HSPF', 'HSPF2'];
 export const DEMAND_METHODS = ['direct', 'heat-loss', 'bills'];
 export const CLIMATE_MODES = ['none', 'monthly_mean', 'monthly_hdd', 'annual_hdd'];
@@ -223,6 +226,12 @@ export function climateFromScenario(c, { units = 'us', label } = {}) {
   return wc;
 }
 
+/**
+ * A workspace system's scenario `system` object. A heat pump sends its compressor (`stages`) when one is
+ * chosen, and the minimum capacity and its COP of a data-sheet point only for a two-stage or variable-speed
+ * compressor (a single-stage card keeps them, unsent, and says so); a furnace, boiler or stove sends its
+ * output `capacity` and its own electricity (`auxiliary_electricity`) when typed.
+ */
 function systemOf(sys) {
   const out = { kind: sys.kind };
   put(out, 'catalog', sys.catalog || undefined);
@@ -230,14 +239,23 @@ function systemOf(sys) {
   if (isNumber(sys.distribution_loss)) out.distribution_loss = sys.distribution_loss;
   if (isNumber(sys.age_derating)) out.age_derating = sys.age_derating;
   if (HEAT_PUMP_KINDS.includes(sys.kind)) {
-    const ratings = (sys.ratings ?? []).filter((r) => r && (isQuantity(r.outdoor) || isQuantity(r.capacity) || isNumber(r.cop)))
+    const modulating = MODULATING.includes(sys.stages);
+    const ratings = (sys.ratings ?? [])
+      .filter((r) => r && (isQuantity(r.outdoor) || isQuantity(r.capacity) || isNumber(r.cop)
+        || (modulating && (isQuantity(r.min_capacity) || isNumber(r.min_cop)))))
       .map((r) => {
         const point = {};
         put(point, 'outdoor', quantity(r.outdoor));
         put(point, 'capacity', quantity(r.capacity));
         if (isNumber(r.cop)) point.cop = r.cop;
+        if (modulating) {
+          // either one alone is sent, so the core says at the other field that it is needed too
+          put(point, 'min_capacity', quantity(r.min_capacity));
+          if (isNumber(r.min_cop)) point.min_cop = r.min_cop;
+        }
         return point;
       });
+    put(out, 'stages', STAGE_IDS.includes(sys.stages) ? sys.stages : undefined);
     if (ratings.length) out.ratings = ratings;
     put(out, 'cutoff', quantity(sys.cutoff));
     if (isNumber(sys.cd)) out.cd = sys.cd;
@@ -245,6 +263,11 @@ function systemOf(sys) {
     if (sys.changeover_mode === 'optimal') out.changeover = 'optimal';
     else put(out, 'changeover', quantity(sys.changeover));
     if (!ratings.length) put(out, 'capacity', quantity(sys.capacity));
+  }
+  if (FUEL_BURNING_KINDS.includes(sys.kind)) {
+    put(out, 'capacity', quantity(sys.capacity));
+    const aux = sys.auxiliary_electricity;
+    if (isNumber(aux?.value)) out.auxiliary_electricity = { value: aux.value, unit: aux.unit ?? 'kWh' };
   }
   for (const [key, value] of Object.entries(sys.extra ?? {})) if (!(key in out)) out[key] = clone(value);
   return out;
@@ -287,6 +310,38 @@ function customFuelOf(fuel) {
   return out;
 }
 
+/**
+ * The site's electricity for what fuel-burning systems use themselves (`settings.electricity`): the price
+ * typed for it only when no system runs on electricity (otherwise the core prices it as the first
+ * electricity option's kWh; the typed price is kept and used again once there is none); any other field
+ * of an imported one (its fixed charges) as it came.
+ */
+function electricityOf(ws) {
+  const e = ws.settings?.electricity;
+  if (!e || typeof e !== 'object') return undefined;
+  const out = {};
+  for (const [key, value] of Object.entries(e)) if (key !== 'price') out[key] = clone(value);
+  if (isNumber(e.price?.amount) && !electricSystems(ws).length) out.price = { amount: e.price.amount, per: 'kWh' };
+  return Object.keys(out).length ? out : undefined;
+}
+
+/**
+ * `settings.kept_services` of the fuel entries ticked as kept for other appliances (the gas service for a
+ * range and a water heater): each with the entry's fixed charges, once per fuel.
+ */
+function keptServicesOf(ws) {
+  const out = [];
+  for (const entry of ws.fuels ?? []) {
+    const id = typeof entry.fuel === 'string' ? entry.fuel : '';
+    if (!entry.keep_service || !id || out.some((k) => k.fuel === id)) continue;
+    const service = { fuel: id };
+    put(service, 'label', isText(entry.keep_service_label) ? entry.keep_service_label : undefined);
+    service.fixed_charges = (entry.fixed_charges ?? []).map(fixedChargeOf).filter((c) => 'amount_per_month' in c || 'amount_per_year' in c);
+    out.push(service);
+  }
+  return out;
+}
+
 /** Builds the scenario document of a workspace (what is exported, evaluated and saved). */
 export function toScenario(ws) {
   const doc = { schema: SCENARIO_SCHEMA };
@@ -300,6 +355,9 @@ export function toScenario(ws) {
   const settings = { units: ws.settings.units, currency: ws.settings.currency };
   put(settings, 'gwp', ws.settings.gwp);
   if (isNumber(ws.settings.electricity_co2e_kg_per_kwh)) settings.electricity_co2e_kg_per_kwh = ws.settings.electricity_co2e_kg_per_kwh;
+  put(settings, 'electricity', electricityOf(ws));
+  const kept = keptServicesOf(ws);
+  if (kept.length) settings.kept_services = kept;
   doc.settings = settings;
   doc.demand = demandOf(ws.demand);
   const climate = climateToScenario(ws.climate);
@@ -428,9 +486,9 @@ function splitOption(option) {
 
 function systemFromScenario(sys = {}) {
   const known = ['kind', 'catalog', 'efficiency', 'distribution_loss', 'age_derating', 'ratings', 'cutoff', 'cd',
-    'backup', 'changeover', 'capacity'];
+    'backup', 'changeover', 'capacity', 'stages', 'auxiliary_electricity'];
   const out = { kind: sys.kind ?? 'furnace', catalog: sys.catalog ?? '', efficiency: clone(sys.efficiency) ?? { rating: '' } };
-  for (const key of ['distribution_loss', 'age_derating', 'cutoff', 'cd', 'backup', 'capacity']) {
+  for (const key of ['distribution_loss', 'age_derating', 'cutoff', 'cd', 'backup', 'capacity', 'stages', 'auxiliary_electricity']) {
     if (sys[key] !== undefined) out[key] = clone(sys[key]);
   }
   out.ratings = clone(sys.ratings) ?? [];
@@ -442,6 +500,26 @@ function systemFromScenario(sys = {}) {
   const extra = Object.fromEntries(Object.entries(sys).filter(([key]) => !known.includes(key)));
   if (Object.keys(extra).length) out.extra = clone(extra);
   return out;
+}
+
+/**
+ * Ticks the fuel entry of each kept service whose fixed charges are the service's; a service whose
+ * charges no entry of its fuel has gets an entry of its own (no system burns it), so that it shows on
+ * the Fuels tab and is sent as it came.
+ */
+function keptServicesFromScenario(ws, kept) {
+  if (!Array.isArray(kept)) return;
+  for (const service of kept) {
+    if (!service || typeof service !== 'object') continue;
+    const charges = JSON.stringify(service.fixed_charges ?? []);
+    let entry = ws.fuels.find((f) => f.fuel === service.fuel && !f.keep_service && JSON.stringify(f.fixed_charges ?? []) === charges);
+    if (!entry) {
+      entry = { key: newFuelKey(ws), fuel: service.fuel ?? '', price: { per: '' }, fixed_charges: clone(service.fixed_charges) ?? [] };
+      ws.fuels.push(entry);
+    }
+    entry.keep_service = true;
+    if (service.label !== undefined) entry.keep_service_label = service.label;
+  }
 }
 
 /** Builds a workspace from a scenario document (an imported file or an example). */
@@ -460,6 +538,7 @@ export function fromScenario(doc) {
   ws.quote = { ...ws.quote, date: '', ...(doc.quote ?? {}) };
   ws.settings.gwp = settings.gwp;
   if (settings.electricity_co2e_kg_per_kwh !== undefined) ws.settings.electricity_co2e_kg_per_kwh = settings.electricity_co2e_kg_per_kwh;
+  if (settings.electricity && typeof settings.electricity === 'object') ws.settings.electricity = clone(settings.electricity);
 
   const d = doc.demand ?? { method: 'direct' };
   const wd = ws.demand;
@@ -515,6 +594,8 @@ export function fromScenario(doc) {
     if (Object.keys(extra).length) sys.extra = extra;
     ws.systems.push(sys);
   }
+
+  keptServicesFromScenario(ws, settings.kept_services);
 
   if (doc.economics && typeof doc.economics === 'object') {
     const e = doc.economics;

@@ -343,6 +343,11 @@ std::string catalog_json() noexcept {
                                {"ratings", ratings},
                                {"typical", {{"value", record.typical.value}, {"rating", rating_name(record.typical.rating)}}},
                                {"minimum", {{"value", record.minimum.value}, {"rating", rating_name(record.minimum.rating)}}}});
+            // the default a fuel-burning system's own electricity takes when the scenario gives none
+            if (record.auxiliary_value > 0)
+                systems.back()["auxiliary_electricity"] = {{"value", record.auxiliary_value},
+                                                           {"unit", record.auxiliary_watts ? "W" : "kWh"},
+                                                           {"source", record.auxiliary_source}};
         }
         const auto& electricity = default_electricity_emissions();
         json gwp = json::object();

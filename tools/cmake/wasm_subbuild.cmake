@@ -56,11 +56,15 @@ add_test(NAME browser_firefox
 add_test(NAME browser_chromium_climates
   COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/climates.test.js"
   WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+# Heat pumps and fuel-burning equipment as rated and sold (issue 13), in Chromium.
+add_test(NAME browser_chromium_equipment
+  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/equipment.test.js"
+  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
 # Saved quotes of earlier and later record versions, and a full storage, in Chromium.
 add_test(NAME browser_storage
   COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/storage.test.js"
   WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
-set_tests_properties(browser_chromium browser_chromium_climates browser_webkit browser_firefox browser_storage PROPERTIES
+set_tests_properties(browser_chromium browser_chromium_climates browser_chromium_equipment browser_webkit browser_firefox browser_storage PROPERTIES
   ENVIRONMENT "${FW_BROWSER_ENV}"
   LABELS browser
   TIMEOUT 240

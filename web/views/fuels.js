@@ -3,6 +3,7 @@
 // fixed charges, the heating value on the bill, and emission settings.
 import { h } from '../dom.js';
 import { checkField, numberField, radioField, selectField, textField } from '../fields.js';
+import { burnsFuelAnywhere, equipmentElectricityPrice } from '../equipment.js';
 import { fuelId } from '../scenario.js';
 import { SALE_UNITS, unitLabel } from '../units.js';
 
@@ -115,6 +116,7 @@ function fuelCard(ctx, ws, entry, index) {
       unit: { path: `${base}/bag_mass/unit`, value: entry.bag_mass?.unit ?? 'lb', choices: ['lb', 'kg'] } }));
   }
   nodes.push(fixedCharges(ctx, base, entry, currency));
+  if (id === 'natural-gas' || entry.keep_service) nodes.push(keptService(ctx, base, entry, usedBy));
   const hv = entry.heating_value ?? {};
   const [hvEnergy, hvPer] = (hv.unit ?? '/').split('/');
   nodes.push(h('details', { class: 'more', open: hv.value !== undefined },
@@ -151,6 +153,44 @@ function fuelCard(ctx, ws, entry, index) {
 
 const formatSpread = (fraction) => String(Math.round(fraction * 1000) / 10);
 
+/** The tick for a service the house keeps whatever heats it, and what it does, in words. */
+function keptService(ctx, base, entry, usedBy) {
+  const gas = fuelId(entry) === 'natural-gas';
+  const charges = (entry.fixed_charges ?? []).filter((c) => typeof (c.amount_per_month ?? c.amount_per_year) === 'number');
+  let hint;
+  if (!entry.keep_service) {
+    hint = 'Tick it if a gas range, water heater or dryer stays connected whatever heats the house: its fixed charges above are then added to every option that does not burn gas.';
+  } else if (!charges.length) {
+    hint = 'No fixed charge is entered above, so nothing is added: enter the gas service\'s monthly charge.';
+  } else {
+    hint = `The fixed charges above are added to every option that does not burn ${gas ? 'gas' : 'this fuel'}${usedBy ? '' : ' (no system here burns it: it is here for its charges)'}.`;
+  }
+  return checkField(ctx, { label: gas ? 'The house keeps its gas service for other appliances (range, water heater)'
+    : 'The house keeps this service for other appliances', path: `${base}/keep_service`, checked: Boolean(entry.keep_service), structural: true, hint });
+}
+
+/** The price of the electricity furnaces, boilers and stoves use themselves, or which price the core uses for it. */
+function equipmentElectricity(ctx, ws) {
+  if (!burnsFuelAnywhere(ws)) return null;
+  const used = equipmentElectricityPrice(ws);
+  const typed = ws.settings.electricity?.price?.amount;
+  const nodes = [h('legend', { text: 'Electricity for the equipment itself' })];
+  const what = 'Furnaces, boilers and pellet stoves use electricity of their own (blower, pumps, burner motor).';
+  if (used.from === 'option') {
+    const name = used.system.label || used.system.id;
+    nodes.push(h('p', { class: 'hint', id: 'equipment-electricity-used',
+      text: `${what} It is priced per kWh at the price on the ${fuelName(used.entry, ctx.catalog)} card above, since “${name}” runs on it.` }));
+    if (typeof typed === 'number') {
+      nodes.push(h('p', { class: 'hint', id: 'equipment-electricity-kept', text: `The price typed here before, ${ctx.format.price(typed)} per kWh, is kept and used again if no system here runs on electricity.` }));
+    }
+  } else {
+    nodes.push(numberField(ctx, { label: `Electricity price for the equipment itself (${ws.settings.currency})`, path: '/settings/electricity/price/amount',
+      value: typed, unit: 'per kWh',
+      hint: `${what} No system here runs on electricity, so give the house's price per kWh; without it that electricity is counted but not priced.` }));
+  }
+  return h('fieldset', { class: 'group', id: 'equipment-electricity' }, nodes);
+}
+
 /** Renders the fuels panel. */
 export function renderFuels(container, ctx) {
   const ws = ctx.store.state;
@@ -179,8 +219,8 @@ export function renderFuels(container, ctx) {
         choices: [['lognormal', 'lognormal (median today\'s price)'], ['triangular', 'triangular (± a fixed share)']] }),
       numberField(ctx, { label: 'Spread of fuels without their own', path: '/uncertainty/spread_default', value: u.spread_default, scale: 100, unit: '%',
         placeholder: '20', hint: 'Each fuel\'s own spread is set on its card; the core assumes 20 % when none is given.' })) : null);
-  container.replaceChildren(h('div', { class: 'cards' }, cards), add, emissions, uncertainty,
-    h('div', { id: 'lab-slot' }));
+  container.replaceChildren(...[h('div', { class: 'cards' }, cards), add, equipmentElectricity(ctx, ws), emissions, uncertainty,
+    h('div', { id: 'lab-slot' })].filter(Boolean));
   ctx.renderLab?.(container.querySelector('#lab-slot'));
 }
 

@@ -3,7 +3,10 @@
 // points and dual-fuel changeover; installed costs when the life-cycle view is on.
 import { h } from '../dom.js';
 import { checkField, numberField, radioField, selectField, textField } from '../fields.js';
+import { FUEL_BURNING_KINDS, MODULATING, STAGES, auxiliaryDefault, cutoffOf, defaultCutoff } from '../equipment.js';
+import { formatInput } from '../format.js';
 import { HEAT_PUMP_KINDS, RATINGS, SYSTEM_KINDS, fuelId } from '../scenario.js';
+import { unitLabel } from '../units.js';
 import { fuelName } from './fuels.js';
 
 const TEMPS = ['degF', 'degC'];
@@ -17,20 +20,37 @@ const RATING_NAMES = {
   COP: 'COP', SCOP: 'SCOP', HSPF: 'HSPF', HSPF2: 'HSPF2',
 };
 
+const isNum = (v) => typeof v === 'number' && Number.isFinite(v);
+const hasMinimum = (point) => isNum(point?.min_capacity?.value) || isNum(point?.min_cop);
+
 function heatPumpFields(ctx, ws, base, sys, index) {
+  const modulating = MODULATING.includes(sys.stages);
   const rows = (sys.ratings ?? []).map((point, i) => {
     const p = `${base}/system/ratings/${i}`;
+    const capacityUnit = point.capacity?.unit ?? 'Btu/h';
     return h('div', { class: 'row-card' },
       h('div', { class: 'grid three' },
         numberField(ctx, { label: `Point ${i + 1}: outdoor`, path: `${p}/outdoor/value`, value: point.outdoor?.value,
           unit: { path: `${p}/outdoor/unit`, value: point.outdoor?.unit ?? 'degF', choices: TEMPS } }),
-        numberField(ctx, { label: 'Capacity', path: `${p}/capacity/value`, value: point.capacity?.value,
-          unit: { path: `${p}/capacity/unit`, value: point.capacity?.unit ?? 'Btu/h', choices: CAPACITY } }),
-        numberField(ctx, { label: 'COP', path: `${p}/cop`, value: point.cop })),
+        numberField(ctx, { label: modulating ? 'Maximum capacity' : 'Capacity', path: `${p}/capacity/value`, value: point.capacity?.value,
+          unit: { path: `${p}/capacity/unit`, value: capacityUnit, choices: CAPACITY } }),
+        numberField(ctx, { label: modulating ? 'COP at maximum' : 'COP', path: `${p}/cop`, value: point.cop })),
+      modulating ? h('div', { class: 'grid three minimum' },
+        h('p', { class: 'hint', text: 'Lowest speed at this temperature (optional):' }),
+        numberField(ctx, { label: 'Minimum capacity', path: `${p}/min_capacity/value`, value: point.min_capacity?.value,
+          unit: { path: `${p}/min_capacity/unit`, value: point.min_capacity?.unit ?? capacityUnit, choices: CAPACITY } }),
+        numberField(ctx, { label: 'COP at minimum', path: `${p}/min_cop`, value: point.min_cop })) : null,
       h('button', { type: 'button', class: 'quiet', dataset: { action: 'remove-rating', system: String(index), index: String(i) }, text: `Remove point ${i + 1}` }));
   });
   const others = ws.systems.filter((s, j) => j !== index).map((s) => [s.id, `${s.label || s.id}`]);
+  const stages = sys.stages ?? 'single';
+  const keptMinimum = !modulating && (sys.ratings ?? []).some(hasMinimum);
   const nodes = [
+    radioField(ctx, { legend: 'Compressor', path: `${base}/system/stages`, value: stages, choices: STAGES }),
+    h('p', { class: 'hint', text: modulating
+      ? 'A two-stage or variable-speed unit runs slower when the house needs less heat. Give the lowest capacity and its COP where the data sheet has them; without them the calculation assumes a usual share of the maximum.'
+      : 'A single-stage unit runs at full capacity and cycles on and off.' }),
+    keptMinimum ? h('p', { class: 'notice', id: `stages-note-${index}`, text: 'The minimum capacities typed for this heat pump are kept but not used: a single-stage unit has one capacity. Choose two-stage or variable-speed to use them again.' }) : null,
     h('p', { class: 'hint', text: 'Data-sheet points, e.g. at 47, 17 and 5 °F. With them the heat pump is worked out over temperature bins.' }),
     h('div', { class: 'rows' }, rows),
     h('button', { type: 'button', class: 'secondary', dataset: { action: 'add-rating', system: String(index) }, text: 'Add a data-sheet point' }),
@@ -39,9 +59,14 @@ function heatPumpFields(ctx, ws, base, sys, index) {
     nodes.push(numberField(ctx, { label: 'Capacity at 47 °F (optional)', path: `${base}/system/capacity/value`, value: sys.capacity?.value,
       unit: { path: `${base}/system/capacity/unit`, value: sys.capacity?.unit ?? 'Btu/h', choices: CAPACITY } }));
   }
+  const cutoff = cutoffOf(sys, ws.settings.units);
+  const assumed = formatInput(Math.round(defaultCutoff(sys.stages, cutoff.unit) * 10) / 10 || 0, ctx.locale);
   nodes.push(h('div', { class: 'grid two' },
-    numberField(ctx, { label: 'Cut-off temperature (optional)', path: `${base}/system/cutoff/value`, value: sys.cutoff?.value,
-      unit: { path: `${base}/system/cutoff/unit`, value: sys.cutoff?.unit ?? (ws.settings.units === 'us' ? 'degF' : 'degC'), choices: TEMPS } }),
+    numberField(ctx, { label: 'Low-temperature cut-out (optional)', path: `${base}/system/cutoff/value`, value: sys.cutoff?.value,
+      placeholder: assumed,
+      hint: `Below it the compressor stops and the backup heats alone. Left empty: ${assumed} ${unitLabel(cutoff.unit)}, usual for a ${
+        stages === 'variable' ? 'variable-speed' : stages === 'two' ? 'two-stage' : 'single-stage'} unit; the data sheet's figure is better.`,
+      unit: { path: `${base}/system/cutoff/unit`, value: cutoff.unit, choices: TEMPS, structural: true } }),
     numberField(ctx, { label: 'Cycling coefficient Cd (optional)', path: `${base}/system/cd`, value: sys.cd })));
   nodes.push(selectField(ctx, { label: 'Backup heat', path: `${base}/system/backup`, value: sys.backup ?? '', structural: true,
     choices: [['', 'None'], ['electric-resistance', 'Electric resistance strips'], ...others.map(([id, label]) => [id, `${label} (dual fuel)`])] }));
@@ -53,8 +78,34 @@ function heatPumpFields(ctx, ws, base, sys, index) {
         unit: { path: `${base}/system/changeover/unit`, value: sys.changeover?.unit ?? 'degF', choices: TEMPS } }));
     }
   }
-  return h('details', { class: 'more', open: (sys.ratings ?? []).length > 0 || Boolean(sys.backup) },
+  return h('details', { class: 'more', open: (sys.ratings ?? []).length > 0 || Boolean(sys.backup) || Boolean(sys.stages) },
     h('summary', { text: 'Heat-pump data sheet and backup' }), nodes);
+}
+
+const AUX_UNITS = [['kWh', 'kWh a year'], ['W', 'W while the burner runs']];
+
+/** A furnace's, boiler's or stove's output capacity and its own electricity, with the catalog's default shown, not entered. */
+function fuelBurningFields(ctx, ws, base, sys, entry) {
+  const fallback = auxiliaryDefault(sys, typeof entry?.fuel === 'string' ? entry.fuel : '', ctx.catalog);
+  const aux = sys.auxiliary_electricity ?? {};
+  const unit = aux.unit ?? fallback?.unit ?? 'kWh';
+  const what = { furnace: 'furnace', boiler: 'boiler', stove: 'stove' }[sys.kind] ?? 'system';
+  const defaultText = fallback
+    ? `Left empty: ${ctx.format.number(fallback.value, 4)} ${fallback.unit === 'W' ? 'W while the burner runs' : 'kWh a year'}, a typical ${
+      KIND_NAMES[fallback.record.kind]?.toLowerCase() ?? what} (${fallback.record.variant}) from the catalog.`
+    : `Left empty: none is counted for this ${what}.`;
+  const meaning = unit === 'W'
+    ? 'In W: the power of the circulator pump, fans and burner motor while the burner runs; it is counted for the hours the burner runs (from the output capacity, or the house\'s load).'
+    : 'In kWh a year: a furnace\'s rated yearly electricity for its blower, draft fan and controls (the "Eae" figure in its efficiency listing).';
+  const placeholder = fallback && fallback.unit === unit ? formatInput(fallback.value, ctx.locale) : fallback ? '' : '0';
+  return h('div', { class: 'grid two equipment' },
+    numberField(ctx, { label: 'Output capacity (optional)', path: `${base}/system/capacity/value`, value: sys.capacity?.value,
+      unit: { path: `${base}/system/capacity/unit`, value: sys.capacity?.unit ?? (ws.settings.units === 'us' ? 'Btu/h' : 'kW'), choices: ['Btu/h', 'kW'] },
+      hint: 'From the nameplate. Used to count the burner\'s hours and to compare its size with the house\'s load; the size itself is for a professional\'s load calculation.' }),
+    numberField(ctx, { label: 'Its own electricity (optional)', path: `${base}/system/auxiliary_electricity/value`, value: aux.value,
+      placeholder: placeholder || undefined,
+      unit: { path: `${base}/system/auxiliary_electricity/unit`, value: unit, choices: AUX_UNITS, structural: true },
+      hint: `${meaning} ${defaultText}` }));
 }
 
 function economicFields(ctx, ws, base, sys) {
@@ -101,6 +152,7 @@ function systemCard(ctx, ws, sys, index) {
         numberField(ctx, { label: 'Loss with age', path: `${base}/system/age_derating`, value: sys.system?.age_derating, scale: 100, unit: '%' }))),
   ];
   if (HEAT_PUMP_KINDS.includes(kind)) nodes.push(heatPumpFields(ctx, ws, base, sys.system ?? {}, index));
+  if (FUEL_BURNING_KINDS.includes(kind)) nodes.push(fuelBurningFields(ctx, ws, base, sys.system ?? {}, entry));
   if (ws.economics?.enabled) nodes.push(economicFields(ctx, ws, base, sys));
   nodes.push(h('div', { class: 'card-actions' },
     h('button', { type: 'button', class: 'quiet', dataset: { action: 'duplicate-system', index: String(index) }, text: 'Duplicate' }),

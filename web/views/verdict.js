@@ -7,7 +7,8 @@
 // cautions. Every number is a button that opens its trace.
 import { h } from '../dom.js';
 import { billsChart, binsChart, costBars, priceLines, probabilityBars, rangeChart, tornadoChart } from '../charts.js';
-import { asSentence } from '../format.js';
+import { keptServicesName, siteCostLines, sizingSentence } from '../equipment.js';
+import { asSentence, plainUnits } from '../format.js';
 import { ENERGY_KWH, UA_W_PER_K, co2In, convertTemperature, unitLabel } from '../units.js';
 import { fuelName } from './fuels.js';
 import { openTrace } from './trace.js';
@@ -194,6 +195,44 @@ function headline(result, ws, ctx, by) {
         text: `${format.number(value)} ${unitLabel(unit)} a year` })));
   }
   return h('div', { class: 'headline', id: 'verdict-headline' }, lines);
+}
+
+/** The words for a heat pump's backup: the dual-fuel option's name, or the resistance strips the core assumes otherwise. */
+export function backupName(option, result) {
+  if (option.backup_option) {
+    const other = (result.options ?? []).find((o) => o.id === option.backup_option);
+    return `the backup (${other?.label ?? other?.fuel_name ?? 'the other system'})`;
+  }
+  return 'the backup (electric resistance strips)';
+}
+
+/**
+ * Per option, in plain words: what it pays beside its fuel (its own electricity, the gas service kept for
+ * other appliances) and, for a heat pump, its size against the house's load. [{option, lines, sizing, resistance}]
+ */
+export function equipmentNotes(result, ws, ctx, by = 'annual') {
+  const keptName = keptServicesName(ws, ctx.catalog);
+  return rankedOptions(result, by).map((option) => {
+    const system = (ws.systems ?? []).find((s) => s.id === option.id)?.system ?? {};
+    const sizing = sizingSentence(option, { ws, result, format: ctx.format, system, backupName: backupName(option, result) });
+    const short = sizing && option.capacity_at_design?.value < option.design_load?.value;
+    return { option, lines: siteCostLines(option, { format: ctx.format, keptName }), sizing, resistance: short && !option.backup_option };
+  }).filter((n) => n.lines.length || n.sizing);
+}
+
+/** The equipment section of the verdict: each line's value a button that opens the option's trace. */
+function equipmentSection(result, ws, ctx, by) {
+  const notes = equipmentNotes(result, ws, ctx, by);
+  if (!notes.length) return null;
+  const items = notes.map(({ option, lines, sizing, resistance }) => h('li', { dataset: { option: option.id } },
+    h('strong', { class: 'name', text: option.label ?? option.id }),
+    lines.length ? h('ul', { class: 'plain' }, lines.map((line) => h('li', { dataset: { key: line.key } }, `${line.label}: `,
+      numButton(option, line.key, line.value, line.text, line.label)))) : null,
+    sizing ? h('p', { class: 'sizing', dataset: { key: 'sizing' } }, sizing,
+      resistance ? ' Resistance strips need their own circuit and may need a larger electrical service: a licensed electrician decides, to local code.' : '') : null));
+  return h('section', { class: 'chart-card', id: 'equipment' }, h('h3', { text: 'Equipment and charges beside the fuel' }),
+    h('ul', { class: 'equipment-list' }, items),
+    h('p', { class: 'hint', text: 'These amounts are already in each option\'s cost a year. Sizing needs a load calculation by a professional.' }));
 }
 
 function climateSummary(result, ws, ctx) {
@@ -438,6 +477,14 @@ export function showDrawProgress(container, ctx, fraction) {
   if (status) status.textContent = `Drawing prices… ${ctx.format.percent(fraction)}`;
 }
 
+/** A note from the calculation in words: the option it is about named first, units as people write them. */
+export function warningText(w, result) {
+  const message = plainUnits(w?.message ?? String(w));
+  const m = /^\/options\/(\d+)$/.exec(w?.path ?? '');
+  const option = m ? result.options?.[Number(m[1])] : null;
+  return option ? `${option.label ?? option.id}: ${message}` : message;
+}
+
 function cautionsBlock(result) {
   const cautions = result.cautions ?? [];
   return h('section', { class: 'cautions', id: 'verdict-cautions', 'aria-labelledby': 'cautions-title' },
@@ -492,6 +539,7 @@ export function renderVerdict(container, ctx, state, { kiosk = false } = {}) {
     }
     parts.push(table(result, ws, ctx, by));
     parts.push(h('p', { class: 'hint', text: 'Tap any number to see how it was worked out and which data it used.' }));
+    parts.push(equipmentSection(result, ws, ctx, by));
     parts.push(climateSummary(result, ws, ctx));
     parts.push(economicsSection(result, ws, ctx));
     const costRows = rankedOptions(result, by).map((o) => ({ id: o.id, label: o.label ?? o.id, energy: o.energy_cost, fixed: o.fixed_cost }));
@@ -511,7 +559,7 @@ export function renderVerdict(container, ctx, state, { kiosk = false } = {}) {
   const warnings = result.warnings ?? [];
   if (warnings.length) {
     parts.push(h('div', { class: 'warnings', id: 'verdict-warnings' }, h('h3', { text: 'Notes from the calculation' }),
-      h('ul', {}, warnings.map((w) => h('li', { text: w.message ?? String(w) })))));
+      h('ul', {}, warnings.map((w) => h('li', { text: warningText(w, result) })))));
   }
   parts.push(cautionsBlock(result));
   if (!kiosk) {
