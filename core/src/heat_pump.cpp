@@ -116,7 +116,13 @@ std::vector<heat_pump_point> with_frost_default(const std::vector<heat_pump_poin
     if (frosted.min_capacity_kw > 0) std::tie(frosted.min_capacity_kw, frosted.min_cop) = scale(frosted.min_capacity_kw, frosted.min_cop);
     const auto given = sorted_points(points);
     frosted.added = true;
+    // From 17 up to 45 degF the procedure follows the line through 17 and the frosted 35 degF point; at
+    // 45 degF and above the 17-47 line again (a step at 45 degF, as the procedure's equations have it).
+    const auto coldest_below_17 = std::find_if(given.rbegin(), given.rend(), [&](const auto& p) { return p.outdoor_c <= t17 + tolerance; });
+    auto below_45 = between(*coldest_below_17, frosted, t45 - 1e-6);
+    below_45.added = true;
     sorted.push_back(frosted);
+    sorted.push_back(below_45);
     if (std::none_of(sorted.begin(), sorted.end(), [&](const auto& p) { return std::fabs(p.outdoor_c - t45) < tolerance; })) {
         sorted.push_back(interpolate_sorted(given, t45, unused));
         sorted.back().added = true;
@@ -214,16 +220,24 @@ double procedure_seasonal_cop(const std::vector<heat_pump_point>& points, rating
     return run_bins(spec.bins, ua, spec.zero_load_c, inputs).seasonal_cop_with_resistance();
 }
 
-std::vector<heat_pump_point> default_points_for_rating(double seasonal_cop, rating_procedure procedure, double capacity_47_kw) {
-    // The seasonal COP rises monotonically with the COP at 47 degF; solve on [1, 12].
-    const auto gap = [&](double cop_47) {
-        return procedure_seasonal_cop(default_points(cop_47, capacity_47_kw), procedure) - seasonal_cop;
+std::vector<heat_pump_point> default_points_for_rating(double seasonal_cop, rating_procedure procedure, double capacity_47_kw,
+                                                       double min_share, double cd) {
+    const auto curve = [&](double cop_47) {
+        auto points = default_points(cop_47, capacity_47_kw);
+        if (min_share > 0)
+            for (auto& p : points) {
+                p.min_capacity_kw = min_share * p.capacity_kw;
+                p.min_cop = p.cop;
+            }
+        return points;
     };
+    // The seasonal COP rises monotonically with the COP at 47 degF; solve on [1, 12].
+    const auto gap = [&](double cop_47) { return procedure_seasonal_cop(curve(cop_47), procedure, cd, min_share > 0) - seasonal_cop; };
     const double lo = 1.0, hi = 12.0;
     const double g_lo = gap(lo), g_hi = gap(hi);
-    if (g_lo >= 0) return default_points(lo, capacity_47_kw);
-    if (g_hi <= 0) return default_points(hi, capacity_47_kw);
-    return default_points(illinois_root(gap, lo, hi, g_lo, g_hi, 1e-13 * seasonal_cop), capacity_47_kw);
+    if (g_lo >= 0) return curve(lo);
+    if (g_hi <= 0) return curve(hi);
+    return curve(illinois_root(gap, lo, hi, g_lo, g_hi, 1e-13 * seasonal_cop));
 }
 
 }  // namespace fw

@@ -54,6 +54,12 @@ rating_procedure procedure_for(efficiency_rating rating) {
     return rating_procedure::hspf_appendix_m;
 }
 
+/// [1] A staged or variable unit's minimum capacity as a share of its maximum when its data sheet gives none:
+/// 0.3 for variable speed, 0.6 for two stages (common practice); 0 for a single-stage unit.
+double default_min_share(heat_pump_stages stages) {
+    return stages == heat_pump_stages::variable ? 0.3 : stages == heat_pump_stages::two ? 0.6 : 0.0;
+}
+
 /// [degC] The low-ambient cut-out assumed when none is given: 0 degF for single- and two-stage units,
 /// -13 degF (-25 degC) for variable-speed ones (common practice; manufacturers' limits vary).
 double default_cutoff_c(heat_pump_stages stages) {
@@ -111,11 +117,15 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
         const auto rated = seasonal_efficiency_hhv(option.system, option.fuel, option.path + "/system");
         const double capacity = option.capacity_47_kw.value_or(std::max(design_load_kw, 0.5));
         const auto procedure = procedure_for(option.system.rating);
-        points = default_points_for_rating(rated.rated_hhv_basis, procedure, capacity);
+        // Rated as it will run: a staged or variable unit modulates in the procedure too (its part-load
+        // behaviour is in its rating, so it is not added a second time).
+        points = default_points_for_rating(rated.rated_hhv_basis, procedure, capacity, default_min_share(option.stages), option.cd);
         for (const auto& line : rated.trace) sheet_trace.push_back(line);
         sheet_trace.push_back("default curve fitted by " + std::string(procedure_name(procedure)) +
-                              " (its load line and bins, frost default, C_D 0.25): seasonal COP " +
-                              format_fixed(procedure_seasonal_cop(points, procedure), 3));
+                              " (its load line and bins, frost default, C_D " + format_number(option.cd) +
+                              (option.stages == heat_pump_stages::single ? "" : ", modulating down to its minimum") +
+                              "): seasonal COP " +
+                              format_fixed(procedure_seasonal_cop(points, procedure, option.cd, option.stages != heat_pump_stages::single), 3));
         r.warnings.push_back("no data-sheet points: a default curve (capacity 100/62/50 %, COP 100/66/55 % at 47/17/5 degF) "
                              "is fitted to the " + std::string(rating_name(option.system.rating)) + " rating by its own test "
                              "procedure; enter the data sheet's capacities and COPs for a real prediction");
@@ -136,7 +146,7 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
     }
     if (option.stages != heat_pump_stages::single) {
         // A staged or variable unit without minimum points: a stated share of the maximum (common practice).
-        const double share = option.stages == heat_pump_stages::variable ? 0.3 : 0.6;
+        const double share = default_min_share(option.stages);
         bool defaulted = false;
         for (auto& p : points)
             if (p.min_capacity_kw <= 0) {
@@ -147,13 +157,14 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
         if (defaulted)
             r.warnings.push_back(std::string(option.stages == heat_pump_stages::variable ? "variable-speed" : "two-stage") +
                                  " unit without minimum capacities on its data sheet: taken as " + format_fixed(100 * share, 0) +
-                                 " % of the maximum at the maximum's COP (common practice); enter min_capacity and min_cop");
+                                 " % of the maximum at the maximum's COP (common practice); enter the data sheet's minimum capacities and their COPs");
     }
     bool frost = false;
     points = with_frost_default(points, frost);
     if (frost)
         sheet_trace.push_back("no point between 17 and 45 degF: frost default of the DOE procedure applied (at 35 degF capacity x "
-                              "0.90 and power x 0.985 of the 17-47 degF line, blended to none at 17 and 45 degF)");
+                              "0.90 and power x 0.985 of the 17-47 degF line; from 17 to 45 degF on the line through 17 and 35 "
+                              "degF)");
 
     if (!option.cutoff_c) {
         option.cutoff_c = default_cutoff_c(option.stages);

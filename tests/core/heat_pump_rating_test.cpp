@@ -20,7 +20,8 @@ double f_to_c(double f) { return (f - 32) * 5 / 9; }
 
 /// Appendix M's steady-state capacity and power [kW] at Tj [degF] from the 47 and 17 degF tests alone:
 /// the straight 17-47 line at and above 45 and at and below 17 degF; between them the frost default,
-/// Q(35) = 0.90 [Q17 + 0.6 (Q47 - Q17)], P(35) = 0.985 [P17 + 0.6 (P47 - P17)], linear 17-35 and 35-45.
+/// Q(35) = 0.90 [Q17 + 0.6 (Q47 - Q17)], P(35) = 0.985 [P17 + 0.6 (P47 - P17)], and
+/// Q(Tj) = Q17 + (Q35 - Q17)(Tj - 17)/(35 - 17) for 17 < Tj < 45 (the same for P).
 void appendix_m_point(double q47, double p47, double q17, double p17, double tj, double& q, double& p) {
     const auto line = [&](double t, double a17, double a47) { return a17 + (a47 - a17) * (t - 17) / 30; };
     if (tj <= 17 || tj >= 45) {
@@ -29,13 +30,8 @@ void appendix_m_point(double q47, double p47, double q17, double p17, double tj,
         return;
     }
     const double q35 = 0.90 * line(35, q17, q47), p35 = 0.985 * line(35, p17, p47);
-    if (tj <= 35) {
-        q = q17 + (q35 - q17) * (tj - 17) / 18;
-        p = p17 + (p35 - p17) * (tj - 17) / 18;
-    } else {
-        q = q35 + (line(45, q17, q47) - q35) * (tj - 35) / 10;
-        p = p35 + (line(45, p17, p47) - p35) * (tj - 35) / 10;
-    }
+    q = q17 + (q35 - q17) * (tj - 17) / 18;
+    p = p17 + (p35 - p17) * (tj - 17) / 18;
 }
 
 /// HSPF [Btu/Wh] worked as the procedure writes it: sum n_j BL_j / sum n_j (e_j + RH_j) x 3.412, over
@@ -81,8 +77,10 @@ TEST(heat_pump_rating, frost_default_between_17_and_45_degF) {
     const auto at35 = fw::interpolate(frosted, f_to_c(35), extrapolated);
     EXPECT_NEAR(at35.capacity_kw, 7.56, 1e-9);
     EXPECT_NEAR(at35.cop, 7.56 / (0.985 * (2.5 + 0.6 * (10 / 3.6 - 2.5))), 1e-9);
-    // No loss at 17 and 45 degF, and below 17 degF the 17-47 line goes on (12 degF: 6 - 4 x 5/30 kW).
+    // No loss at 17 degF; up to 45 degF on the 17-35 line (42 degF: 6 + 1.56 x 25/18), from 45 degF on the
+    // 17-47 line again; below 17 degF the 17-47 line goes on (12 degF: 6 - 4 x 5/30 kW).
     EXPECT_NEAR(fw::interpolate(frosted, f_to_c(17), extrapolated).capacity_kw, 6, 1e-9);
+    EXPECT_NEAR(fw::interpolate(frosted, f_to_c(42), extrapolated).capacity_kw, 6 + 1.56 * 25.0 / 18, 1e-9);
     EXPECT_NEAR(fw::interpolate(frosted, f_to_c(45), extrapolated).capacity_kw, 6 + 4 * 28.0 / 30, 1e-9);
     EXPECT_NEAR(fw::interpolate(frosted, f_to_c(12), extrapolated).capacity_kw, 6 - 4 * 5.0 / 30, 1e-9);
     // A 35 degF point on the sheet is used as it is.

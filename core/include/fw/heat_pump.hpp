@@ -70,9 +70,9 @@ struct heat_pump_season {
 heat_pump_point interpolate(const std::vector<heat_pump_point>& points, double t_c, bool& extrapolated);
 
 /// The points with the rating procedure's frost default added where no point lies between 17 and
-/// 45 degF: at 35 degF capacity x 0.90 and power x 0.985 of the straight 17-47 degF line, and a point
-/// at 45 degF on that line, so the frost loss blends to none at 17 and 45 degF (10 CFR 430 App. M/M1;
-/// AHRI 210/240, from memory). Below a sheet's only point at or under 17 degF the 17-47 degF line goes on
+/// 45 degF: at 35 degF capacity x 0.90 and power x 0.985 of the straight 17-47 degF line; from 17 up to
+/// 45 degF the line through 17 and that 35 degF point, from 45 degF the 17-47 line again (10 CFR 430
+/// App. M/M1, AHRI 210/240 single-speed equations for 17 < Tj < 45 degF, from memory). Below a sheet's only point at or under 17 degF the 17-47 degF line goes on
 /// (a point 10 degF lower is added on it). `applied` tells whether it was.
 std::vector<heat_pump_point> with_frost_default(const std::vector<heat_pump_point>& points, bool& applied);
 
@@ -96,7 +96,10 @@ double procedure_seasonal_cop(const std::vector<heat_pump_point>& points, rating
 /// product's data), with COP at 47 degF `cop_47` and capacity `capacity_47_kw`.
 std::vector<heat_pump_point> default_points(double cop_47, double capacity_47_kw);
 
-/// The default curve whose seasonal COP by `procedure` equals `seasonal_cop` (the rating / 3.412, or SCOP).
-std::vector<heat_pump_point> default_points_for_rating(double seasonal_cop, rating_procedure procedure, double capacity_47_kw);
+/// The default curve whose seasonal COP by `procedure` equals `seasonal_cop` (the rating / 3.412, or SCOP),
+/// rated as the unit will run: with `min_share` > 0 a staged or variable unit whose minimum capacity is that
+/// share of the maximum at the maximum's COP, modulating; C_D `cd`.
+std::vector<heat_pump_point> default_points_for_rating(double seasonal_cop, rating_procedure procedure, double capacity_47_kw,
+                                                       double min_share = 0, double cd = default_cd);
 
 }  // namespace fw
