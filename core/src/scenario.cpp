@@ -29,6 +29,16 @@ bool is_currency_code(const std::string& code) {
     return code.size() == 3 && std::all_of(code.begin(), code.end(), [](char c) { return c >= 'A' && c <= 'Z'; });
 }
 
+/// [currency] The most any one amount of money in an option may be: above it is a slip of the keyboard
+/// or the unit, and sums over years and draws could overflow.
+constexpr double max_amount = 1e9;
+
+/// Refuses an amount of money above max_amount at its field (negative amounts have their own message).
+void require_at_most_max_amount(double amount, const std::string& path) {
+    if (amount > max_amount)
+        throw input_error(path, "must be from 0 to 1000000000 (a billion), got " + format_number(amount));
+}
+
 /// Reads "Btu/therm" style text: energy unit / sale unit.
 std::pair<std::string, std::string> energy_per_unit(const std::string& text, const std::string& path) {
     const auto slash = text.find('/');
@@ -230,6 +240,7 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
              {"annual_maintenance", &option.annual_maintenance}}) {
         *target = optional_number(item, key, path).value_or(0.0);
         if (*target < 0) throw input_error(path + "/" + key, "must be >= 0, got " + format_number(*target));
+        require_at_most_max_amount(*target, path + "/" + key);
     }
     if (option.incentives > option.installed_cost)
         throw input_error(path + "/incentives", "incentives (" + format_number(option.incentives) +
@@ -250,6 +261,7 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
     option.price_per_unit = price.contains("tiers") && !price.contains("amount") ? 0.0 : required_number(price, "amount", path + "/price");
     if (option.price_per_unit < 0)
         throw input_error(path + "/price/amount", "must be >= 0, got " + format_number(option.price_per_unit));
+    require_at_most_max_amount(option.price_per_unit, path + "/price/amount");
     option.price_unit = required_string(price, "per", path + "/price");
     if (const auto tiers = price.find("tiers"); tiers != price.end()) {
         if (!tiers->is_array() || tiers->empty()) throw input_error(path + "/price/tiers", "must be a non-empty array of {from, to, amount}");
@@ -263,6 +275,7 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
             entry.to = tier.contains("to") && !tier.at("to").is_null() ? required_number(tier, "to", tier_path) : INFINITY;
             entry.amount = required_number(tier, "amount", tier_path);
             if (entry.amount < 0) throw input_error(tier_path + "/amount", "must be >= 0, got " + format_number(entry.amount));
+            require_at_most_max_amount(entry.amount, tier_path + "/amount");
             if (entry.from != previous)
                 throw input_error(tier_path + "/from", "blocks must follow each other from 0 without gaps or overlaps; expected " +
                                                            format_number(previous) + ", got " + format_number(entry.from));
@@ -316,6 +329,7 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
             if (amount < 0)
                 throw input_error(charge_path + (monthly ? "/amount_per_month" : "/amount_per_year"),
                                   "must be >= 0, got " + format_number(amount));
+            require_at_most_max_amount(amount, charge_path + (monthly ? "/amount_per_month" : "/amount_per_year"));
             entry.amount_per_year = monthly ? *monthly * 12 : *yearly;
             entry.text = monthly ? format_fixed(*monthly, 2) + " per month x 12" : format_fixed(*yearly, 2) + " per year";
             option.fixed_charges.push_back(entry);

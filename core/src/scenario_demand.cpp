@@ -34,6 +34,21 @@ std::array<double, 12> twelve_numbers(const json& obj, const std::string& key, c
     return out;
 }
 
+/// [kWh/year] The annual heat a scenario is evaluated for: below 1 kWh there is nothing to heat, and
+/// above 100 GWh it is no house (and costs per unit of heat would overflow or divide by almost zero).
+constexpr double min_annual_heat_kwh = 1, max_annual_heat_kwh = 1e8;
+
+/// Refuses an annual heat {value, unit} of `kwh` outside the range (from 0 when `zero_allowed`), naming it in the unit.
+void require_annual_heat(double kwh, const json& heat, const std::string& path, bool zero_allowed) {
+    const double low = zero_allowed ? 0 : min_annual_heat_kwh;
+    if (kwh >= low && kwh <= max_annual_heat_kwh) return;
+    const auto unit = heat.at("unit").get<std::string>();
+    throw input_error(path + "/value", "must be from " + std::string(zero_allowed ? "0" : "1 kWh") + " to 100 GWh a year (" +
+                                           format_number(convert(low, "kWh", unit)) + " to " +
+                                           format_number(convert(max_annual_heat_kwh, "kWh", unit)) + " " + unit + "), got " +
+                                           format_number(heat.at("value").get<double>()) + " " + unit);
+}
+
 /// [K per input degree]: 1 for degC and K, 5/9 for degF.
 double degree_size(bool fahrenheit) { return fahrenheit ? 5.0 / 9.0 : 1.0; }
 
@@ -138,6 +153,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         const double kwh = quantity_in(heat, "/demand/annual_useful_heat", dimension::energy, "kWh");
         if (kwh <= 0)
             throw input_error("/demand/annual_useful_heat/value", "must be > 0, got " + format_number(heat.at("value").get<double>()));
+        require_annual_heat(kwh, heat, "/demand/annual_useful_heat", false);
         out.space_heat_kwh = kwh;
         out.demand_trace.push_back("annual useful heat given directly: " + format_number(heat.at("value").get<double>()) +
                                    " " + heat.at("unit").get<std::string>() + " = " + format_fixed(kwh, 1) + " kWh");
@@ -215,7 +231,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         if (const auto id = optional_string(demand, "option", "/demand")) {
             bool found = false;
             for (std::size_t i = 0; i < options_json.size() && !found; ++i)
-                if (options_json[i].is_object() && options_json[i].value("id", "") == *id) {
+                if (options_json[i].is_object() && options_json[i].contains("id") && options_json[i].at("id") == *id) {
                     equipment = read_option(options_json[i], "/options/" + std::to_string(i), warnings);
                     found = true;
                 }
@@ -256,6 +272,9 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             const long last = parse_day_number(*end, path + "/end");
             if (last < first)
                 throw input_error(path + "/end", "the period " + *start + " to " + *end + " has no days (it ends before it starts)");
+            if (last - first + 1 > 366)
+                throw input_error(path + "/end", "the period " + *start + " to " + *end + " has " + std::to_string(last - first + 1) +
+                                                     " days; a bill covers at most 366 days (split a longer period)");
             const auto amount = optional_number(item, "quantity", path);
             if (!amount) throw input_error(path + "/quantity", "is required (a number)");
             if (*amount < 0) throw input_error(path + "/quantity", "must be >= 0, got " + format_number(*amount));
@@ -344,11 +363,16 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         throw input_error("/demand/method", "unknown demand method \"" + method + "\"; accepted: direct, heat-loss, bills");
     }
     if (demand.contains("hot_water")) {
-        out.hot_water_kwh = quantity_in(demand.at("hot_water"), "/demand/hot_water", dimension::energy, "kWh");
-        if (out.hot_water_kwh < 0) throw input_error("/demand/hot_water/value", "must be >= 0");
+        const double hot_water_kwh = quantity_in(demand.at("hot_water"), "/demand/hot_water", dimension::energy, "kWh");
+        if (hot_water_kwh < 0) throw input_error("/demand/hot_water/value", "must be >= 0");
+        require_annual_heat(hot_water_kwh, demand.at("hot_water"), "/demand/hot_water", true);
+        out.hot_water_kwh = hot_water_kwh;
         out.demand_trace.push_back("plus domestic hot water " + energy_text(out.hot_water_kwh) + " useful per year");
     }
     out.annual_useful_heat_kwh = out.space_heat_kwh + out.hot_water_kwh;
+    if (!(out.annual_useful_heat_kwh >= min_annual_heat_kwh && out.annual_useful_heat_kwh <= max_annual_heat_kwh))
+        throw input_error("/demand", "the annual useful heat works out at " + format_number(out.annual_useful_heat_kwh) +
+                                         " kWh; it must be from 1 kWh to 100 GWh a year: check the demand inputs");
 }
 
 }  // namespace fw

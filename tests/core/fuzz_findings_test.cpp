@@ -3,7 +3,9 @@
 // the user now gets at that field.
 #include <gtest/gtest.h>
 
+#include <fstream>
 #include <nlohmann/json.hpp>
+#include <sstream>
 #include <string>
 #include <vector>
 
@@ -48,6 +50,76 @@ TEST(fuzz_findings, a_tiny_percentage_efficiency_is_refused_at_its_field) {
     const auto result = json::parse(fw::evaluate_json(gas_scenario({{"system", {{"efficiency", {{"value", 1}}}}}}).dump()));
     ASSERT_TRUE(result.at("errors").empty()) << result.dump();
     EXPECT_NEAR(result.at("options")[0].at("fuel_quantity").at("value").get<double>(), 60000.0, 1e-6);
+}
+
+TEST(fuzz_findings, an_annual_heat_out_of_range_is_refused_at_its_field) {
+    // Found: 2.2e-308 MMBtu of useful heat with a 16 USD/month charge gave an Infinity cost per useful GJ.
+    auto scenario = gas_scenario(json::object());
+    scenario["demand"]["annual_useful_heat"]["value"] = 2.2250738585072014e-308;
+    EXPECT_EQ(errors_of(scenario), strings{"/demand/annual_useful_heat/value: must be from 1 kWh to 100 GWh a year "
+                                           "(0.00341214 to 341214 MMBtu), got 2.22507e-308 MMBtu"});
+    scenario["demand"]["annual_useful_heat"] = {{"value", 1e300}, {"unit", "kWh"}};
+    EXPECT_EQ(errors_of(scenario), strings{"/demand/annual_useful_heat/value: must be from 1 kWh to 100 GWh a year "
+                                           "(1 to 1e+08 kWh), got 1e+300 kWh"});
+    scenario["demand"]["annual_useful_heat"] = {{"value", 60}, {"unit", "MMBtu"}};
+    // 1e300 MMBtu of hot water is Infinity in kWh; it was written into the result before it was refused.
+    scenario["demand"]["hot_water"] = {{"value", 1e300}, {"unit", "MMBtu"}};
+    EXPECT_EQ(errors_of(scenario), strings{"/demand/hot_water/value: must be from 0 to 100 GWh a year "
+                                           "(0 to 341214 MMBtu), got 1e+300 MMBtu"});
+    // Worked out from a heat loss: 0.001 W/K x 2900 K day x 24 h / 1000 = 0.0696 kWh a year.
+    scenario["demand"] = {{"method", "heat-loss"}, {"ua", {{"value", 0.001}, {"unit", "W/K"}}}};
+    scenario["climate"] = {{"unit", "degC"}, {"annual_hdd", 2900}, {"design_temperature", {{"value", -10}, {"unit", "degC"}}}};
+    EXPECT_EQ(errors_of(scenario), strings{"/demand: the annual useful heat works out at 0.0696 kWh; it must be from 1 kWh "
+                                           "to 100 GWh a year: check the demand inputs"});
+}
+
+/// The bills example (data/examples/fjordvik-oil-bills.json, twelve monthly oil bills) as JSON.
+json bills_example() {
+    std::ifstream file("data/examples/fjordvik-oil-bills.json");
+    std::stringstream text;
+    text << file.rdbuf();
+    return json::parse(text.str());
+}
+
+TEST(fuzz_findings, a_bill_of_many_years_is_refused_instead_of_hanging) {
+    // Near-hang: a bill from 0001-01-01 made the weather fit walk its 739,282 days for each of its 141
+    // trial base temperatures (about 5 s in the fuzz build); a later end date makes it longer still.
+    auto scenario = bills_example();
+    ASSERT_EQ(errors_of(scenario), strings{});
+    scenario["demand"]["bills"][0]["start"] = "0001-01-01";
+    EXPECT_EQ(errors_of(scenario), strings{"/demand/bills/0/end: the period 0001-01-01 to 2025-01-31 has 739282 days; a bill "
+                                           "covers at most 366 days (split a longer period)"});
+    // A year's bill (leap year) is accepted.
+    scenario["demand"]["bills"] = json::array({{{"start", "2024-01-01"}, {"end", "2024-12-31"}, {"quantity", 2400}, {"unit", "L"}}});
+    EXPECT_EQ(errors_of(scenario), strings{});
+}
+
+TEST(fuzz_findings, an_amount_of_money_above_a_billion_is_refused_at_its_field) {
+    // Found: a price of 1e300 (and 1.8e308) per kWh gave an Infinity annual cost and Monte Carlo mean.
+    const std::string range = "must be from 0 to 1000000000 (a billion), got 1e+300";
+    EXPECT_EQ(errors_of(gas_scenario({{"price", {{"amount", 1e300}}}})), strings{"/options/0/price/amount: " + range});
+    EXPECT_EQ(errors_of(gas_scenario({{"price", {{"tiers", {{{"from", 0}, {"to", 50}, {"amount", 1}},
+                                                            {{"from", 50}, {"amount", 1e300}}}}}}})),
+              strings{"/options/0/price/tiers/1/amount: " + range});
+    EXPECT_EQ(errors_of(gas_scenario({{"fixed_charges", {{{"amount_per_month", 1e300}}}}})),
+              strings{"/options/0/fixed_charges/0/amount_per_month: " + range});
+    EXPECT_EQ(errors_of(gas_scenario({{"fixed_charges", {{{"amount_per_year", 1e300}}}}})),
+              strings{"/options/0/fixed_charges/0/amount_per_year: " + range});
+    EXPECT_EQ(errors_of(gas_scenario({{"installed_cost", 1e300}})), strings{"/options/0/installed_cost: " + range});
+    EXPECT_EQ(errors_of(gas_scenario({{"annual_maintenance", 1e300}})), strings{"/options/0/annual_maintenance: " + range});
+    // A billion itself is accepted: 631.579 therm x 1e9 USD.
+    const auto result = json::parse(fw::evaluate_json(gas_scenario({{"price", {{"amount", 1e9}}}}).dump()));
+    ASSERT_TRUE(result.at("errors").empty()) << result.dump();
+    EXPECT_NEAR(result.at("options")[0].at("annual_cost").get<double>(), 631.578947368421e9, 1e3);
+}
+
+TEST(fuzz_findings, an_option_id_that_is_not_a_string_does_not_break_a_bills_demand) {
+    // Found: a bills demand naming its option looked through the options with json::value("id", ""),
+    // which throws on an id that is an array: "internal error: [json.exception.type_error.302] ...".
+    auto scenario = bills_example();
+    scenario["options"].push_back(scenario["options"][0]);
+    scenario["options"].back()["id"] = json::array();
+    EXPECT_EQ(errors_of(scenario), strings{"/options/4/id: must be a string, got array"});
 }
 
 }  // namespace
