@@ -39,6 +39,15 @@ void require_at_most_max_amount(double amount, const std::string& path) {
         throw input_error(path, "must be from 0 to 1000000000 (a billion), got " + format_number(amount));
 }
 
+/// Refuses a given heating value more than 10 times above or below the catalog's (both in the given
+/// unit and basis): a slip of the unit (Btu for kBtu, per litre for per gallon), never a different fuel.
+void require_near_catalog(double value, double catalog, const std::string& unit, const std::string& path) {
+    if (value >= catalog / 10 && value <= catalog * 10) return;
+    throw input_error(path, "must be within a factor of 10 of the catalog's " + format_number(catalog) + " " + unit +
+                                ": from " + format_number(catalog / 10) + " to " + format_number(catalog * 10) + ", got " +
+                                format_number(value));
+}
+
 /// Reads "Btu/therm" style text: energy unit / sale unit.
 std::pair<std::string, std::string> energy_per_unit(const std::string& text, const std::string& path) {
     const auto slash = text.find('/');
@@ -297,11 +306,17 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
         if (find_unit(unit, path + "/bag_mass/unit").kind != dimension::mass)
             throw input_error(path + "/bag_mass/unit", "must be a mass unit: " + accepted_units(dimension::mass));
         if (value <= 0) throw input_error(path + "/bag_mass/value", "must be > 0, got " + format_number(value));
-        option.sale.bag_mass_kg = convert(value, unit, "kg");
+        const double kg = convert(value, unit, "kg", path + "/bag_mass/value");
+        if (kg < 1 || kg > 2000)
+            throw input_error(path + "/bag_mass/value", "a bag must hold from 1 to 2000 kg (" + format_number(convert(1, "kg", unit)) +
+                                                            " to " + format_number(convert(2000, "kg", unit)) + " " + unit +
+                                                            "), got " + format_number(value) + " " + unit);
+        option.sale.bag_mass_kg = kg;
     }
     if (const auto fraction = optional_number(item, "face_cord_fraction", path)) {
-        if (!(*fraction > 0 && *fraction <= 1))
-            throw input_error(path + "/face_cord_fraction", "must be a fraction of a cord in (0, 1], got " + format_number(*fraction));
+        if (!(*fraction >= 0.1 && *fraction <= 1))
+            throw input_error(path + "/face_cord_fraction", "must be a fraction of a cord from 0.1 to 1 (a face cord is "
+                                                            "usually 1/3 of a cord), got " + format_number(*fraction));
         option.sale.face_cord_fraction = fraction;
     }
     option.sale.wood_species = optional_string(item, "wood_species", path);
@@ -392,7 +407,9 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
             throw input_error(hv_path + "/basis", "unknown basis \"" + basis + "\"; accepted: HHV, LHV");
         const auto given_unit = heating_value_per_sale_unit(option.fuel, sale_unit, option.sale, hv_path + "/unit");
         const auto priced_unit = heating_value_per_sale_unit(option.fuel, option.price_unit, option.sale, hv_path);
-        double j_per_given = convert(value, energy_unit, "J");
+        const double catalog_j = given_unit.hhv_j * (basis == "LHV" ? option.fuel.lhv_over_hhv : 1.0);
+        require_near_catalog(value, convert(catalog_j, "J", energy_unit), unit_text + " (" + basis + ")", hv_path + "/value");
+        double j_per_given = convert(value, energy_unit, "J", hv_path + "/value");
         if (basis == "LHV") j_per_given /= option.fuel.lhv_over_hhv;
         option.heating_value_override_j = j_per_given * priced_unit.hhv_j / given_unit.hhv_j;
         option.heating_value_override_text = format_number(value) + " " + unit_text + " (" + basis + ", given)";
@@ -442,12 +459,12 @@ scenario_settings read_settings(const json& document, std::vector<issue>& warnin
     return settings;
 }
 
-/// A rate per year as a fraction, above -100 %.
+/// A rate per year as a fraction, from -50 % to 100 %.
 double read_rate(const json& obj, const std::string& key, const std::string& path, double fallback) {
     const auto value = optional_number(obj, key, path);
     if (!value) return fallback;
-    if (*value <= -1) throw input_error(path + "/" + key, "a rate must be above -100 % per year (-1 as a fraction), got " +
-                                                              format_number(*value));
+    if (*value < -0.5) throw input_error(path + "/" + key, "a rate must be from -50 % to 100 % per year (-0.5 to 1 as "
+                                                               "fractions), got " + format_number(*value));
     if (*value > 1) throw input_error(path + "/" + key, "rates are fractions per year (0.05 for 5 %); got " + format_number(*value));
     return *value;
 }

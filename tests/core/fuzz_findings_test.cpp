@@ -122,4 +122,63 @@ TEST(fuzz_findings, an_option_id_that_is_not_a_string_does_not_break_a_bills_dem
     EXPECT_EQ(errors_of(scenario), strings{"/options/4/id: must be a string, got array"});
 }
 
+TEST(fuzz_findings, a_heating_value_far_from_the_catalog_is_refused_at_its_field) {
+    // Found by the fuzzer (tools/fuzz --runs 1000000 scenario, after 10,625 runs): 1.8e308 MJ/m3 in the
+    // metric-boiler example gave an Infinity heating value per unit. Found by a targeted probe beside it:
+    // 1e300 Btu/therm came back as "value must be a finite
+    // number, got Infinity" at the empty path, not at the field; 1e-300 Btu/therm gave 6e307 therm a year;
+    // 1e308 MJ/m3 is Infinity in J.
+    EXPECT_EQ(errors_of(gas_scenario({{"heating_value", {{"value", 1e300}, {"unit", "Btu/therm"}}}})),
+              strings{"/options/0/heating_value/value: must be within a factor of 10 of the catalog's 100000 Btu/therm "
+                      "(HHV): from 10000 to 1e+06, got 1e+300"});
+    EXPECT_EQ(errors_of(gas_scenario({{"heating_value", {{"value", 1e-300}, {"unit", "Btu/therm"}}}})),
+              strings{"/options/0/heating_value/value: must be within a factor of 10 of the catalog's 100000 Btu/therm "
+                      "(HHV): from 10000 to 1e+06, got 1e-300"});
+    EXPECT_EQ(errors_of(gas_scenario({{"heating_value", {{"value", 1e308}, {"unit", "MJ/m3"}}}})),
+              strings{"/options/0/heating_value/value: must be within a factor of 10 of the catalog's 38.6746 MJ/m3 "
+                      "(HHV): from 3.86746 to 386.746, got 1e+308"});
+    // A value of the right size in another unit of the fuel is still taken: 1.05 MJ/ft3 for gas priced per therm.
+    const auto result = json::parse(
+        fw::evaluate_json(gas_scenario({{"heating_value", {{"value", 1.05}, {"unit", "MJ/ft3"}}}}).dump()));
+    EXPECT_TRUE(result.at("errors").empty()) << result.dump();
+}
+
+TEST(fuzz_findings, a_rate_below_minus_50_percent_is_refused_at_its_field) {
+    // Found by a targeted probe beside the fuzzer: a discount rate of -0.999999999 gave an LCOH of NaN
+    // ((1 + e) / (1 + d) to the 15th power overflows).
+    auto scenario = gas_scenario({{"installed_cost", 5000}});
+    scenario["economics"] = {{"discount_rate", -0.999999999}};
+    EXPECT_EQ(errors_of(scenario), strings{"/economics/discount_rate: a rate must be from -50 % to 100 % per year (-0.5 to 1 "
+                                           "as fractions), got -1"});
+    scenario["economics"] = {{"discount_rate", -0.5}, {"escalation", 1}, {"analysis_years", 50}};
+    EXPECT_EQ(errors_of(scenario), strings{});
+}
+
+/// The scenario with a pellet stove priced per bag (or a cordwood stove per face cord) added.
+json with_wood_option(const json& patch) {
+    json option = {{"id", "wood"},
+                   {"fuel", "wood-pellets"},
+                   {"price", {{"amount", 6}, {"per", "bag"}}},
+                   {"bag_mass", {{"value", 40}, {"unit", "lb"}}},
+                   {"system", {{"kind", "stove"}, {"efficiency", {{"value", 80}, {"rating", "thermal"}}}}}};
+    option.merge_patch(patch);
+    auto scenario = gas_scenario(json::object());
+    scenario["options"].push_back(option);
+    return scenario;
+}
+
+TEST(fuzz_findings, a_bag_or_face_cord_of_almost_nothing_is_refused_at_its_field) {
+    // Found by a targeted probe beside the fuzzer: a 1e-300 kg bag at 1e9 USD a bag, and 1e-300 of a
+    // cord at 1e9 USD a face cord, gave an Infinity annual cost.
+    EXPECT_EQ(errors_of(with_wood_option({{"bag_mass", {{"value", 1e-300}, {"unit", "kg"}}}, {"price", {{"amount", 1e9}}}})),
+              strings{"/options/1/bag_mass/value: a bag must hold from 1 to 2000 kg (1 to 2000 kg), got 1e-300 kg"});
+    EXPECT_EQ(errors_of(with_wood_option({{"bag_mass", {{"value", 1e-300}, {"unit", "lb"}}}})),
+              strings{"/options/1/bag_mass/value: a bag must hold from 1 to 2000 kg (2.20462 to 4409.25 lb), got 1e-300 lb"});
+    EXPECT_EQ(errors_of(with_wood_option({{"fuel", "cordwood"}, {"price", {{"amount", 1e9}, {"per", "face_cord"}}},
+                                          {"bag_mass", nullptr}, {"face_cord_fraction", 1e-300}})),
+              strings{"/options/1/face_cord_fraction: must be a fraction of a cord from 0.1 to 1 (a face cord is usually 1/3 "
+                      "of a cord), got 1e-300"});
+    EXPECT_EQ(errors_of(with_wood_option(json::object())), strings{});
+}
+
 }  // namespace
