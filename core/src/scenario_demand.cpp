@@ -272,9 +272,9 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             const long last = parse_day_number(*end, path + "/end");
             if (last < first)
                 throw input_error(path + "/end", "the period " + *start + " to " + *end + " has no days (it ends before it starts)");
-            if (last - first + 1 > 366)
-                throw input_error(path + "/end", "the period " + *start + " to " + *end + " has " + std::to_string(last - first + 1) +
-                                                     " days; a bill covers at most 366 days (split a longer period)");
+            if (last - first > 366)
+                throw input_error(path + "/end", "the period " + *start + " to " + *end + " spans " + std::to_string(last - first) +
+                                                     " days; a bill covers at most a year (split a longer period)");
             const auto amount = optional_number(item, "quantity", path);
             if (!amount) throw input_error(path + "/quantity", "is required (a number)");
             if (*amount < 0) throw input_error(path + "/quantity", "must be >= 0, got " + format_number(*amount));
