@@ -446,6 +446,9 @@ scenario_settings read_settings(const json& document, std::vector<issue>& warnin
     if (const auto factor = optional_number(s, "electricity_co2e_kg_per_kwh", "/settings")) {
         if (*factor < 0)
             throw input_error("/settings/electricity_co2e_kg_per_kwh", "must be >= 0, got " + format_number(*factor));
+        if (*factor > 10)
+            throw input_error("/settings/electricity_co2e_kg_per_kwh",
+                              "must be from 0 to 10 kg CO2e per kWh (coal-fired power emits about 1), got " + format_number(*factor));
         if (*factor > 2) warnings.push_back({"/settings/electricity_co2e_kg_per_kwh",
                                              "above 2 kg/kWh is more than any grid emits; check the value"});
         settings.electricity_co2e_kg_per_kwh = *factor;

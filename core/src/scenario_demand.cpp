@@ -34,23 +34,23 @@ std::array<double, 12> twelve_numbers(const json& obj, const std::string& key, c
     return out;
 }
 
-/// [kWh/year] The annual heat a scenario is evaluated for: below 1 kWh there is nothing to heat, and
-/// above 100 GWh it is no house (and costs per unit of heat would overflow or divide by almost zero).
-constexpr double min_annual_heat_kwh = 1, max_annual_heat_kwh = 1e8;
+/// [K per input degree]: 1 for degC and K, 5/9 for degF.
+double degree_size(bool fahrenheit) { return fahrenheit ? 5.0 / 9.0 : 1.0; }
+
+/// [kWh/year] The annual heat a scenario is evaluated for: below 1 kWh there is nothing to heat (and
+/// costs per unit of heat divide by almost zero); above 5,000 MWh it is not a house's.
+constexpr double min_annual_heat_kwh = 1, max_annual_heat_kwh = 5e6;
 
 /// Refuses an annual heat {value, unit} of `kwh` outside the range (from 0 when `zero_allowed`), naming it in the unit.
 void require_annual_heat(double kwh, const json& heat, const std::string& path, bool zero_allowed) {
     const double low = zero_allowed ? 0 : min_annual_heat_kwh;
     if (kwh >= low && kwh <= max_annual_heat_kwh) return;
     const auto unit = heat.at("unit").get<std::string>();
-    throw input_error(path + "/value", "must be from " + std::string(zero_allowed ? "0" : "1 kWh") + " to 100 GWh a year (" +
+    throw input_error(path + "/value", "must be from " + std::string(zero_allowed ? "0" : "1 kWh") + " to 5,000 MWh a year (" +
                                            format_number(convert(low, "kWh", unit)) + " to " +
                                            format_number(convert(max_annual_heat_kwh, "kWh", unit)) + " " + unit + "), got " +
                                            format_number(heat.at("value").get<double>()) + " " + unit);
 }
-
-/// [K per input degree]: 1 for degC and K, 5/9 for degF.
-double degree_size(bool fahrenheit) { return fahrenheit ? 5.0 / 9.0 : 1.0; }
 
 }  // namespace
 
@@ -153,7 +153,6 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         const double kwh = quantity_in(heat, "/demand/annual_useful_heat", dimension::energy, "kWh");
         if (kwh <= 0)
             throw input_error("/demand/annual_useful_heat/value", "must be > 0, got " + format_number(heat.at("value").get<double>()));
-        require_annual_heat(kwh, heat, "/demand/annual_useful_heat", false);
         out.space_heat_kwh = kwh;
         out.demand_trace.push_back("annual useful heat given directly: " + format_number(heat.at("value").get<double>()) +
                                    " " + heat.at("unit").get<std::string>() + " = " + format_fixed(kwh, 1) + " kWh");
@@ -370,9 +369,10 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         out.demand_trace.push_back("plus domestic hot water " + energy_text(out.hot_water_kwh) + " useful per year");
     }
     out.annual_useful_heat_kwh = out.space_heat_kwh + out.hot_water_kwh;
+    if (method == "direct") require_annual_heat(out.space_heat_kwh, demand.at("annual_useful_heat"), "/demand/annual_useful_heat", false);
     if (!(out.annual_useful_heat_kwh >= min_annual_heat_kwh && out.annual_useful_heat_kwh <= max_annual_heat_kwh))
         throw input_error("/demand", "the annual useful heat works out at " + format_number(out.annual_useful_heat_kwh) +
-                                         " kWh; it must be from 1 kWh to 100 GWh a year: check the demand inputs");
+                                         " kWh; it must be from 1 kWh to 5,000 MWh a year: check the demand inputs");
 }
 
 }  // namespace fw
