@@ -37,21 +37,6 @@ std::array<double, 12> twelve_numbers(const json& obj, const std::string& key, c
 /// [K per input degree]: 1 for degC and K, 5/9 for degF.
 double degree_size(bool fahrenheit) { return fahrenheit ? 5.0 / 9.0 : 1.0; }
 
-/// [kWh/year] The annual heat a scenario is evaluated for: below 1 kWh there is nothing to heat (and
-/// costs per unit of heat divide by almost zero); above 5,000 MWh it is not a house's.
-constexpr double min_annual_heat_kwh = 1, max_annual_heat_kwh = 5e6;
-
-/// Refuses an annual heat {value, unit} of `kwh` outside the range (from 0 when `zero_allowed`), naming it in the unit.
-void require_annual_heat(double kwh, const json& heat, const std::string& path, bool zero_allowed) {
-    const double low = zero_allowed ? 0 : min_annual_heat_kwh;
-    if (kwh >= low && kwh <= max_annual_heat_kwh) return;
-    const auto unit = heat.at("unit").get<std::string>();
-    throw input_error(path + "/value", "must be from " + std::string(zero_allowed ? "0" : "1 kWh") + " to 5,000 MWh a year (" +
-                                           format_number(convert(low, "kWh", unit)) + " to " +
-                                           format_number(convert(max_annual_heat_kwh, "kWh", unit)) + " " + unit + "), got " +
-                                           format_number(heat.at("value").get<double>()) + " " + unit);
-}
-
 }  // namespace
 
 climate_info read_climate(const json& climate) {
@@ -128,6 +113,25 @@ climate_info read_climate(const json& climate) {
     info.design_996_c = design_temperature(info.model, 0.004);
     return info;
 }
+
+namespace {
+
+/// [kWh/year] The annual heat a scenario is evaluated for: below 1 kWh there is nothing to heat (and
+/// costs per unit of heat divide by almost zero); above 5,000 MWh it is not a house's.
+constexpr double min_annual_heat_kwh = 1, max_annual_heat_kwh = 5e6;
+
+/// Refuses an annual heat {value, unit} of `kwh` outside the range (from 0 when `zero_allowed`), naming it in the unit.
+void require_annual_heat(double kwh, const json& heat, const std::string& path, bool zero_allowed) {
+    const double low = zero_allowed ? 0 : min_annual_heat_kwh;
+    if (kwh >= low && kwh <= max_annual_heat_kwh) return;
+    const auto unit = heat.at("unit").get<std::string>();
+    throw input_error(path + "/value", "must be from " + std::string(zero_allowed ? "0" : "1 kWh") + " to 5,000 MWh a year (" +
+                                           format_number(convert(low, "kWh", unit)) + " to " +
+                                           format_number(convert(max_annual_heat_kwh, "kWh", unit)) + " " + unit + "), got " +
+                                           format_number(heat.at("value").get<double>()) + " " + unit);
+}
+
+}  // namespace
 
 void read_demand(const json& demand, scenario& out, const json& options_json, std::vector<issue>& warnings) {
     require_object(demand, "/demand");
