@@ -131,6 +131,19 @@ void require_annual_heat(double kwh, const json& heat, const std::string& path, 
                                            format_number(heat.at("value").get<double>()) + " " + unit);
 }
 
+/// [kWh] The most fuel one bill may hold (HHV): more than a house burns in a year, whatever the efficiency.
+constexpr double max_bill_fuel_kwh = 1e7;
+
+/// Refuses a bill holding more than max_bill_fuel_kwh (its quantity in its own unit is named).
+void require_bill_size(const bill_period& bill, const json& item, const scenario_option& equipment, const std::string& path) {
+    if (bill.fuel_kwh <= max_bill_fuel_kwh) return;
+    const auto unit = item.at("unit").get<std::string>();
+    const double kwh_per_unit = heating_value_per_sale_unit(equipment.fuel, unit, equipment.sale, path + "/unit").hhv_j / 3.6e6;
+    throw input_error(path + "/quantity", "is more fuel than a house burns in a year: at most 10,000 MWh (" +
+                                              format_number(max_bill_fuel_kwh / kwh_per_unit) + " " + unit + "), got " +
+                                              format_number(item.at("quantity").get<double>()) + " " + unit);
+}
+
 }  // namespace
 
 void read_demand(const json& demand, scenario& out, const json& options_json, std::vector<issue>& warnings) {
@@ -286,6 +299,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             const auto hv = heating_value_per_sale_unit(equipment.fuel, *unit, equipment.sale, path + "/unit");
             bills.push_back({first, last, *amount * hv.hhv_j / 3.6e6});
         }
+        for (std::size_t i = 0; i < bills.size(); ++i) require_bill_size(bills[i], list[i], equipment, "/demand/bills/" + std::to_string(i));
         std::vector<std::size_t> order(bills.size());
         std::iota(order.begin(), order.end(), 0);
         std::sort(order.begin(), order.end(), [&](auto a, auto b) { return bills[a].first_day < bills[b].first_day; });

@@ -194,4 +194,13 @@ TEST(fuzz_findings, an_electricity_emission_factor_above_10_kg_per_kwh_is_refuse
     EXPECT_EQ(errors_of(scenario), strings{});
 }
 
+TEST(fuzz_findings, a_bill_of_more_fuel_than_a_house_burns_is_refused_at_its_field) {
+    // Found by a targeted probe beside the fuzzer: 1e300 L on one oil bill gave an R^2 of NaN for the fit.
+    auto scenario = bills_example();
+    scenario["demand"]["bills"][0]["quantity"] = 1e300;
+    // 10,000 MWh of heating oil at 10.72 kWh/L (the catalog's) is 932,589 L.
+    EXPECT_EQ(errors_of(scenario), strings{"/demand/bills/0/quantity: is more fuel than a house burns in a year: at most "
+                                           "10,000 MWh (932589 L), got 1e+300 L"});
+}
+
 }  // namespace
