@@ -105,6 +105,10 @@ fuel_record read_custom_fuel(const json& fuel, const std::string& path, std::vec
     for (const char* key : {"ch4_kg_per_mmbtu", "n2o_kg_per_mmbtu"})
         if (const auto value = optional_number(fuel, key, path); value && *value < 0)
             throw input_error(path + "/" + key, "must be >= 0, got " + format_number(*value));
+    for (const auto& [key, largest] : {std::pair{"ch4_kg_per_mmbtu", "0.011"}, std::pair{"n2o_kg_per_mmbtu", "0.0036"}})
+        if (const auto value = optional_number(fuel, key, path); value && *value > 1)
+            throw input_error(path + "/" + key, std::string("must be from 0 to 1 kg per MMBtu (the catalog's largest is ") +
+                                                    largest + "), got " + format_number(*value));
     const auto reference = optional_string(fuel, "reference", path).value_or("15C");
     find_reference(reference, path + "/reference");
     const int kinds = int(fuel.contains("formula")) + int(fuel.contains("mixture")) + int(fuel.contains("ultimate"));

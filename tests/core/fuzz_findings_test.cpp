@@ -203,4 +203,18 @@ TEST(fuzz_findings, a_bill_of_more_fuel_than_a_house_burns_is_refused_at_its_fie
                                            "10,000 MWh (932589 L), got 1e+300 L"});
 }
 
+TEST(fuzz_findings, a_custom_fuel_emission_factor_above_1_kg_per_mmbtu_is_refused_at_its_field) {
+    // Found by the fuzzer (tools/fuzz --runs 1000000 scenario, after 6,296 runs): farm biogas with
+    // 1.8e308 kg N2O per MMBtu gave an Infinity CO2e.
+    const json biogas = {{"id", "farm-biogas"}, {"mixture", "CH4:0.60,CO2:0.39,N2:0.01"}, {"sale_unit", "m3"}};
+    auto fuel = biogas;
+    fuel["n2o_kg_per_mmbtu"] = 1.7976931348623157e308;
+    EXPECT_EQ(errors_of(gas_scenario({{"fuel", fuel}, {"price", {{"per", "m3"}}}})),
+              strings{"/options/0/fuel/n2o_kg_per_mmbtu: must be from 0 to 1 kg per MMBtu (the catalog's largest is 0.0036), "
+                      "got 1.79769e+308"});
+    fuel = biogas;
+    fuel["ch4_kg_per_mmbtu"] = 1;
+    EXPECT_EQ(errors_of(gas_scenario({{"fuel", fuel}, {"price", {{"per", "m3"}}}})), strings{});
+}
+
 }  // namespace
