@@ -182,6 +182,14 @@ double read_power_kw(const json& value, const std::string& path) {
     return quantity_in(value, path, dimension::power, "kW");
 }
 
+/// Refuses a heat pump capacity {value, unit} above 1000 kW (no house's; sums over bins could overflow).
+void require_heat_pump_capacity(double kw, const json& capacity, const std::string& path) {
+    if (kw <= 1000) return;
+    const auto unit = capacity.at("unit").get<std::string>();
+    throw input_error(path, "a house's heat pump delivers at most 1000 kW (" + format_number(convert(1000, "kW", unit)) + " " +
+                                unit + "), got " + format_number(capacity.at("value").get<double>()) + " " + unit);
+}
+
 void read_heat_pump_fields(const json& system, const std::string& path, scenario_option& option) {
     const bool heat_pump = is_heat_pump(option.system.kind);
     for (const char* key : {"ratings", "cutoff", "cd", "backup", "changeover", "capacity"}) {
@@ -207,6 +215,9 @@ void read_heat_pump_fields(const json& system, const std::string& path, scenario
                 throw input_error(point_path + "/capacity/value", "must be > 0, got " + format_number(entry.capacity_kw));
             if (entry.cop < 1)
                 throw input_error(point_path + "/cop", "a heat pump's COP cannot be below 1, got " + format_number(entry.cop));
+            if (entry.cop > 15)
+                throw input_error(point_path + "/cop", "must be from 1 to 15 (data sheets give 1.5 to 6), got " + format_number(entry.cop));
+            require_heat_pump_capacity(entry.capacity_kw, point.at("capacity"), point_path + "/capacity/value");
             for (const auto& other : option.ratings)
                 if (std::fabs(other.outdoor_c - entry.outdoor_c) < 1e-9)
                     throw input_error(point_path + "/outdoor", "two data-sheet points at the same outdoor temperature");
@@ -232,6 +243,7 @@ void read_heat_pump_fields(const json& system, const std::string& path, scenario
     if (system.contains("capacity")) {
         option.capacity_47_kw = read_power_kw(system.at("capacity"), path + "/capacity");
         if (*option.capacity_47_kw <= 0) throw input_error(path + "/capacity/value", "must be > 0");
+        require_heat_pump_capacity(*option.capacity_47_kw, system.at("capacity"), path + "/capacity/value");
     }
 }
 

@@ -15,9 +15,14 @@ using namespace json_fields;
 
 namespace {
 
-/// [degC] from a {value, unit} temperature.
+/// [degC] from a {value, unit} temperature, which must lie from -100 to 100 degC (no weather or room is outside it).
 double temperature_c(const json& obj, const std::string& path) {
-    return quantity_in(obj, path, dimension::temperature, "degC");
+    const double c = quantity_in(obj, path, dimension::temperature, "degC");
+    if (c < -100 || c > 100)
+        throw input_error(path + "/value", "is not a plausible temperature: it must lie from -100 to 100 degC (-148 to 212 "
+                                           "degF), got " + format_number(obj.at("value").get<double>()) + " " +
+                                           obj.at("unit").get<std::string>());
+    return c;
 }
 
 std::array<double, 12> twelve_numbers(const json& obj, const std::string& key, const std::string& path) {
@@ -189,10 +194,16 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
                 throw input_error("/demand/ua/unit", "must be W/K or Btu/h/degF, got \"" + unit + "\"");
             ua = unit == "W/K" ? *number : *number * constants::joule_per_btu / 3600.0 * 9.0 / 5.0;
             if (ua <= 0) throw input_error("/demand/ua/value", "must be > 0, got " + format_number(*number));
+            if (ua > 2e5)
+                throw input_error("/demand/ua/value", "a house's UA is at most 200000 W/K (379000 Btu/h/degF), got " +
+                                                          format_number(*number) + " " + unit);
             out.demand_trace.push_back("UA " + format_number(*number) + " " + unit + " = " + format_fixed(ua, 1) + " W/K");
         } else if (demand.contains("design_heat_loss")) {
             const double watts = quantity_in(demand.at("design_heat_loss"), "/demand/design_heat_loss", dimension::power, "W");
             if (watts <= 0) throw input_error("/demand/design_heat_loss/value", "must be > 0");
+            if (watts > 1e6)
+                throw input_error("/demand/design_heat_loss/value", "a house's design heat loss is at most 1000 kW (3.41214e+06 "
+                                                                    "Btu/h), got " + format_number(watts / 1000) + " kW");
             if (!indoor_c) throw input_error("/demand/indoor", "is required with design_heat_loss");
             const double outdoor_c = demand.contains("design_outdoor")
                                          ? temperature_c(demand.at("design_outdoor"), "/demand/design_outdoor")

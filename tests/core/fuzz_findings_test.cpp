@@ -61,8 +61,10 @@ TEST(fuzz_findings, an_annual_heat_out_of_range_is_refused_at_its_field) {
     scenario["demand"]["annual_useful_heat"] = {{"value", 60}, {"unit", "MMBtu"}};
     // 1e300 MMBtu of hot water is Infinity in kWh; it was written into the result before it was refused.
     scenario["demand"]["hot_water"] = {{"value", 1e300}, {"unit", "MMBtu"}};
+    EXPECT_EQ(errors_of(scenario), strings{"/demand/hot_water/value: 1e+300 MMBtu is too large to convert to kWh"});
+    scenario["demand"]["hot_water"] = {{"value", 1e300}, {"unit", "kWh"}};
     EXPECT_EQ(errors_of(scenario), strings{"/demand/hot_water/value: must be from 0 to 5,000 MWh a year "
-                                           "(0 to 17060.7 MMBtu), got 1e+300 MMBtu"});
+                                           "(0 to 5e+06 kWh), got 1e+300 kWh"});
     // Worked out from a heat loss: 0.001 W/K x 2900 K day x 24 h / 1000 = 0.0696 kWh a year.
     scenario["demand"] = {{"method", "heat-loss"}, {"ua", {{"value", 0.001}, {"unit", "W/K"}}}};
     scenario["climate"] = {{"unit", "degC"}, {"annual_hdd", 2900}, {"design_temperature", {{"value", -10}, {"unit", "degC"}}}};
@@ -70,13 +72,16 @@ TEST(fuzz_findings, an_annual_heat_out_of_range_is_refused_at_its_field) {
                                            "to 5,000 MWh a year: check the demand inputs"});
 }
 
-/// The bills example (data/examples/fjordvik-oil-bills.json, twelve monthly oil bills) as JSON.
-json bills_example() {
-    std::ifstream file("data/examples/fjordvik-oil-bills.json");
+/// An example scenario of data/examples/ as JSON.
+json example(const std::string& name) {
+    std::ifstream file("data/examples/" + name);
     std::stringstream text;
     text << file.rdbuf();
     return json::parse(text.str());
 }
+
+/// The bills example (data/examples/fjordvik-oil-bills.json, twelve monthly oil bills) as JSON.
+json bills_example() { return example("fjordvik-oil-bills.json"); }
 
 TEST(fuzz_findings, a_bill_of_many_years_is_refused_instead_of_hanging) {
     // Near-hang: a bill from 0001-01-01 made the weather fit walk its 739,282 days for each of its 141
@@ -215,6 +220,54 @@ TEST(fuzz_findings, a_custom_fuel_emission_factor_above_1_kg_per_mmbtu_is_refuse
     fuel = biogas;
     fuel["ch4_kg_per_mmbtu"] = 1;
     EXPECT_EQ(errors_of(gas_scenario({{"fuel", fuel}, {"price", {{"per", "m3"}}}})), strings{});
+}
+
+TEST(fuzz_findings, a_quantity_too_large_to_convert_is_refused_at_its_field) {
+    // Found by a sweep of every number in the examples set to 1e300 and 1.8e308 (a targeted probe beside
+    // the fuzzer): the conversion to the core's unit overflowed to Infinity, which reached the result.
+    auto scenario = example("maple-hollow-gas-vs-heat-pump.json");
+    scenario["demand"]["annual_useful_heat"]["value"] = 1e300;
+    EXPECT_EQ(errors_of(scenario), strings{"/demand/annual_useful_heat/value: 1e+300 MMBtu is too large to convert to kWh"});
+    scenario = example("maple-hollow-heat-pump-bins.json");
+    // A base temperature of 1.8e308 degF converts, but the degree-days of the year came out as Infinity.
+    scenario["climate"]["base"]["value"] = 1.7976931348623157e308;
+    EXPECT_EQ(errors_of(scenario), (strings{"/climate/base/value: is not a plausible temperature: it must lie from -100 to "
+                                            "100 degC (-148 to 212 degF), got 1.79769e+308 degF",
+                                            "/climate: is required for the heat-loss method (degree-days come from it)"}));
+    // So did a design heat loss of 1.8e308 Btu/h (the annual heat), and a UA of 1e300 W/K.
+    scenario = example("maple-hollow-heat-pump-bins.json");
+    scenario["demand"]["design_heat_loss"]["value"] = 1.7976931348623157e308;
+    EXPECT_EQ(errors_of(scenario), strings{"/demand/design_heat_loss/value: a house's design heat loss is at most 1000 kW "
+                                           "(3.41214e+06 Btu/h), got 5.26852e+304 kW"});
+    scenario["demand"].erase("design_heat_loss");
+    scenario["demand"]["ua"] = {{"value", 1e300}, {"unit", "W/K"}};
+    EXPECT_EQ(errors_of(scenario), strings{"/demand/ua/value: a house's UA is at most 200000 W/K (379000 Btu/h/degF), got "
+                                           "1e+300 W/K"});
+}
+
+TEST(fuzz_findings, heat_pump_data_sheet_points_out_of_range_are_refused_at_their_field) {
+    // Found by the same sweep: a data-sheet COP of 1.8e308 gave an Infinity bin COP, and a capacity of
+    // 1.8e308 Btu/h a NaN annual cost.
+    auto scenario = example("maple-hollow-heat-pump-bins.json");
+    scenario["options"][1]["system"]["ratings"][0]["cop"] = 1.7976931348623157e308;
+    EXPECT_EQ(errors_of(scenario), strings{"/options/1/system/ratings/0/cop: must be from 1 to 15 (data sheets give 1.5 to 6), "
+                                           "got 1.79769e+308"});
+    scenario = example("maple-hollow-heat-pump-bins.json");
+    scenario["options"][1]["system"]["ratings"][0]["capacity"]["value"] = 1e300;
+    EXPECT_EQ(errors_of(scenario), strings{"/options/1/system/ratings/0/capacity/value: a house's heat pump delivers at most "
+                                           "1000 kW (3.41214e+06 Btu/h), got 1e+300 Btu/h"});
+    scenario["options"][1]["system"]["ratings"][0]["capacity"]["value"] = 1.7976931348623157e308;
+    EXPECT_EQ(errors_of(scenario), strings{"/options/1/system/ratings/0/capacity/value: a house's heat pump delivers at most "
+                                           "1000 kW (3.41214e+06 Btu/h), got 1.79769e+308 Btu/h"});
+}
+
+TEST(fuzz_findings, a_custom_fuel_density_out_of_range_is_refused_at_its_field) {
+    // Found by the same sweep: a density of 1.8e308 kg/L gave an Infinity heating value per litre.
+    auto scenario = example("custom-fuels.json");
+    ASSERT_TRUE(scenario["options"][2]["fuel"].contains("density_kg_per_l"));
+    scenario["options"][2]["fuel"]["density_kg_per_l"] = 1.7976931348623157e308;
+    EXPECT_EQ(errors_of(scenario), strings{"/options/2/fuel/density_kg_per_l: must be from 0.1 to 5 kg/L (liquid fuels are 0.5 "
+                                           "to 1), got 1.79769e+308"});
 }
 
 }  // namespace
