@@ -213,11 +213,11 @@ void read_heat_pump_fields(const json& system, const std::string& path, scenario
                                   required_number(point, "cop", point_path)};
             if (entry.capacity_kw <= 0)
                 throw input_error(point_path + "/capacity/value", "must be > 0, got " + format_number(entry.capacity_kw));
-            if (entry.cop < 1)
-                throw input_error(point_path + "/cop", "a heat pump's COP cannot be below 1, got " + format_number(entry.cop));
             if (entry.cop > 15)
                 throw input_error(point_path + "/cop", "must be from 1 to 15 (data sheets give 1.5 to 6), got " + format_number(entry.cop));
             require_heat_pump_capacity(entry.capacity_kw, point.at("capacity"), point_path + "/capacity/value");
+            if (entry.cop < 1)
+                throw input_error(point_path + "/cop", "a heat pump's COP cannot be below 1, got " + format_number(entry.cop));
             for (const auto& other : option.ratings)
                 if (std::fabs(other.outdoor_c - entry.outdoor_c) < 1e-9)
                     throw input_error(point_path + "/outdoor", "two data-sheet points at the same outdoor temperature");
