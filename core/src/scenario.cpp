@@ -44,8 +44,8 @@ void require_at_most_max_amount(double amount, const std::string& path) {
 void require_near_catalog(double value, double catalog, const std::string& unit, const std::string& path) {
     if (value >= catalog / 10 && value <= catalog * 10) return;
     throw input_error(path, "must be within a factor of 10 of the catalog's " + format_number(catalog) + " " + unit +
-                                ": from " + format_number(catalog / 10) + " to " + format_number(catalog * 10) + ", got " +
-                                format_number(value));
+                                ": from " + format_number(catalog / 10) + " to " + format_number(catalog * 10) +
+                                ", got " + format_number(value));
 }
 
 /// Reads "Btu/therm" style text: energy unit / sale unit.
@@ -107,8 +107,9 @@ fuel_record read_custom_fuel(const json& fuel, const std::string& path, std::vec
             throw input_error(path + "/" + key, "must be >= 0, got " + format_number(*value));
     for (const auto& [key, largest] : {std::pair{"ch4_kg_per_mmbtu", "0.011"}, std::pair{"n2o_kg_per_mmbtu", "0.0036"}})
         if (const auto value = optional_number(fuel, key, path); value && *value > 1)
-            throw input_error(path + "/" + key, std::string("must be from 0 to 1 kg per MMBtu (the catalog's largest is ") +
-                                                    largest + "), got " + format_number(*value));
+            throw input_error(path + "/" + key,
+                              std::string("must be from 0 to 1 kg per MMBtu (the catalog's largest is ") + largest +
+                                  "), got " + format_number(*value));
     const auto reference = optional_string(fuel, "reference", path).value_or("15C");
     find_reference(reference, path + "/reference");
     const int kinds = int(fuel.contains("formula")) + int(fuel.contains("mixture")) + int(fuel.contains("ultimate"));
@@ -186,8 +187,9 @@ double read_power_kw(const json& value, const std::string& path) {
 void require_heat_pump_capacity(double kw, const json& capacity, const std::string& path) {
     if (kw <= 1000) return;
     const auto unit = capacity.at("unit").get<std::string>();
-    throw input_error(path, "a house's heat pump delivers at most 1000 kW (" + format_number(convert(1000, "kW", unit)) + " " +
-                                unit + "), got " + format_number(capacity.at("value").get<double>()) + " " + unit);
+    throw input_error(path, "a house's heat pump delivers at most 1000 kW (" +
+                                format_number(convert(1000, "kW", unit)) + " " + unit + "), got " +
+                                format_number(capacity.at("value").get<double>()) + " " + unit);
 }
 
 void read_heat_pump_fields(const json& system, const std::string& path, scenario_option& option) {
@@ -214,7 +216,8 @@ void read_heat_pump_fields(const json& system, const std::string& path, scenario
             if (entry.capacity_kw <= 0)
                 throw input_error(point_path + "/capacity/value", "must be > 0, got " + format_number(entry.capacity_kw));
             if (entry.cop > 15)
-                throw input_error(point_path + "/cop", "must be from 1 to 15 (data sheets give 1.5 to 6), got " + format_number(entry.cop));
+                throw input_error(point_path + "/cop",
+                                  "must be from 1 to 15 (data sheets give 1.5 to 6), got " + format_number(entry.cop));
             require_heat_pump_capacity(entry.capacity_kw, point.at("capacity"), point_path + "/capacity/value");
             if (entry.cop < 1)
                 throw input_error(point_path + "/cop", "a heat pump's COP cannot be below 1, got " + format_number(entry.cop));
@@ -324,15 +327,18 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
         if (value <= 0) throw input_error(path + "/bag_mass/value", "must be > 0, got " + format_number(value));
         const double kg = convert(value, unit, "kg", path + "/bag_mass/value");
         if (kg < 1 || kg > 2000)
-            throw input_error(path + "/bag_mass/value", "a bag must hold from 1 to 2000 kg (" + format_number(convert(1, "kg", unit)) +
-                                                            " to " + format_number(convert(2000, "kg", unit)) + " " + unit +
+            throw input_error(path + "/bag_mass/value", "a bag must hold from 1 to 2000 kg (" +
+                                                            format_number(convert(1, "kg", unit)) + " to " +
+                                                            format_number(convert(2000, "kg", unit)) + " " + unit +
                                                             "), got " + format_number(value) + " " + unit);
         option.sale.bag_mass_kg = kg;
     }
     if (const auto fraction = optional_number(item, "face_cord_fraction", path)) {
         if (!(*fraction >= 0.1 && *fraction <= 1))
-            throw input_error(path + "/face_cord_fraction", "must be a fraction of a cord from 0.1 to 1 (a face cord is "
-                                                            "usually 1/3 of a cord), got " + format_number(*fraction));
+            throw input_error(path + "/face_cord_fraction",
+                              "must be a fraction of a cord from 0.1 to 1 (a face cord is "
+                              "usually 1/3 of a cord), got " +
+                                  format_number(*fraction));
         option.sale.face_cord_fraction = fraction;
     }
     option.sale.wood_species = optional_string(item, "wood_species", path);
@@ -424,7 +430,8 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
         const auto given_unit = heating_value_per_sale_unit(option.fuel, sale_unit, option.sale, hv_path + "/unit");
         const auto priced_unit = heating_value_per_sale_unit(option.fuel, option.price_unit, option.sale, hv_path);
         const double catalog_j = given_unit.hhv_j * (basis == "LHV" ? option.fuel.lhv_over_hhv : 1.0);
-        require_near_catalog(value, convert(catalog_j, "J", energy_unit), unit_text + " (" + basis + ")", hv_path + "/value");
+        require_near_catalog(value, convert(catalog_j, "J", energy_unit), unit_text + " (" + basis + ")",
+                             hv_path + "/value");
         double j_per_given = convert(value, energy_unit, "J", hv_path + "/value");
         if (basis == "LHV") j_per_given /= option.fuel.lhv_over_hhv;
         option.heating_value_override_j = j_per_given * priced_unit.hhv_j / given_unit.hhv_j;
@@ -463,8 +470,9 @@ scenario_settings read_settings(const json& document, std::vector<issue>& warnin
         if (*factor < 0)
             throw input_error("/settings/electricity_co2e_kg_per_kwh", "must be >= 0, got " + format_number(*factor));
         if (*factor > 10)
-            throw input_error("/settings/electricity_co2e_kg_per_kwh",
-                              "must be from 0 to 10 kg CO2e per kWh (coal-fired power emits about 1), got " + format_number(*factor));
+            throw input_error(
+                "/settings/electricity_co2e_kg_per_kwh",
+                "must be from 0 to 10 kg CO2e per kWh (coal-fired power emits about 1), got " + format_number(*factor));
         if (*factor > 2) warnings.push_back({"/settings/electricity_co2e_kg_per_kwh",
                                              "above 2 kg/kWh is more than any grid emits; check the value"});
         settings.electricity_co2e_kg_per_kwh = *factor;
@@ -482,8 +490,11 @@ scenario_settings read_settings(const json& document, std::vector<issue>& warnin
 double read_rate(const json& obj, const std::string& key, const std::string& path, double fallback) {
     const auto value = optional_number(obj, key, path);
     if (!value) return fallback;
-    if (*value < -0.5) throw input_error(path + "/" + key, "a rate must be from -50 % to 100 % per year (-0.5 to 1 as "
-                                                               "fractions), got " + format_number(*value));
+    if (*value < -0.5)
+        throw input_error(path + "/" + key,
+                          "a rate must be from -50 % to 100 % per year (-0.5 to 1 as "
+                          "fractions), got " +
+                              format_number(*value));
     if (*value > 1) throw input_error(path + "/" + key, "rates are fractions per year (0.05 for 5 %); got " + format_number(*value));
     return *value;
 }

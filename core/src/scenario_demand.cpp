@@ -19,9 +19,9 @@ namespace {
 double temperature_c(const json& obj, const std::string& path) {
     const double c = quantity_in(obj, path, dimension::temperature, "degC");
     if (c < -100 || c > 100)
-        throw input_error(path + "/value", "is not a plausible temperature: it must lie from -100 to 100 degC (-148 to 212 "
-                                           "degF), got " + format_number(obj.at("value").get<double>()) + " " +
-                                           obj.at("unit").get<std::string>());
+        throw input_error(path + "/value",
+                          "is not a plausible temperature: it must lie from -100 to 100 degC (-148 to 212 degF), got " +
+                              format_number(obj.at("value").get<double>()) + " " + obj.at("unit").get<std::string>());
     return c;
 }
 
@@ -130,20 +130,23 @@ void require_annual_heat(double kwh, const json& heat, const std::string& path, 
     const double low = zero_allowed ? 0 : min_annual_heat_kwh;
     if (kwh >= low && kwh <= max_annual_heat_kwh) return;
     const auto unit = heat.at("unit").get<std::string>();
-    throw input_error(path + "/value", "must be from " + std::string(zero_allowed ? "0" : "1 kWh") + " to 5,000 MWh a year (" +
-                                           format_number(convert(low, "kWh", unit)) + " to " +
-                                           format_number(convert(max_annual_heat_kwh, "kWh", unit)) + " " + unit + "), got " +
-                                           format_number(heat.at("value").get<double>()) + " " + unit);
+    throw input_error(path + "/value", "must be from " + std::string(zero_allowed ? "0" : "1 kWh") +
+                                           " to 5,000 MWh a year (" + format_number(convert(low, "kWh", unit)) +
+                                           " to " + format_number(convert(max_annual_heat_kwh, "kWh", unit)) + " " +
+                                           unit + "), got " + format_number(heat.at("value").get<double>()) + " " +
+                                           unit);
 }
 
 /// [kWh] The most fuel one bill may hold (HHV): more than a house burns in a year, whatever the efficiency.
 constexpr double max_bill_fuel_kwh = 1e7;
 
 /// Refuses a bill holding more than max_bill_fuel_kwh (its quantity in its own unit is named).
-void require_bill_size(const bill_period& bill, const json& item, const scenario_option& equipment, const std::string& path) {
+void require_bill_size(const bill_period& bill, const json& item, const scenario_option& equipment,
+                       const std::string& path) {
     if (bill.fuel_kwh <= max_bill_fuel_kwh) return;
     const auto unit = item.at("unit").get<std::string>();
-    const double kwh_per_unit = heating_value_per_sale_unit(equipment.fuel, unit, equipment.sale, path + "/unit").hhv_j / 3.6e6;
+    const double kwh_per_unit =
+        heating_value_per_sale_unit(equipment.fuel, unit, equipment.sale, path + "/unit").hhv_j / 3.6e6;
     throw input_error(path + "/quantity", "is more fuel than a house burns in a year: at most 10,000 MWh (" +
                                               format_number(max_bill_fuel_kwh / kwh_per_unit) + " " + unit + "), got " +
                                               format_number(item.at("quantity").get<double>()) + " " + unit);
@@ -202,8 +205,9 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             const double watts = quantity_in(demand.at("design_heat_loss"), "/demand/design_heat_loss", dimension::power, "W");
             if (watts <= 0) throw input_error("/demand/design_heat_loss/value", "must be > 0");
             if (watts > 1e6)
-                throw input_error("/demand/design_heat_loss/value", "a house's design heat loss is at most 1000 kW (3.41214e+06 "
-                                                                    "Btu/h), got " + format_number(watts / 1000) + " kW");
+                throw input_error("/demand/design_heat_loss/value",
+                                  "a house's design heat loss is at most 1000 kW (3.41214e+06 Btu/h), got " +
+                                      format_number(watts / 1000) + " kW");
             if (!indoor_c) throw input_error("/demand/indoor", "is required with design_heat_loss");
             const double outdoor_c = demand.contains("design_outdoor")
                                          ? temperature_c(demand.at("design_outdoor"), "/demand/design_outdoor")
@@ -300,7 +304,8 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             if (last < first)
                 throw input_error(path + "/end", "the period " + *start + " to " + *end + " has no days (it ends before it starts)");
             if (last - first > 366)
-                throw input_error(path + "/end", "the period " + *start + " to " + *end + " spans " + std::to_string(last - first) +
+                throw input_error(path + "/end", "the period " + *start + " to " + *end + " spans " +
+                                                     std::to_string(last - first) +
                                                      " days; a bill covers at most a year (split a longer period)");
             const auto amount = optional_number(item, "quantity", path);
             if (!amount) throw input_error(path + "/quantity", "is required (a number)");
@@ -310,7 +315,8 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             const auto hv = heating_value_per_sale_unit(equipment.fuel, *unit, equipment.sale, path + "/unit");
             bills.push_back({first, last, *amount * hv.hhv_j / 3.6e6});
         }
-        for (std::size_t i = 0; i < bills.size(); ++i) require_bill_size(bills[i], list[i], equipment, "/demand/bills/" + std::to_string(i));
+        for (std::size_t i = 0; i < bills.size(); ++i)
+            require_bill_size(bills[i], list[i], equipment, "/demand/bills/" + std::to_string(i));
         std::vector<std::size_t> order(bills.size());
         std::iota(order.begin(), order.end(), 0);
         std::sort(order.begin(), order.end(), [&](auto a, auto b) { return bills[a].first_day < bills[b].first_day; });
@@ -398,9 +404,11 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         out.demand_trace.push_back("plus domestic hot water " + energy_text(out.hot_water_kwh) + " useful per year");
     }
     out.annual_useful_heat_kwh = out.space_heat_kwh + out.hot_water_kwh;
-    if (method == "direct") require_annual_heat(out.space_heat_kwh, demand.at("annual_useful_heat"), "/demand/annual_useful_heat", false);
+    if (method == "direct")
+        require_annual_heat(out.space_heat_kwh, demand.at("annual_useful_heat"), "/demand/annual_useful_heat", false);
     if (!(out.annual_useful_heat_kwh >= min_annual_heat_kwh && out.annual_useful_heat_kwh <= max_annual_heat_kwh))
-        throw input_error("/demand", "the annual useful heat works out at " + format_number(out.annual_useful_heat_kwh) +
+        throw input_error("/demand", "the annual useful heat works out at " +
+                                         format_number(out.annual_useful_heat_kwh) +
                                          " kWh; it must be from 1 kWh to 5,000 MWh a year: check the demand inputs");
 }
 

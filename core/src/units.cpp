@@ -97,7 +97,8 @@ double convert(double value, std::string_view from, std::string_view to, const s
         throw input_error(path, format_number(value) + " " + std::string(from) + " is below absolute zero");
     const double out = (si - target.si_offset) / target.si_factor;
     if (!std::isfinite(out))
-        throw input_error(path, format_number(value) + " " + std::string(from) + " is too large to convert to " + std::string(to));
+        throw input_error(
+            path, format_number(value) + " " + std::string(from) + " is too large to convert to " + std::string(to));
     return out;
 }
 

@@ -5,8 +5,8 @@
 #include <cstdint>
 #include <cstdio>
 #include <cstdlib>
-#include <nlohmann/json.hpp>
 #include <functional>
+#include <nlohmann/json.hpp>
 #include <string>
 
 #include "fw/api.hpp"
@@ -42,8 +42,8 @@ nlohmann::json checked_output(const char* entry, const std::string& output) {
         if (!result.contains(list)) continue;
         if (!result.at(list).is_array()) fail(entry, "warnings is not an array", output);
         for (const auto& item : result.at(list)) {
-            if (!item.is_object() || !item.contains("path") || !item.contains("message") || !item.at("path").is_string() ||
-                !item.at("message").is_string())
+            if (!item.is_object() || !item.contains("path") || !item.contains("message") ||
+                !item.at("path").is_string() || !item.at("message").is_string())
                 fail(entry, "an issue is not {path, message}", output);
             if (item.at("message").get<std::string>().find("internal error") != std::string::npos)
                 fail(entry, "internal error", output);
@@ -82,7 +82,8 @@ void check_scenario(const std::string& text) {
             checked_output("sweep_json", fw::sweep_json(request.dump()));
             break;
         default:
-            checked_output("tornado_json", fw::tornado_json(nlohmann::json{{"scenario", scenario}, {"basis", basis}}.dump()));
+            checked_output("tornado_json",
+                           fw::tornado_json(nlohmann::json{{"scenario", scenario}, {"basis", basis}}.dump()));
     }
 }
 #endif

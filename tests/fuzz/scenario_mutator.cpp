@@ -62,7 +62,9 @@ void load_seeds(const std::vector<std::string>& args) {
 }
 
 /// A uniformly drawn index below `n` (n > 0).
-std::size_t pick(random_engine& rng, std::size_t n) { return std::uniform_int_distribution<std::size_t>(0, n - 1)(rng); }
+std::size_t pick(random_engine& rng, std::size_t n) {
+    return std::uniform_int_distribution<std::size_t>(0, n - 1)(rng);
+}
 
 /// One of the listed values, drawn uniformly.
 template <typename T>
@@ -90,21 +92,28 @@ void collect_strings(const json& node, std::vector<std::string>& out) {
 /// The unit spellings a user might type (and some a user might mistype), beside those in the document.
 const std::vector<std::string>& known_units() {
     static const std::vector<std::string> units = {
-        "therm", "ccf",   "Ccf",  "mcf",  "m3",   "kWh",   "MWh", "Wh",   "gal",   "L",     "l",      "MMBtu",
-        "Btu",   "kBtu",  "MJ",   "GJ",   "J",    "degF",  "degC", "K",   "F",     "C",     "USD",    "EUR",
-        "CAD",   "usd",   "cord", "face-cord",    "ton",  "tonne", "kg",  "lb",    "bag",   "short-ton", "Btu/therm",
-        "MJ/m3", "Btu/gal", "kWh/kg", "kW", "Btu/h", "W/K", "month", "year", "HSPF", "HSPF2", "COP", "AFUE",
-        "thermal", "seasonal-ncv", "seasonal-gcv", "us", "metric", "mole", "mass", "HHV", "LHV", "annual",
-        "life-cycle", "real", "nominal", "triangular", "lognormal"};
+        "therm",      "ccf",      "Ccf",        "mcf",          "m3",
+        "kWh",        "MWh",      "Wh",         "gal",          "L",
+        "l",          "MMBtu",    "Btu",        "kBtu",         "MJ",
+        "GJ",         "J",        "degF",       "degC",         "K",
+        "F",          "C",        "USD",        "EUR",          "CAD",
+        "usd",        "cord",     "face-cord",  "ton",          "tonne",
+        "kg",         "lb",       "bag",        "short-ton",    "Btu/therm",
+        "MJ/m3",      "Btu/gal",  "kWh/kg",     "kW",           "Btu/h",
+        "W/K",        "month",    "year",       "HSPF",         "HSPF2",
+        "COP",        "AFUE",     "thermal",    "seasonal-ncv", "seasonal-gcv",
+        "us",         "metric",   "mole",       "mass",         "HHV",
+        "LHV",        "annual",   "life-cycle", "real",         "nominal",
+        "triangular", "lognormal"};
     return units;
 }
 
 /// Malformed or edge-of-calendar dates.
 const std::vector<std::string>& odd_dates() {
-    static const std::vector<std::string> dates = {"2026-02-29", "2024-02-29", "2026-02-30", "2026-13-01", "2026-00-10",
-                                                   "2026-04-31", "2026-1-5",   "26-01-01",   "0000-00-00", "9999-12-31",
-                                                   "1900-01-01", "2026/01/05", "2026-01",    "2026-01-01T00:00", "",
-                                                   "2026-12-32", "-2026-01-01", "20260105",  "2026-01-01 ", "1969-12-31"};
+    static const std::vector<std::string> dates = {
+        "2026-02-29", "2024-02-29", "2026-02-30",  "2026-13-01", "2026-00-10",  "2026-04-31", "2026-1-5",
+        "26-01-01",   "0000-00-00", "9999-12-31",  "1900-01-01", "2026/01/05",  "2026-01",    "2026-01-01T00:00",
+        "",           "2026-12-32", "-2026-01-01", "20260105",   "2026-01-01 ", "1969-12-31"};
     return dates;
 }
 
@@ -144,26 +153,46 @@ std::string shift_date(const std::string& text, int days, int months) {
 json mutate_number(const json& value, random_engine& rng) {
     const double x = value.get<double>();
     switch (pick(rng, 20)) {
-        case 0: return 0;
-        case 1: return -x;
-        case 2: return x * 1e-9;
-        case 3: return x * 1e9;
-        case 4: return x * 10;
-        case 5: return x * 0.01;
-        case 6: return x + 1;
-        case 7: return x - 1;
-        case 8: return pick_from(rng, std::vector<double>{1e300, 1.7976931348623157e308, 1e18, 2147483648.0, 9.3e15});
-        case 9: return pick_from(rng, std::vector<double>{1e-300, 4.9e-324, 1e-12, 2.2250738585072014e-308});
-        case 10: return x / 100;  // a percentage typed as a fraction (95 -> 0.95)
-        case 11: return x * 100;  // a fraction typed as a percentage (0.95 -> 95)
-        case 12: return std::floor(x);
-        case 13: return x + 0.5;
-        case 14: return -1e-9;
-        case 15: return static_cast<std::int64_t>(pick(rng, 500)) - 50;
-        case 16: return x * (1 + 1e-12);
-        case 17: return std::nextafter(x, pick(rng, 2) ? 1e308 : -1e308);
-        case 18: return -0.0;
-        default: return x * 1e-3;
+        case 0:
+            return 0;
+        case 1:
+            return -x;
+        case 2:
+            return x * 1e-9;
+        case 3:
+            return x * 1e9;
+        case 4:
+            return x * 10;
+        case 5:
+            return x * 0.01;
+        case 6:
+            return x + 1;
+        case 7:
+            return x - 1;
+        case 8:
+            return pick_from(rng, std::vector<double>{1e300, 1.7976931348623157e308, 1e18, 2147483648.0, 9.3e15});
+        case 9:
+            return pick_from(rng, std::vector<double>{1e-300, 4.9e-324, 1e-12, 2.2250738585072014e-308});
+        case 10:
+            return x / 100;  // a percentage typed as a fraction (95 -> 0.95)
+        case 11:
+            return x * 100;  // a fraction typed as a percentage (0.95 -> 95)
+        case 12:
+            return std::floor(x);
+        case 13:
+            return x + 0.5;
+        case 14:
+            return -1e-9;
+        case 15:
+            return static_cast<std::int64_t>(pick(rng, 500)) - 50;
+        case 16:
+            return x * (1 + 1e-12);
+        case 17:
+            return std::nextafter(x, pick(rng, 2) ? 1e308 : -1e308);
+        case 18:
+            return -0.0;
+        default:
+            return x * 1e-3;
     }
 }
 
@@ -172,21 +201,30 @@ json mutate_string(const json& value, const std::vector<std::string>& document_s
     const auto text = value.get<std::string>();
     if (is_date(text) && pick(rng, 4) != 0) {
         switch (pick(rng, 4)) {
-            case 0: return shift_date(text, static_cast<int>(pick(rng, 800)) - 400, 0);
-            case 1: return shift_date(text, 0, static_cast<int>(pick(rng, 48)) - 24);
-            case 2: return shift_date(text, pick(rng, 2) ? 1 : -1, 0);
-            default: return pick_from(rng, odd_dates());
+            case 0:
+                return shift_date(text, static_cast<int>(pick(rng, 800)) - 400, 0);
+            case 1:
+                return shift_date(text, 0, static_cast<int>(pick(rng, 48)) - 24);
+            case 2:
+                return shift_date(text, pick(rng, 2) ? 1 : -1, 0);
+            default:
+                return pick_from(rng, odd_dates());
         }
     }
     switch (pick(rng, 12)) {
         case 0:
         case 1:
-        case 2: return pick_from(rng, document_strings);  // ids, fuels and units of this scenario swapped
+        case 2:
+            return pick_from(rng, document_strings);  // ids, fuels and units of this scenario swapped
         case 3:
-        case 4: return pick_from(rng, known_units());
-        case 5: return "";
-        case 6: return text.substr(0, pick(rng, text.size() + 1));
-        case 7: return text + text;
+        case 4:
+            return pick_from(rng, known_units());
+        case 5:
+            return "";
+        case 6:
+            return text.substr(0, pick(rng, text.size() + 1));
+        case 7:
+            return text + text;
         case 8: {  // a digit inside changed ("CH4:0.95" -> "CH4:9.95", "2026-01-05" -> "2026-01-95")
             auto out = text;
             std::vector<std::size_t> digits;
@@ -195,18 +233,21 @@ json mutate_string(const json& value, const std::vector<std::string>& document_s
             if (!digits.empty()) out[pick_from(rng, digits)] = static_cast<char>('0' + pick(rng, 10));
             return out;
         }
-        case 9: return pick_from(rng, odd_dates());
+        case 9:
+            return pick_from(rng, odd_dates());
         case 10: {
             auto out = text;
             for (auto& c : out) c = static_cast<char>(std::toupper(static_cast<unsigned char>(c)));
             return out;
         }
-        default: return pick_from(rng, std::vector<std::string>{"0", "-1", "1e400", "NaN", " ", "x", "0.95"});
+        default:
+            return pick_from(rng, std::vector<std::string>{"0", "-1", "1e400", "NaN", " ", "x", "0.95"});
     }
 }
 
 /// An object elsewhere in the document of the same depth as the one at `parent` (a sibling), or the same object.
-pointer sibling_object(const json& document, const pointer& parent, const std::vector<pointer>& nodes, random_engine& rng) {
+pointer sibling_object(const json& document, const pointer& parent, const std::vector<pointer>& nodes,
+                       random_engine& rng) {
     std::vector<pointer> candidates;
     const auto depth = [](const pointer& p) {
         const auto text = p.to_string();
@@ -249,9 +290,15 @@ bool mutate_once(json& document, random_engine& rng) {
     } else if (node.is_array() && !node.empty()) {
         const auto i = pick(rng, node.size());
         switch (pick(rng, 3)) {
-            case 0: node = json::array(); break;
-            case 1: node.insert(node.begin() + static_cast<std::ptrdiff_t>(i), node[i]); break;
-            default: node.erase(i); break;
+            case 0:
+                node = json::array();
+                break;
+            case 1:
+                node.insert(node.begin() + static_cast<std::ptrdiff_t>(i), node[i]);
+                break;
+            default:
+                node.erase(i);
+                break;
         }
     } else if (node.is_object() && !node.empty()) {
         // A key renamed to a neighbouring spelling (a user's typo or a field of another version).
@@ -268,7 +315,9 @@ bool mutate_once(json& document, random_engine& rng) {
 }
 
 /// The document's compact JSON text.
-std::string to_text(const json& document) { return document.dump(-1, ' ', false, json::error_handler_t::replace); }
+std::string to_text(const json& document) {
+    return document.dump(-1, ' ', false, json::error_handler_t::replace);
+}
 
 /// Writes text into the fuzzer's buffer if it fits; the new size, or 0 when it does not fit.
 std::size_t write_back(const std::string& text, std::uint8_t* data, std::size_t max_size) {
@@ -303,9 +352,9 @@ extern "C" std::size_t LLVMFuzzerCustomMutator(std::uint8_t* data, std::size_t s
     return written ? written : write_back(to_text(pick_from(rng, seed_documents())), data, max_size);
 }
 
-extern "C" std::size_t LLVMFuzzerCustomCrossOver(const std::uint8_t* data1, std::size_t size1, const std::uint8_t* data2,
-                                                 std::size_t size2, std::uint8_t* out, std::size_t max_out_size,
-                                                 unsigned int seed) {
+extern "C" std::size_t LLVMFuzzerCustomCrossOver(const std::uint8_t* data1, std::size_t size1,
+                                                 const std::uint8_t* data2, std::size_t size2, std::uint8_t* out,
+                                                 std::size_t max_out_size, unsigned int seed) {
     random_engine rng(seed);
     auto first = parsed_or_seed(data1, size1, rng);
     const auto second = parsed_or_seed(data2, size2, rng);
