@@ -117,17 +117,19 @@ const std::vector<std::string>& odd_dates() {
     return dates;
 }
 
-/// Whether text looks like YYYY-MM-DD.
+/// Whether text is YYYY-MM-DD with a year from 1 to 9999, a month from 1 to 12 and a day from 1 to 31
+/// (shift_date needs them in range; "2026-00-10" is not a date to shift but one of odd_dates).
 bool is_date(const std::string& text) {
     int y = 0, m = 0, d = 0;
-    return text.size() == 10 && std::sscanf(text.c_str(), "%4d-%2d-%2d", &y, &m, &d) == 3;
+    return text.size() == 10 && std::sscanf(text.c_str(), "%4d-%2d-%2d", &y, &m, &d) == 3 && y >= 1 && m >= 1 &&
+           m <= 12 && d >= 1 && d <= 31;
 }
 
 /// A valid date `days` after YYYY-MM-DD, or `months` months later keeping the day (which may overflow the month).
 std::string shift_date(const std::string& text, int days, int months) {
     int y = 0, m = 0, d = 0;
     std::sscanf(text.c_str(), "%4d-%2d-%2d", &y, &m, &d);
-    int month_index = y * 12 + (m - 1) + months;
+    const int month_index = std::max(12, y * 12 + (m - 1) + months);  // never before year 1
     y = month_index / 12;
     m = month_index % 12 + 1;
     d += days;
