@@ -262,7 +262,8 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         if (const auto id = optional_string(demand, "option", "/demand")) {
             bool found = false;
             for (std::size_t i = 0; i < options_json.size() && !found; ++i)
-                if (options_json[i].is_object() && options_json[i].contains("id") && options_json[i].at("id") == *id) {
+                if (options_json.is_array() && options_json[i].is_object() && options_json[i].contains("id") &&
+                    options_json[i].at("id") == *id) {
                     equipment = read_option(options_json[i], "/options/" + std::to_string(i), warnings);
                     found = true;
                 }

@@ -297,4 +297,14 @@ TEST(fuzz_findings, a_custom_fuel_density_out_of_range_is_refused_at_its_field) 
                       "to 1), got 1.79769e+308"});
 }
 
+TEST(fuzz_findings, options_that_are_not_an_array_do_not_break_a_bills_demand) {
+    // Found by the fuzzer (tools/fuzz --runs 1000000 scenario, after 16,599 runs): "options": 0 with a
+    // bills demand naming its option gave "internal error: [json.exception.type_error.305] cannot use
+    // operator[] with a numeric argument with number".
+    auto scenario = bills_example();
+    scenario["options"] = 0;
+    EXPECT_EQ(errors_of(scenario), (strings{"/options: needs at least one option (a fuel, its price and a system)",
+                                            "/demand/option: no option has id \"oil-boiler\""}));
+}
+
 }  // namespace
