@@ -183,7 +183,7 @@ double read_power_kw(const json& value, const std::string& path) {
     return quantity_in(value, path, dimension::power, "kW");
 }
 
-/// Refuses a heat pump capacity {value, unit} above 1000 kW (no house's; sums over bins could overflow).
+/// Refuses a data-sheet capacity {value, unit} above 1000 kW (no house's; sums over bins could overflow).
 void require_heat_pump_capacity(double kw, const json& capacity, const std::string& path) {
     if (kw <= 1000) return;
     const auto unit = capacity.at("unit").get<std::string>();
@@ -246,7 +246,6 @@ void read_heat_pump_fields(const json& system, const std::string& path, scenario
     if (system.contains("capacity")) {
         option.capacity_47_kw = read_power_kw(system.at("capacity"), path + "/capacity");
         if (*option.capacity_47_kw <= 0) throw input_error(path + "/capacity/value", "must be > 0");
-        require_heat_pump_capacity(*option.capacity_47_kw, system.at("capacity"), path + "/capacity/value");
     }
 }
 
