@@ -217,7 +217,6 @@ std::string convert_json(const std::string& request_json) noexcept {
         find_unit(*from, "/from");
         find_unit(*to, "/to");
         const double result = convert(*value, *from, *to, "/value");
-        if (!std::isfinite(result)) throw input_error("/value", "the converted value is too large to represent");
         return dump_text(json{{"value", result}, {"unit", *to}});
     } catch (const input_error& error) {
         return error_response({{error.path(), error.message()}});

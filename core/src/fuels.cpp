@@ -358,6 +358,10 @@ fuel_record make_custom_fuel(const custom_fuel_request& request, const std::stri
         if (request.density_kg_per_l) {
             if (!(*request.density_kg_per_l > 0) || !std::isfinite(*request.density_kg_per_l))
                 throw input_error(path + "/density_kg_per_l", "must be > 0, got " + format_number(*request.density_kg_per_l));
+            if (*request.density_kg_per_l < 0.1 || *request.density_kg_per_l > 5)
+                throw input_error(path + "/density_kg_per_l",
+                                  "must be from 0.1 to 5 kg/L (liquid fuels are 0.5 to 1), got " +
+                                      format_number(*request.density_kg_per_l));
             fuel.density_kg_per_l = request.density_kg_per_l;
             fuel.density_text = format_number(*request.density_kg_per_l) + " kg/L (given)";
         } else if (sale.kind == dimension::volume) {

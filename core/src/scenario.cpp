@@ -29,6 +29,26 @@ bool is_currency_code(const std::string& code) {
     return code.size() == 3 && std::all_of(code.begin(), code.end(), [](char c) { return c >= 'A' && c <= 'Z'; });
 }
 
+/// [currency] The most any one amount of money in an option may be: above it is a slip of the keyboard
+/// or the unit, and sums over years and draws could overflow.
+constexpr double max_amount = 1e9;
+
+/// Refuses an amount of money above max_amount at its field (negative amounts have their own message).
+void require_at_most_max_amount(double amount, const std::string& path) {
+    if (amount > max_amount)
+        throw input_error(path, "must be from 0 to 1000000000 (a billion), got " + format_number(amount));
+}
+
+/// Refuses a given heating value more than twice or less than half the catalog's (both in the given unit
+/// and basis): a slip of the unit (Btu for kBtu, per litre for per gallon, MJ for therm), never the same
+/// fuel (a utility's gas varies by about a tenth).
+void require_near_catalog(double value, double catalog, const std::string& unit, const std::string& path) {
+    if (value >= catalog / 2 && value <= catalog * 2) return;
+    throw input_error(path, "must be within a factor of 2 of the catalog's " + format_number(catalog) + " " + unit +
+                                ": from " + format_number(catalog / 2) + " to " + format_number(catalog * 2) +
+                                ", got " + format_number(value));
+}
+
 /// Reads "Btu/therm" style text: energy unit / sale unit.
 std::pair<std::string, std::string> energy_per_unit(const std::string& text, const std::string& path) {
     const auto slash = text.find('/');
@@ -86,6 +106,11 @@ fuel_record read_custom_fuel(const json& fuel, const std::string& path, std::vec
     for (const char* key : {"ch4_kg_per_mmbtu", "n2o_kg_per_mmbtu"})
         if (const auto value = optional_number(fuel, key, path); value && *value < 0)
             throw input_error(path + "/" + key, "must be >= 0, got " + format_number(*value));
+    for (const auto& [key, largest] : {std::pair{"ch4_kg_per_mmbtu", "0.011"}, std::pair{"n2o_kg_per_mmbtu", "0.0036"}})
+        if (const auto value = optional_number(fuel, key, path); value && *value > 1)
+            throw input_error(path + "/" + key,
+                              std::string("must be from 0 to 1 kg per MMBtu (the catalog's largest is ") + largest +
+                                  "), got " + format_number(*value));
     const auto reference = optional_string(fuel, "reference", path).value_or("15C");
     find_reference(reference, path + "/reference");
     const int kinds = int(fuel.contains("formula")) + int(fuel.contains("mixture")) + int(fuel.contains("ultimate"));
@@ -165,6 +190,7 @@ std::vector<fixed_charge> read_fixed_charges(const json& charges, const std::str
         const double amount = monthly ? *monthly : *yearly;
         if (amount < 0)
             throw input_error(charge_path + (monthly ? "/amount_per_month" : "/amount_per_year"), "must be >= 0, got " + format_number(amount));
+        require_at_most_max_amount(amount, charge_path + (monthly ? "/amount_per_month" : "/amount_per_year"));
         entry.amount_per_year = monthly ? *monthly * 12 : *yearly;
         entry.text = monthly ? format_fixed(*monthly, 2) + " per month x 12" : format_fixed(*yearly, 2) + " per year";
         out.push_back(entry);
@@ -180,6 +206,15 @@ double read_temperature_c(const json& value, const std::string& path) {
 /// A power {value, unit} in kW.
 double read_power_kw(const json& value, const std::string& path) {
     return quantity_in(value, path, dimension::power, "kW");
+}
+
+/// Refuses a data-sheet capacity {value, unit} above 1000 kW (no house's; sums over bins could overflow).
+void require_heat_pump_capacity(double kw, const json& capacity, const std::string& path) {
+    if (kw <= 1000) return;
+    const auto unit = capacity.at("unit").get<std::string>();
+    throw input_error(path, "a house's heat pump delivers at most 1000 kW (" +
+                                format_number(convert(1000, "kW", unit)) + " " + unit + "), got " +
+                                format_number(capacity.at("value").get<double>()) + " " + unit);
 }
 
 void read_heat_pump_fields(const json& system, const std::string& path, scenario_option& option) {
@@ -212,6 +247,10 @@ void read_heat_pump_fields(const json& system, const std::string& path, scenario
                                   required_number(point, "cop", point_path)};
             if (entry.capacity_kw <= 0)
                 throw input_error(point_path + "/capacity/value", "must be > 0, got " + format_number(entry.capacity_kw));
+            if (entry.cop > 15)
+                throw input_error(point_path + "/cop",
+                                  "must be from 1 to 15 (data sheets give 1.5 to 6), got " + format_number(entry.cop));
+            require_heat_pump_capacity(entry.capacity_kw, point.at("capacity"), point_path + "/capacity/value");
             if (entry.cop < 1)
                 throw input_error(point_path + "/cop", "a heat pump's COP cannot be below 1, got " + format_number(entry.cop));
             if (point.contains("min_capacity") || point.contains("min_cop")) {
@@ -300,13 +339,10 @@ given_heating_value read_given_heating_value(const json& hv, const std::string& 
     if (basis != "HHV" && basis != "LHV") throw input_error(path + "/basis", "unknown basis \"" + basis + "\"; accepted: HHV, LHV");
     const auto given_unit = heating_value_per_sale_unit(fuel, sale_unit, sale, path + "/unit");
     const auto target = heating_value_per_sale_unit(fuel, target_unit, sale, path);
+    const double catalog_j = given_unit.hhv_j * (basis == "LHV" ? fuel.lhv_over_hhv : 1.0);
+    require_near_catalog(value, convert(catalog_j, "J", energy_unit), unit_text + " (" + basis + ")", path + "/value");
     double j_per_given = convert(value, energy_unit, "J", path + "/value");
     if (basis == "LHV") j_per_given /= fuel.lhv_over_hhv;
-    // A plausible heating value: within a factor of two of the catalog's for the same unit.
-    const double ratio = j_per_given / given_unit.hhv_j;
-    if (!(ratio > 0.5 && ratio < 2.0))
-        throw input_error(path + "/value", format_number(value) + " " + unit_text + " is " + format_fixed(ratio, 2) +
-                                               " times the catalog's heating value of " + fuel.id + "; check the value and its unit");
     given_heating_value out;
     out.hhv_j_per_unit = j_per_given * target.hhv_j / given_unit.hhv_j;
     out.text = format_number(value) + " " + unit_text + " (" + basis + ", given)";
@@ -330,6 +366,7 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
              {"annual_maintenance", &option.annual_maintenance}}) {
         *target = optional_number(item, key, path).value_or(0.0);
         if (*target < 0) throw input_error(path + "/" + key, "must be >= 0, got " + format_number(*target));
+        require_at_most_max_amount(*target, path + "/" + key);
     }
     if (option.incentives > option.installed_cost)
         throw input_error(path + "/incentives", "incentives (" + format_number(option.incentives) +
@@ -350,6 +387,7 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
     option.price_per_unit = price.contains("tiers") && !price.contains("amount") ? 0.0 : required_number(price, "amount", path + "/price");
     if (option.price_per_unit < 0)
         throw input_error(path + "/price/amount", "must be >= 0, got " + format_number(option.price_per_unit));
+    require_at_most_max_amount(option.price_per_unit, path + "/price/amount");
     option.price_unit = required_string(price, "per", path + "/price");
     if (const auto tiers = price.find("tiers"); tiers != price.end()) {
         if (!tiers->is_array() || tiers->empty()) throw input_error(path + "/price/tiers", "must be a non-empty array of {from, to, amount}");
@@ -363,6 +401,7 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
             entry.to = tier.contains("to") && !tier.at("to").is_null() ? required_number(tier, "to", tier_path) : INFINITY;
             entry.amount = required_number(tier, "amount", tier_path);
             if (entry.amount < 0) throw input_error(tier_path + "/amount", "must be >= 0, got " + format_number(entry.amount));
+            require_at_most_max_amount(entry.amount, tier_path + "/amount");
             if (entry.from != previous)
                 throw input_error(tier_path + "/from", "blocks must follow each other from 0 without gaps or overlaps; expected " +
                                                            format_number(previous) + ", got " + format_number(entry.from));
@@ -384,11 +423,20 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
         if (find_unit(unit, path + "/bag_mass/unit").kind != dimension::mass)
             throw input_error(path + "/bag_mass/unit", "must be a mass unit: " + accepted_units(dimension::mass));
         if (value <= 0) throw input_error(path + "/bag_mass/value", "must be > 0, got " + format_number(value));
-        option.sale.bag_mass_kg = convert(value, unit, "kg");
+        const double kg = convert(value, unit, "kg", path + "/bag_mass/value");
+        if (kg < 1 || kg > 2000)
+            throw input_error(path + "/bag_mass/value", "a bag must hold from 1 to 2000 kg (" +
+                                                            format_number(convert(1, "kg", unit)) + " to " +
+                                                            format_number(convert(2000, "kg", unit)) + " " + unit +
+                                                            "), got " + format_number(value) + " " + unit);
+        option.sale.bag_mass_kg = kg;
     }
     if (const auto fraction = optional_number(item, "face_cord_fraction", path)) {
-        if (!(*fraction > 0 && *fraction <= 1))
-            throw input_error(path + "/face_cord_fraction", "must be a fraction of a cord in (0, 1], got " + format_number(*fraction));
+        if (!(*fraction >= 0.1 && *fraction <= 1))
+            throw input_error(path + "/face_cord_fraction",
+                              "must be a fraction of a cord from 0.1 to 1 (a face cord is "
+                              "usually 1/3 of a cord), got " +
+                                  format_number(*fraction));
         option.sale.face_cord_fraction = fraction;
     }
     option.sale.wood_species = optional_string(item, "wood_species", path);
@@ -480,6 +528,10 @@ scenario_settings read_settings(const json& document, std::vector<issue>& warnin
     if (const auto factor = optional_number(s, "electricity_co2e_kg_per_kwh", "/settings")) {
         if (*factor < 0)
             throw input_error("/settings/electricity_co2e_kg_per_kwh", "must be >= 0, got " + format_number(*factor));
+        if (*factor > 10)
+            throw input_error(
+                "/settings/electricity_co2e_kg_per_kwh",
+                "must be from 0 to 10 kg CO2e per kWh (coal-fired power emits about 1), got " + format_number(*factor));
         if (*factor > 2) warnings.push_back({"/settings/electricity_co2e_kg_per_kwh",
                                              "above 2 kg/kWh is more than any grid emits; check the value"});
         settings.electricity_co2e_kg_per_kwh = *factor;
@@ -528,12 +580,15 @@ scenario_settings read_settings(const json& document, std::vector<issue>& warnin
     return settings;
 }
 
-/// A rate per year as a fraction, above -100 %.
+/// A rate per year as a fraction, from -50 % to 100 %.
 double read_rate(const json& obj, const std::string& key, const std::string& path, double fallback) {
     const auto value = optional_number(obj, key, path);
     if (!value) return fallback;
-    if (*value <= -1) throw input_error(path + "/" + key, "a rate must be above -100 % per year (-1 as a fraction), got " +
-                                                              format_number(*value));
+    if (*value < -0.5)
+        throw input_error(path + "/" + key,
+                          "a rate must be from -50 % to 100 % per year (-0.5 to 1 as "
+                          "fractions), got " +
+                              format_number(*value));
     if (*value > 1) throw input_error(path + "/" + key, "rates are fractions per year (0.05 for 5 %); got " + format_number(*value));
     return *value;
 }

@@ -17,9 +17,14 @@ using namespace json_fields;
 
 namespace {
 
-/// [degC] from a {value, unit} temperature.
+/// [degC] from a {value, unit} temperature, which must lie from -100 to 100 degC (no weather or room is outside it).
 double temperature_c(const json& obj, const std::string& path) {
-    return quantity_in(obj, path, dimension::temperature, "degC");
+    const double c = quantity_in(obj, path, dimension::temperature, "degC");
+    if (c < -100 || c > 100)
+        throw input_error(path + "/value",
+                          "is not a plausible temperature: it must lie from -100 to 100 degC (-148 to 212 degF), got " +
+                              format_number(obj.at("value").get<double>()) + " " + obj.at("unit").get<std::string>());
+    return c;
 }
 
 std::array<double, 12> twelve_numbers(const json& obj, const std::string& key, const std::string& path) {
@@ -267,6 +272,41 @@ climate_info read_climate(const json& climate, std::vector<issue>& warnings) {
     return info;
 }
 
+namespace {
+
+/// [kWh/year] The annual heat a scenario is evaluated for: below 1 kWh there is nothing to heat (and
+/// costs per unit of heat divide by almost zero); above 5,000 MWh it is not a house's.
+constexpr double min_annual_heat_kwh = 1, max_annual_heat_kwh = 5e6;
+
+/// Refuses an annual heat {value, unit} of `kwh` outside the range (from 0 when `zero_allowed`), naming it in the unit.
+void require_annual_heat(double kwh, const json& heat, const std::string& path, bool zero_allowed) {
+    const double low = zero_allowed ? 0 : min_annual_heat_kwh;
+    if (kwh >= low && kwh <= max_annual_heat_kwh) return;
+    const auto unit = heat.at("unit").get<std::string>();
+    throw input_error(path + "/value", "must be from " + std::string(zero_allowed ? "0" : "1 kWh") +
+                                           " to 5,000 MWh a year (" + format_number(convert(low, "kWh", unit)) +
+                                           " to " + format_number(convert(max_annual_heat_kwh, "kWh", unit)) + " " +
+                                           unit + "), got " + format_number(heat.at("value").get<double>()) + " " +
+                                           unit);
+}
+
+/// [kWh] The most fuel one bill may hold (HHV): more than a house burns in a year, whatever the efficiency.
+constexpr double max_bill_fuel_kwh = 1e7;
+
+/// Refuses a bill holding more than max_bill_fuel_kwh (its quantity in its own unit is named).
+void require_bill_size(const bill_period& bill, const json& item, const scenario_option& equipment,
+                       const std::string& path) {
+    if (bill.fuel_kwh <= max_bill_fuel_kwh) return;
+    const auto unit = item.at("unit").get<std::string>();
+    const double kwh_per_unit =
+        heating_value_per_sale_unit(equipment.fuel, unit, equipment.sale, path + "/unit").hhv_j / 3.6e6;
+    throw input_error(path + "/quantity", "is more fuel than a house burns in a year: at most 10,000 MWh (" +
+                                              format_number(max_bill_fuel_kwh / kwh_per_unit) + " " + unit + "), got " +
+                                              format_number(item.at("quantity").get<double>()) + " " + unit);
+}
+
+}  // namespace
+
 void read_demand(const json& demand, scenario& out, const json& options_json, std::vector<issue>& warnings) {
     require_object(demand, "/demand");
     out.demand_method = optional_string(demand, "method", "/demand").value_or("direct");
@@ -319,10 +359,17 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
                 throw input_error("/demand/ua/unit", "must be W/K or Btu/h/degF, got \"" + unit + "\"");
             ua = unit == "W/K" ? *number : *number * constants::joule_per_btu / 3600.0 * 9.0 / 5.0;
             if (ua <= 0) throw input_error("/demand/ua/value", "must be > 0, got " + format_number(*number));
+            if (ua > 2e5)
+                throw input_error("/demand/ua/value", "a house's UA is at most 200000 W/K (379000 Btu/h/degF), got " +
+                                                          format_number(*number) + " " + unit);
             out.demand_trace.push_back("UA " + format_number(*number) + " " + unit + " = " + format_fixed(ua, 1) + " W/K");
         } else if (demand.contains("design_heat_loss")) {
             const double watts = quantity_in(demand.at("design_heat_loss"), "/demand/design_heat_loss", dimension::power, "W");
             if (watts <= 0) throw input_error("/demand/design_heat_loss/value", "must be > 0");
+            if (watts > 1e6)
+                throw input_error("/demand/design_heat_loss/value",
+                                  "a house's design heat loss is at most 1000 kW (3.41214e+06 Btu/h), got " +
+                                      format_number(watts / 1000) + " kW");
             if (!indoor_c) throw input_error("/demand/indoor", "is required with design_heat_loss");
             const double outdoor_c = demand.contains("design_outdoor")
                                          ? temperature_c(demand.at("design_outdoor"), "/demand/design_outdoor")
@@ -380,7 +427,8 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         if (const auto id = optional_string(demand, "option", "/demand")) {
             bool found = false;
             for (std::size_t i = 0; i < options_json.size() && !found; ++i)
-                if (options_json[i].is_object() && options_json[i].value("id", "") == *id) {
+                if (options_json.is_array() && options_json[i].is_object() && options_json[i].contains("id") &&
+                    options_json[i].at("id") == *id) {
                     equipment = read_option(options_json[i], "/options/" + std::to_string(i), warnings);
                     found = true;
                 }
@@ -428,6 +476,10 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             const long last = parse_day_number(*end, path + "/end");
             if (last < first)
                 throw input_error(path + "/end", "the period " + *start + " to " + *end + " has no days (it ends before it starts)");
+            if (last - first > 366)
+                throw input_error(path + "/end", "the period " + *start + " to " + *end + " spans " +
+                                                     std::to_string(last - first) +
+                                                     " days; a bill covers at most a year (split a longer period)");
             const auto amount = optional_number(item, "quantity", path);
             if (!amount) throw input_error(path + "/quantity", "is required (a number)");
             if (*amount < 0) throw input_error(path + "/quantity", "must be >= 0, got " + format_number(*amount));
@@ -447,9 +499,6 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
                 if (i == 0) out.demand_trace.push_back("bills at the heating value given for the equipment: " +
                                                        equipment.heating_value_override_text);
             }
-            if (*amount * hhv_j / 3.6e6 > 1e7)
-                throw input_error(path + "/quantity", format_number(*amount) + " " + *unit +
-                                                          " is more fuel than any house burns in a billing period (10,000 MWh)");
             bill_period bill;
             bill.first_day = first;
             bill.last_day = last;
@@ -466,6 +515,8 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             dates.push_back({first, last, *start, *end});
             warn_unknown_keys(item, {"start", "end", "quantity", "unit", "mean_temperature", "heating_value"}, path, warnings);
         }
+        for (std::size_t i = 0; i < bills.size(); ++i)
+            require_bill_size(bills[i], list[i], equipment, "/demand/bills/" + std::to_string(i));
         std::vector<std::size_t> order(bills.size());
         std::iota(order.begin(), order.end(), 0);
         std::sort(order.begin(), order.end(), [&](auto a, auto b) { return bills[a].first_day < bills[b].first_day; });
@@ -634,11 +685,19 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         throw input_error("/demand/method", "unknown demand method \"" + method + "\"; accepted: direct, heat-loss, bills");
     }
     if (demand.contains("hot_water")) {
-        out.hot_water_kwh = quantity_in(demand.at("hot_water"), "/demand/hot_water", dimension::energy, "kWh");
-        if (out.hot_water_kwh < 0) throw input_error("/demand/hot_water/value", "must be >= 0");
+        const double hot_water_kwh = quantity_in(demand.at("hot_water"), "/demand/hot_water", dimension::energy, "kWh");
+        if (hot_water_kwh < 0) throw input_error("/demand/hot_water/value", "must be >= 0");
+        require_annual_heat(hot_water_kwh, demand.at("hot_water"), "/demand/hot_water", true);
+        out.hot_water_kwh = hot_water_kwh;
         out.demand_trace.push_back("plus domestic hot water " + energy_text(out.hot_water_kwh) + " useful per year");
     }
     out.annual_useful_heat_kwh = out.space_heat_kwh + out.hot_water_kwh;
+    if (method == "direct")
+        require_annual_heat(out.space_heat_kwh, demand.at("annual_useful_heat"), "/demand/annual_useful_heat", false);
+    if (!(out.annual_useful_heat_kwh >= min_annual_heat_kwh && out.annual_useful_heat_kwh <= max_annual_heat_kwh))
+        throw input_error("/demand", "the annual useful heat works out at " +
+                                         format_number(out.annual_useful_heat_kwh) +
+                                         " kWh; it must be from 1 kWh to 5,000 MWh a year: check the demand inputs");
 }
 
 }  // namespace fw

@@ -186,6 +186,9 @@ seasonal_efficiency seasonal_efficiency_hhv(const system_request& request, const
             } else if (v > 100) {
                 throw input_error(value_path, rating + " cannot exceed 100 % on the gross (HHV) basis, got " +
                                                   format_number(v) + " %");
+            } else if (v < 1) {
+                throw input_error(value_path,
+                                  rating + " must be from 1 to 100 % (95 for 95 %), got " + format_number(v));
             }
             out.rated_hhv_basis = v / 100.0;
             if (request.rating == efficiency_rating::afue)
@@ -202,6 +205,8 @@ seasonal_efficiency seasonal_efficiency_hhv(const system_request& request, const
             break;
         }
         case efficiency_rating::seasonal_ncv: {
+            if (v < 1)
+                throw input_error(value_path, rating + " must be at least 1 % (95 for 95 %), got " + format_number(v));
             const double gross = v / 100.0 * fuel.lhv_over_hhv;
             out.trace.push_back(format_number(v) + " % seasonal (net, NCV basis) x LHV/HHV " +
                                 format_fixed(fuel.lhv_over_hhv, 4) + " of " + fuel.id + " = " + percent(gross) +

@@ -95,7 +95,11 @@ double convert(double value, std::string_view from, std::string_view to, const s
     const double si = value * source.si_factor + source.si_offset;
     if (source.kind == dimension::temperature && si < 0.0)
         throw input_error(path, format_number(value) + " " + std::string(from) + " is below absolute zero");
-    return (si - target.si_offset) / target.si_factor;
+    const double out = (si - target.si_offset) / target.si_factor;
+    if (!std::isfinite(out))
+        throw input_error(
+            path, format_number(value) + " " + std::string(from) + " is too large to convert to " + std::string(to));
+    return out;
 }
 
 }  // namespace fw

@@ -331,10 +331,12 @@ TEST(economics_errors, messages) {
         const auto& e = result.at("errors").at(0);
         return e.at("path").get<std::string>() + ": " + e.at("message").get<std::string>();
     };
-    EXPECT_EQ(error_of({{"economics", {{"discount_rate", -1.5}}}}),
-              "/economics/discount_rate: a rate must be above -100 % per year (-1 as a fraction), got -1.5");
-    EXPECT_EQ(error_of({{"economics", {{"escalation", {{"propane", -1}}}}}}),
-              "/economics/escalation/propane: a rate must be above -100 % per year (-1 as a fraction), got -1");
+    EXPECT_EQ(
+        error_of({{"economics", {{"discount_rate", -1.5}}}}),
+        "/economics/discount_rate: a rate must be from -50 % to 100 % per year (-0.5 to 1 as fractions), got -1.5");
+    EXPECT_EQ(
+        error_of({{"economics", {{"escalation", {{"propane", -1}}}}}}),
+        "/economics/escalation/propane: a rate must be from -50 % to 100 % per year (-0.5 to 1 as fractions), got -1");
     EXPECT_EQ(error_of({{"economics", {{"analysis_years", 0}}}}),
               "/economics/analysis_years: must be a whole number of years from 1 to 50, got 0");
     EXPECT_EQ(error_of({{"uncertainty", {{"draws", 10}}}}), "/uncertainty/draws: must be a whole number from 100 to 200000, got 10");

@@ -134,7 +134,8 @@ TEST(properties, no_output_field_is_nan_or_infinite) {
     EXPECT_TRUE(sweep.at("errors").empty());
     EXPECT_TRUE(all_finite(sweep));
     const auto big = json::parse(fw::convert_json(R"({"value": 1e308, "from": "GJ", "to": "J"})"));
-    EXPECT_EQ(big.at("errors")[0].at("message"), "the converted value is too large to represent");
+    EXPECT_EQ(big.at("errors")[0].at("message"), "1e+308 GJ is too large to convert to J");
+    EXPECT_EQ(big.at("errors")[0].at("path"), "/value");
 }
 
 TEST(properties, a_non_finite_result_is_refused_with_its_path) {
