@@ -569,6 +569,10 @@ scenario_settings read_settings(const json& document, std::vector<issue>& warnin
             const auto fuel = optional_string(kept[i], "fuel", path);
             if (!fuel) throw input_error(path + "/fuel", "is required (the id of the fuel whose service stays connected)");
             find_fuel(*fuel, path + "/fuel");
+            for (const auto& earlier : settings.kept_services)
+                if (earlier.fuel_id == *fuel)
+                    throw input_error(path + "/fuel", *fuel + " is kept already (once in kept_services, or electricity's "
+                                                              "fixed charges under settings.electricity)");
             if (!kept[i].contains("fixed_charges"))
                 throw input_error(path + "/fixed_charges", "is required (the charges the service costs whatever it supplies)");
             settings.kept_services.push_back({*fuel, read_fixed_charges(kept[i].at("fixed_charges"), path + "/fixed_charges")});
@@ -709,7 +713,9 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
                           "", warnings);
     });
     if (!errors.empty()) return out;
+    const std::size_t errors_before_settings = errors.size();
     attempt([&] { out.settings = read_settings(document, warnings); });
+    const bool settings_read = errors.size() == errors_before_settings;
     attempt([&] {
         if (document.contains("economics")) out.economics = read_economics(document.at("economics"), warnings);
     });
@@ -748,9 +754,9 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
         read_demand(document.at("demand"), out,
                     document.contains("options") ? document.at("options") : json::array(), warnings);
     });
-    // Without a climate or a demand there is nothing to evaluate the options against: the problem is
-    // reported at its own path and no option is computed.
-    if (!climate_read || errors.size() != errors_before_demand) out.options.clear();
+    // Without the settings (prices of the site, services kept), a climate or a demand there is nothing to
+    // evaluate the options against: the problem is reported at its own path and no option is computed.
+    if (!settings_read || !climate_read || errors.size() != errors_before_demand) out.options.clear();
     return out;
 }
 
@@ -898,10 +904,11 @@ void add_site_costs(const scenario& input, const scenario_option& option, option
     }
     // Services the house keeps: their fixed charges, unless the option already pays for that fuel.
     for (const auto& service : input.settings.kept_services) {
-        bool pays = option.fuel.id == service.fuel_id;
+        // Paid already when the option (or its dual-fuel backup) burns that fuel and carries its own fixed charges.
+        bool pays = option.fuel.id == service.fuel_id && !option.fixed_charges.empty();
         if (!pays && option.backup != "electric-resistance")
             for (const auto& other : input.options)
-                if (other.id == option.backup) pays = other.fuel.id == service.fuel_id;
+                if (other.id == option.backup) pays = other.fuel.id == service.fuel_id && !other.fixed_charges.empty();
         if (pays) continue;
         double total = 0;
         for (const auto& charge : service.charges) {

@@ -86,6 +86,39 @@ std::map<long, double> read_daily_list(const json& list, const std::string& unit
     return out;
 }
 
+/// Refuses observed temperatures whose monthly means sit far from the climate's normals when the other
+/// temperature unit would fit them: a file in degF labelled degC, or the reverse (more than 8 K off on
+/// average, and under half that read in the other unit).
+void check_observed_unit(const std::map<long, double>& observed, const json& block, const climate_model& climate) {
+    std::array<double, 12> sum{}, count{};
+    for (const auto& [day, t] : observed) {
+        const int m = month_of_day(day);
+        sum[m] += t;
+        count[m] += 1;
+    }
+    const bool fahrenheit = block.value("unit", "") == "degF";
+    double off = 0, off_other = 0, months = 0;
+    for (int m = 0; m < 12; ++m) {
+        if (count[m] < 10) continue;
+        const double mean_c = sum[m] / count[m];
+        // The same numbers read in the other unit.
+        const double raw = fahrenheit ? mean_c * 9 / 5 + 32 : mean_c;
+        const double other_c = fahrenheit ? raw : (raw - 32) * 5 / 9;
+        off += std::fabs(mean_c - climate.monthly_mean_c[m]);
+        off_other += std::fabs(other_c - climate.monthly_mean_c[m]);
+        months += 1;
+    }
+    if (months == 0) return;
+    off /= months;
+    off_other /= months;
+    if (off > 8 && off_other < off / 2)
+        throw input_error("/demand/observed/unit",
+                          std::string("the observed temperatures read in ") + (fahrenheit ? "degF" : "degC") + " lie " +
+                              format_fixed(off, 1) + " K from the climate's normals month by month; read in " +
+                              (fahrenheit ? "degC" : "degF") + " they would lie " + format_fixed(off_other, 1) +
+                              " K from them: check the unit");
+}
+
 }  // namespace
 
 std::map<long, double> read_observed(const json& observed, const std::string& path, std::vector<issue>& warnings) {
@@ -566,6 +599,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
                                             " are not covered by any bill"});
         }
         // Observed daily weather: every bill's days, or the bill's own average temperature.
+        if (!observed.empty()) check_observed_unit(observed, demand.at("observed"), out.climate->model);
         if (!observed.empty()) {
             for (std::size_t i = 0; i < bills.size(); ++i) {
                 auto& bill = bills[i];
@@ -650,6 +684,12 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             if (fit.r2 < 0.7)
                 warnings.push_back({"/demand/bills", "poor fit (R^2 = " + format_fixed(fit.r2, 2) + " < 0.7): the bills do not follow "
                                                      "the weather well; check the readings and the climate"});
+            if (fit.tau_c - tau_low < 0.5 || tau_high - fit.tau_c < 0.5)
+                warnings.push_back({"/demand/bills",
+                                    "the reference temperature the fit found, " + temp_text(fit.tau_c) + ", lies at the edge of "
+                                    "the range searched (" + temp_text(tau_low) + " to " + temp_text(tau_high) + "): the bills "
+                                    "do not show where heating starts, so the split between base use and heating is uncertain; "
+                                    "bills from both winter and summer help"});
             double least_hdd_per_day = std::numeric_limits<double>::infinity();
             for (const auto& point : fit.points) least_hdd_per_day = std::min(least_hdd_per_day, point.first);
             if (least_hdd_per_day > 1.0)
@@ -698,6 +738,13 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         throw input_error("/demand", "the annual useful heat works out at " +
                                          format_number(out.annual_useful_heat_kwh) +
                                          " kWh; it must be from 1 kWh to 5,000 MWh a year: check the demand inputs");
+    // A worked-out heat need outside what houses need is questioned at the inputs it came from.
+    if (method != "direct" && (out.space_heat_kwh > large_house_heat_kwh || out.space_heat_kwh < small_house_heat_kwh))
+        warnings.push_back({method == "bills" ? "/demand/bills" : demand.contains("ua") ? "/demand/ua" : "/demand/design_heat_loss",
+                            "the yearly space heat works out at " + energy_text(out.space_heat_kwh) + ", " +
+                                (out.space_heat_kwh > large_house_heat_kwh ? "far above" : "far below") +
+                                " what a house needs (about 1.5 to 300 MWh, 5 to 1,000 MMBtu); check the " +
+                                (method == "bills" ? "bills' quantities and units" : "heat loss and its unit")});
 }
 
 }  // namespace fw

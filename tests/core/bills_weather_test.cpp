@@ -173,12 +173,32 @@ TEST(bills_weather, a_year_that_always_needs_heat_cannot_split_base_use_from_hea
         therms.push_back(therms_used(h, weather, first, fw::parse_day_number(reads[i], ""), fw::parse_day_number(reads[i + 1], "")));
     json daily = json::array();
     for (std::size_t i = 0; i < weather.size(); ++i) daily.push_back({fw::day_text(first + static_cast<long>(i)), weather[i]});
-    const auto result = evaluate(bills_scenario(reads, therms, {{"observed", {{"unit", "degF"}, {"daily_mean", daily}}}}));
+    auto scenario = bills_scenario(reads, therms, {{"observed", {{"unit", "degF"}, {"daily_mean", daily}}}});
+    for (auto& mean : scenario["climate"]["monthly_mean"]) mean = mean.get<double>() - 32.0;  // a climate that cold
+    const auto result = evaluate(scenario);
     ASSERT_TRUE(result.at("errors").empty()) << result.dump();
     const auto& warnings = result.at("warnings");
     EXPECT_TRUE(std::any_of(warnings.begin(), warnings.end(), [](const json& w) {
         return w.at("path") == "/demand/bills" && w.at("message").get<std::string>().rfind("every billing period needed heat", 0) == 0;
     })) << warnings.dump();
+}
+
+TEST(bills_weather, observed_temperatures_in_the_other_unit_are_caught_at_the_unit) {
+    // Daily means in degC labelled degF would double the heat need without a word: the monthly means
+    // are compared with the climate's normals, and the other unit fits them.
+    const auto reads = meter_reads(2024);
+    const long first = fw::parse_day_number(reads.front(), "");
+    const auto weather = invented_daily_weather(first, 370, 5, 0);
+    json daily = json::array();
+    for (std::size_t i = 0; i < weather.size(); ++i)
+        daily.push_back({fw::day_text(first + static_cast<long>(i)), (weather[i] - 32) * 5 / 9});  // in degC
+    const std::vector<double> therms = {95, 160, 180, 150, 110, 60, 30, 22, 21, 25, 50, 90};
+    const auto wrong = evaluate(bills_scenario(reads, therms, {{"observed", {{"unit", "degF"}, {"daily_mean", daily}}}}));
+    ASSERT_EQ(wrong.at("errors").size(), 1u) << wrong.at("errors").dump();
+    EXPECT_EQ(wrong.at("errors").at(0).at("path"), "/demand/observed/unit");
+    EXPECT_EQ(wrong.at("errors").at(0).at("message").get<std::string>().rfind("the observed temperatures read in degF lie ", 0), 0u);
+    const auto right = evaluate(bills_scenario(reads, therms, {{"observed", {{"unit", "degC"}, {"daily_mean", daily}}}}));
+    EXPECT_TRUE(right.at("errors").empty()) << right.at("errors").dump();
 }
 
 TEST(bills_weather, a_gas_bill_in_ccf_uses_the_therm_factor_it_prints) {
