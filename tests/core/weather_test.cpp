@@ -203,6 +203,32 @@ TEST(weather_file, several_readings_in_one_hour_count_once) {
     EXPECT_NE(notes.find("2 extra readings within an hour already read were left out"), std::string::npos) << notes;
 }
 
+TEST(weather_file, twelve_hour_clocks_and_a_time_column_holding_the_timestamps) {
+    // A time column on a 12-hour clock (12:00 AM is hour 0, 1:00 PM hour 13): 24 distinct hours a day.
+    std::string csv = "DATE,TIME,TEMP\n";
+    double sum = 0;
+    for (int h = 0; h < 24; ++h) {
+        const int twelve = h % 12 == 0 ? 12 : h % 12;
+        csv += "2024-01-01," + std::to_string(twelve) + ":00 " + (h < 12 ? "AM" : "PM") + "," + std::to_string(20 + h) + "\n";
+        sum += 20 + h;
+    }
+    const auto ampm = weather(csv, {{"unit", "degF"}, {"format", "hourly"}});
+    ASSERT_TRUE(ampm.at("errors").empty()) << ampm.dump();
+    EXPECT_EQ(ampm.at("hours"), 24);
+    EXPECT_NEAR(ampm.at("observed").at("daily_mean").at(0).at(1).get<double>(), sum / 24, 1e-9);
+    // An hourly export whose timestamps are in a column named "time", its unit in the header.
+    std::string stamps = "time,temperature_2m (\xC2\xB0" "C)\n";
+    for (int h = 0; h < 24; ++h) stamps += "2024-01-02T" + std::string(h < 10 ? "0" : "") + std::to_string(h) + ":00," + std::to_string(h % 5) + "\n";
+    const auto iso = weather(stamps);
+    ASSERT_TRUE(iso.at("errors").empty()) << iso.dump();
+    EXPECT_EQ(iso.at("unit"), "degC");
+    EXPECT_EQ(iso.at("first_date"), "2024-01-02");
+    // A day with only a maximum is skipped, and the warning says why.
+    const auto one_sided = weather("DATE,TMAX,TMIN\n2024-01-01,40,30\n2024-01-02,41,\n", {{"unit", "degF"}});
+    EXPECT_EQ(one_sided.at("warnings").at(0).at("message"),
+              "1 row has no temperature and was skipped (1 of them only a maximum or only a minimum: a daily mean needs both)");
+}
+
 TEST(weather_file, messages_at_the_field) {
     const auto error_of = [](const std::string& csv, const json& options = json::object()) {
         const auto result = weather(csv, options);

@@ -143,6 +143,29 @@ bool all_digits(const std::string& text) {
 
 bool separator_is_slash(const std::string& text) { return text.find('/') != std::string::npos; }
 
+/// The hour of a time of day "HH:MM[:SS]", "HHMM" or "H:MM AM/PM" (12 AM is hour 0, 12 PM hour 12);
+/// throws input_error at `path` quoting `raw`.
+int hour_of(std::string time, const std::string& path, const std::string& raw) {
+    std::string lower;
+    for (unsigned char c : time) lower += static_cast<char>(std::tolower(c));
+    int shift = -1;  // -1: a 24-hour clock
+    if (lower.size() >= 2 && (lower.compare(lower.size() - 2, 2, "am") == 0 || lower.compare(lower.size() - 2, 2, "pm") == 0)) {
+        shift = lower.compare(lower.size() - 2, 2, "pm") == 0 ? 12 : 0;
+        time = time.substr(0, time.size() - 2);
+        while (!time.empty() && time.back() == ' ') time.pop_back();
+    }
+    const auto colon = time.find(':');
+    const std::string hh = colon == std::string::npos ? (time.size() > 2 ? time.substr(0, time.size() - 2) : time) : time.substr(0, colon);
+    if (!all_digits(hh)) throw input_error(path, "\"" + raw + "\" has a time this reader does not know (HH:MM, or H:MM AM/PM)");
+    int hour = std::atoi(hh.c_str());
+    if (shift >= 0) {
+        if (hour < 1 || hour > 12) throw input_error(path, "\"" + raw + "\" has an hour outside 1 to 12 before AM/PM");
+        hour = hour % 12 + shift;
+    }
+    if (hour > 24) throw input_error(path, "\"" + raw + "\" has an hour above 24");
+    return hour;
+}
+
 /// A date (and hour where the text has one) in the spellings weather exports use: YYYY-MM-DD, YYYY/MM/DD,
 /// YYYYMMDD[HH[MM]], MM/DD/YYYY, DD.MM.YYYY, each optionally followed by T or a space and HH:MM[:SS].
 /// Returns the day number and sets `hour` (-1 when the text has no time); throws input_error at `path`.
@@ -170,12 +193,7 @@ long parse_when(const std::string& raw, int& hour, const std::string& path) {
         // Slashes are read month first (MM/DD/YYYY, as US services print them), dots day first (DD.MM.YYYY).
         iso = parts[2] + "-" + two(separator == '/' ? parts[0] : parts[1]) + "-" + two(separator == '/' ? parts[1] : parts[0]);
     }
-    if (!time.empty()) {
-        const auto colon = time.find(':');
-        const std::string hh = time.substr(0, colon == std::string::npos ? 2 : colon);
-        if (!all_digits(hh)) throw input_error(path, "\"" + raw + "\" has a time this reader does not know (HH:MM)");
-        hour = std::atoi(hh.c_str());
-    }
+    if (!time.empty()) hour = hour_of(time, path, raw);
     if (hour > 24) throw input_error(path, "\"" + raw + "\" has an hour above 24");
     try {
         return parse_day_number(iso, path);
@@ -292,6 +310,16 @@ weather_series read_weather_csv(const std::string& text, const weather_read_opti
             const char d = delimiter_of(lines[i]);
             auto fields = split_line(lines[i], d);
             auto mapped = map_columns(fields, options.columns);
+            // A "time" column holding full timestamps (and no date column) is the date column.
+            if (!mapped.index.count(role::date) && mapped.index.count(role::time) && i + 1 < lines.size()) {
+                const auto next = split_line(lines[i + 1], d);
+                const auto c = mapped.index.at(role::time);
+                if (c < next.size() && next[c].size() >= 10 && std::isdigit(static_cast<unsigned char>(next[c][0])) &&
+                    (next[c][4] == '-' || next[c][4] == '/')) {
+                    mapped.index[role::date] = c;
+                    mapped.index.erase(role::time);
+                }
+            }
             const bool temperatures = mapped.index.count(role::mean) || mapped.index.count(role::max) ||
                                       mapped.index.count(role::min) || mapped.index.count(role::temperature);
             if (mapped.index.count(role::date) && temperatures) {
@@ -337,7 +365,7 @@ weather_series read_weather_csv(const std::string& text, const weather_read_opti
     series.notes.push_back("columns read: " + list_text(read));
     const bool decimal_comma = delimiter != ',';
     int flagged = 0;
-    std::size_t missing = 0, implausible = 0, first_implausible = 0;
+    std::size_t missing = 0, implausible = 0, first_implausible = 0, one_sided = 0;
     std::set<std::string> stations;
     std::vector<weather_row> rows;
     const double low = series.fahrenheit ? -94 : -70, high = series.fahrenheit ? 140 : 60;
@@ -351,15 +379,8 @@ weather_series read_weather_csv(const std::string& text, const weather_read_opti
         row.line = i + 1;
         try {
             row.day = parse_when(fields[date_col], row.hour, at);
-            if (time_col && *time_col < fields.size() && !fields[*time_col].empty()) {
-                int ignored;
-                const std::string& t = fields[*time_col];
-                const auto colon = t.find(':');
-                const std::string hh = colon == std::string::npos ? (t.size() > 2 ? t.substr(0, t.size() - 2) : t) : t.substr(0, colon);
-                if (!all_digits(hh) || std::atoi(hh.c_str()) > 24) throw input_error(at, "\"" + t + "\" is not a time (HH:MM)");
-                row.hour = std::atoi(hh.c_str());
-                (void)ignored;
-            }
+            if (time_col && *time_col < fields.size() && !fields[*time_col].empty())
+                row.hour = hour_of(fields[*time_col], at, fields[*time_col]);
         } catch (const input_error& error) {
             throw input_error(at, where + error.message());
         }
@@ -377,6 +398,7 @@ weather_series read_weather_csv(const std::string& text, const weather_read_opti
         row.min = value(min_col);
         row.temperature = value(temp_col);
         if (row.max && row.min && *row.min > *row.max) row.max = row.min = std::nullopt;
+        if (bool(row.max) != bool(row.min) && !row.mean && !row.temperature) ++one_sided;
         if (station_col && *station_col < fields.size() && !fields[*station_col].empty()) stations.insert(fields[*station_col]);
         if (!row.mean && !(row.max && row.min) && !row.temperature) {
             ++missing;
@@ -406,7 +428,10 @@ weather_series read_weather_csv(const std::string& text, const weather_read_opti
         throw input_error("/text", "a daily file needs a mean column, or max and min columns");
     if (missing > 0)
         series.warnings.push_back({"/text", count_text(missing, "row has", "rows have") + " no temperature and " +
-                                                (missing == 1 ? "was" : "were") + " skipped"});
+                                                (missing == 1 ? "was" : "were") + " skipped" +
+                                                (one_sided > 0 ? " (" + std::to_string(one_sided) + " of them only a maximum or "
+                                                                 "only a minimum: a daily mean needs both)"
+                                                               : "")});
     if (implausible > 0)
         series.warnings.push_back({"/text", count_text(implausible, "value lies", "values lie") +
                                                 " outside any outdoor temperature and " + (implausible == 1 ? "was" : "were") +
