@@ -4,30 +4,12 @@
 // web/storage.js does for quotes; memory (not kept) as the last resort.
 // Entries are those of web/climate-library.js. Nothing leaves the device.
 
+import { openDatabase, request } from './idb.js';
+
 const DB_NAME = 'fuelwright-climates';
 const STORE = 'climates';
 const LS_PREFIX = 'fuelwright.climate.';
 
-function request(req) {
-  return new Promise((resolve, reject) => {
-    req.onsuccess = () => resolve(req.result);
-    req.onerror = () => reject(req.error);
-  });
-}
-
-function openDatabase() {
-  return new Promise((resolve, reject) => {
-    if (typeof indexedDB === 'undefined') return reject(new Error('no IndexedDB'));
-    const req = indexedDB.open(DB_NAME, 1);
-    req.onupgradeneeded = () => {
-      const db = req.result;
-      if (!db.objectStoreNames.contains(STORE)) db.createObjectStore(STORE, { keyPath: 'id' });
-    };
-    req.onsuccess = () => resolve(req.result);
-    req.onerror = () => reject(req.error);
-    req.onblocked = () => reject(new Error('IndexedDB blocked'));
-  });
-}
 
 class IdbClimates {
   kind = 'IndexedDB';
@@ -83,7 +65,7 @@ function localStorageWorks() {
 /** Opens the climate library's storage: IndexedDB, else localStorage, else memory; each offers list(), put(entry), delete(id). */
 export async function openClimates() {
   try {
-    return new IdbClimates(await openDatabase());
+    return new IdbClimates(await openDatabase(DB_NAME, STORE));
   } catch {
     return localStorageWorks() ? new LocalClimates() : new MemoryClimates();
   }

@@ -8,6 +8,7 @@
 // A fuelwright.saved-quote/1 record is the same without `summary`; migrateRecord
 // turns it into a version 2 record. Newer or unknown records are refused, never
 // rewritten.
+import { openDatabase, request } from './idb.js';
 import { fromScenario } from './scenario.js';
 import { unreadableVersionMessage, versionOf } from './versions.js';
 
@@ -21,26 +22,6 @@ const CURRENT_KEY = 'fuelwright.current-quote';
 const PREFS_KEY = 'fuelwright.preferences';
 const UNSAVED_KEY = 'fuelwright.unsaved-quote';
 
-function request(req) {
-  return new Promise((resolve, reject) => {
-    req.onsuccess = () => resolve(req.result);
-    req.onerror = () => reject(req.error);
-  });
-}
-
-function openDatabase() {
-  return new Promise((resolve, reject) => {
-    if (typeof indexedDB === 'undefined') return reject(new Error('no IndexedDB'));
-    const req = indexedDB.open(DB_NAME, 1);
-    req.onupgradeneeded = () => {
-      const db = req.result;
-      if (!db.objectStoreNames.contains(STORE)) db.createObjectStore(STORE, { keyPath: 'id' });
-    };
-    req.onsuccess = () => resolve(req.result);
-    req.onerror = () => reject(req.error);
-    req.onblocked = () => reject(new Error('IndexedDB blocked'));
-  });
-}
 
 class IdbQuotes {
   kind = 'IndexedDB';
@@ -153,7 +134,7 @@ function localStorageWorks() {
  */
 export async function openQuotes() {
   try {
-    return new IdbQuotes(await openDatabase());
+    return new IdbQuotes(await openDatabase(DB_NAME, STORE));
   } catch {
     return localStorageWorks() ? new LocalQuotes() : new MemoryQuotes();
   }
