@@ -4,7 +4,7 @@
 // web/storage.js does for quotes; memory (not kept) as the last resort.
 // Entries are those of web/climate-library.js. Nothing leaves the device.
 
-import { openDatabase, request } from './idb.js';
+import { localStorageWorks, openDatabase, request } from './idb.js';
 
 const DB_NAME = 'fuelwright-climates';
 const STORE = 'climates';
@@ -50,16 +50,6 @@ class MemoryClimates {
   async list() { return [...this.#map.values()].map((e) => structuredClone(e)); }
   async put(entry) { this.#map.set(entry.id, structuredClone(entry)); return entry; }
   async delete(id) { this.#map.delete(id); }
-}
-
-function localStorageWorks() {
-  try {
-    localStorage.setItem('fuelwright.probe', '1');
-    localStorage.removeItem('fuelwright.probe');
-    return true;
-  } catch {
-    return false;
-  }
 }
 
 /** Opens the climate library's storage: IndexedDB, else localStorage, else memory; each offers list(), put(entry), delete(id). */

@@ -1,6 +1,7 @@
-// IndexedDB in promises, for the device's stores (web/storage.js for quotes,
-// web/climate-store.js for climates): one request as a promise, and a
-// database opened with its one object store keyed by `id`.
+// The device's storage, for the quotes (web/storage.js) and the climates
+// (web/climate-store.js): IndexedDB in promises (one request as a promise, a
+// database opened with its one object store keyed by `id`), and whether
+// localStorage, the fallback, can be written.
 
 /** The result of an IndexedDB request, as a promise. */
 export function request(req) {
@@ -23,4 +24,15 @@ export function openDatabase(name, store) {
     req.onerror = () => reject(req.error);
     req.onblocked = () => reject(new Error('IndexedDB blocked'));
   });
+}
+
+/** Whether localStorage can be written (private modes and full storage refuse it). */
+export function localStorageWorks() {
+  try {
+    localStorage.setItem('fuelwright.probe', '1');
+    localStorage.removeItem('fuelwright.probe');
+    return true;
+  } catch {
+    return false;
+  }
 }

@@ -8,7 +8,7 @@
 // A fuelwright.saved-quote/1 record is the same without `summary`; migrateRecord
 // turns it into a version 2 record. Newer or unknown records are refused, never
 // rewritten.
-import { openDatabase, request } from './idb.js';
+import { localStorageWorks, openDatabase, request } from './idb.js';
 import { fromScenario } from './scenario.js';
 import { unreadableVersionMessage, versionOf } from './versions.js';
 
@@ -114,16 +114,6 @@ class MemoryQuotes {
  */
 export function changedSince(stored, expectedUpdatedAt) {
   return Boolean(stored) && stored.updated_at !== (expectedUpdatedAt ?? undefined);
-}
-
-function localStorageWorks() {
-  try {
-    localStorage.setItem('fuelwright.probe', '1');
-    localStorage.removeItem('fuelwright.probe');
-    return true;
-  } catch {
-    return false;
-  }
 }
 
 /**
