@@ -7,6 +7,7 @@
 #include <map>
 
 #include "fw/json_fields.hpp"
+#include "fw/plausibility.hpp"
 #include "fw/units.hpp"
 
 namespace fw {
@@ -757,6 +758,7 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
     // Without the settings (prices of the site, services kept), a climate or a demand there is nothing to
     // evaluate the options against: the problem is reported at its own path and no option is computed.
     if (!settings_read || !climate_read || errors.size() != errors_before_demand) out.options.clear();
+    for (auto& warning : plausibility_warnings(out)) warnings.push_back(std::move(warning));
     return out;
 }
 
