@@ -6,13 +6,14 @@ import { createClimateTools } from './climates.js';
 import { CoreClient } from './core-client.js';
 import { download, h } from './dom.js';
 import { bindFields, showFieldErrors } from './fields.js';
-import { createFormat, isCurrency, isLocale } from './format.js';
+import { createFormat, formatInput, isCurrency, isLocale } from './format.js';
 import { demoWorkspace } from './demo.js';
 import { isKiosk } from './kiosk-scenario.js';
 import { registerServiceWorker } from './offline.js';
 import { renderQuoteSheet } from './print.js';
+import { slipFor } from './slips.js';
 import {
-  HEAT_PUMP_KINDS, blankWorkspace, fuelId, newFuelKey, toScenario, today, uniqueSystemId, withoutUncertainty,
+  HEAT_PUMP_KINDS, blankWorkspace, exportDocument, fuelId, newFuelKey, toScenario, today, uniqueSystemId, withoutUncertainty,
 } from './scenario.js';
 import {
   FORKED_MESSAGE, currentQuoteId, forgetUnsaved, keepUnsaved, loadPreferences, makeRecord, migrateRecord, newId, notDeletedMessage, notMigratedMessage, notRestoredMessage,
@@ -76,7 +77,7 @@ const ctx = {
   get locale() { return prefs.locale; },
   format: createFormat({ locale: prefs.locale, currency: 'USD' }),
   onField,
-  onLocalError: () => { showErrors(); },
+  onLocalError: () => { showErrors(); paintVerdict(); },
   renderLab: (slot) => renderLab(slot, ctx),
   addCustomFuel,
   onSearch: (query) => { quotes.query = query; paintQuotes(); },
@@ -135,7 +136,10 @@ function paintSummary() {
   const bar = $('#summary-bar');
   const r = verdict.result;
   const best = r?.ranking?.[0] && r.options?.find((o) => o.id === r.ranking[0].id);
-  if (!best || r.errors?.length) {
+  const stale = (verdict.fields ?? []).filter((f) => f.local);
+  if (stale.length) {
+    $('#summary-text').textContent = stale.length === 1 ? `Out of date: ${stale[0].label} cannot be read.` : `Out of date: ${stale.length} fields cannot be read.`;
+  } else if (!best || r.errors?.length) {
     $('#summary-text').textContent = verdict.errors.length || verdict.fieldErrorCount ? 'Some entries need attention.' : '';
   } else {
     $('#summary-text').textContent = `Cheapest to run: ${best.label ?? best.id}, ${ctx.format.money(best.annual_cost)} a year`;
@@ -160,9 +164,11 @@ function paintSheet() {
 function showErrors() {
   const errors = [...(verdict.result?.errors ?? []), ...(verdict.mc.errors ?? []).filter((e) => e.path?.startsWith('/uncertainty'))];
   const roots = [panels.house, panels.fuels, panels.systems];
-  const { unplaced, counts } = showFieldErrors(roots, errors, store.state, localErrors);
+  const { unplaced, counts, listed } = showFieldErrors(roots, errors, store.state, localErrors,
+    { warnings: verdict.result?.warnings ?? [], slipFor });
   verdict.errors = unplaced;
-  verdict.fieldErrorCount = [...counts.values()].reduce((a, b) => a + b, 0);
+  verdict.fields = listed;
+  verdict.fieldErrorCount = listed.length;
   for (const [name, root] of Object.entries({ house: panels.house, fuels: panels.fuels, systems: panels.systems })) {
     const tab = $(`#tab-${name}`);
     const n = counts.get(root) ?? 0;
@@ -872,7 +878,11 @@ const ACTIONS = {
     }
   },
   'export-csv': () => verdict.result && download(`${fileStem(store.state)}.csv`, 'text/csv', resultsCsv(verdict.result, store.state, verdict.by)),
-  'export-json': () => download(`${fileStem(store.state)}.json`, 'application/json', `${JSON.stringify(toScenario(store.state), null, 2)}\n`),
+  'export-json': () => {
+    const scenario = toScenario(store.state);
+    const answering = verdict.key === JSON.stringify(withoutUncertainty(scenario)) ? verdict.result : null;
+    download(`${fileStem(store.state)}.json`, 'application/json', `${JSON.stringify(exportDocument(store.state, answering), null, 2)}\n`);
+  },
   print: () => { paintSheet(); window.print(); },
   'climate-trace': () => openTrace({ title: 'Climate and heat need', trace: [...(verdict.result?.climate?.trace ?? []), ...(verdict.result?.demand?.trace ?? [])] }),
   'new-quote': () => {
@@ -947,7 +957,27 @@ const ACTIONS = {
     paintQuotes();
   },
   'retry-save': () => saveNow(),
+  'jump-to-field': ({ path }) => jumpToField(path),
+  'apply-fix': ({ path, value }) => {
+    const input = document.querySelector(`[data-path="${CSS.escape(path)}"]`);
+    const scale = Number(input?.dataset.scale ?? 1);
+    if (input) input.value = formatInput(Number(value) * scale, prefs.locale);
+    onField(path, Number(value), { structural: false });
+    input?.focus();
+  },
 };
+
+/** Shows the field at workspace `path`: its tab, any closed section around it opened, scrolled into view and focused. */
+function jumpToField(path) {
+  const input = document.querySelector(`.inputs [data-path="${CSS.escape(path)}"]`)
+    ?? document.querySelector(`.inputs [data-field="${CSS.escape(path)}"] [data-path]`);
+  if (!input) return;
+  const panel = input.closest('[data-panel]');
+  if (panel) setTab(panel.dataset.panel);
+  for (let d = input.closest('details'); d; d = d.parentElement?.closest('details')) d.open = true;
+  input.scrollIntoView({ block: 'center' });
+  input.focus({ preventScroll: true });
+}
 
 function onClick(event) {
   const tabButton = event.target.closest('button[data-tab]');

@@ -123,7 +123,10 @@ export function bindFields(root, ctx, localErrors) {
       ctx.onLocalError?.();
       return;
     }
-    if (localErrors.delete(path)) showMessage(root, path, '');
+    if (localErrors.delete(path)) {
+      showMessage(root, path, '');
+      ctx.onLocalError?.();
+    }
     ctx.onField(path, read.value, { structural: input.dataset.structural === '1', input });
   };
   root.addEventListener('input', onEvent);
@@ -157,45 +160,95 @@ function showMessage(root, path, text) {
   return true;
 }
 
+/** The words a person reads for a field: its card's title (a fuel, a system, a bill), then its own label. */
+export function fieldLabel(field) {
+  const own = field.querySelector(':scope > label, :scope > legend, label')?.textContent?.trim() ?? '';
+  const card = field.parentElement?.closest('.card, .row-card');
+  const title = card?.querySelector('.card-head h3, h3, h4')?.textContent?.trim();
+  return title && title !== own ? `${title}: ${own}` : own;
+}
+
 /**
- * Shows the core's errors next to their fields (and the local ones); returns the
- * errors no field on the page shows, and the count per panel.
+ * Shows the core's errors next to their fields (and the local ones), the core's warnings that point
+ * at a field as notes there, and the question about a likely slip (`slipFor`) with its one-tap fix.
+ * Returns the errors no field on the page shows, the count per panel, and `listed`: each field that
+ * needs attention as {path, label, tab, message, local} in page order (local: it cannot be read, so
+ * the verdict is out of date).
  */
-export function showFieldErrors(roots, errors, ws, localErrors) {
+export function showFieldErrors(roots, errors, ws, localErrors, { warnings = [], slipFor = () => null } = {}) {
   for (const root of roots) {
     for (const msg of root.querySelectorAll('.field-msg')) {
-      msg.textContent = '';
+      msg.replaceChildren();
       msg.hidden = true;
+      msg.classList.remove('note');
     }
     for (const input of root.querySelectorAll('[aria-invalid]')) input.removeAttribute('aria-invalid');
   }
   const byField = new Map();
   const unplaced = [];
   const counts = new Map(roots.map((root) => [root, 0]));
-  const place = (path, message) => {
+  const entry = (field, root) => {
+    if (!byField.has(field)) byField.set(field, { root, lines: [], notes: [], local: false, fix: null });
+    return byField.get(field);
+  };
+  const find = (path) => {
     for (const root of roots) {
       const field = fieldFor(root, path);
+      if (field) return { field, root };
+    }
+    return null;
+  };
+  for (const [path, message] of localErrors) {
+    const at = find(path);
+    if (at) Object.assign(entry(at.field, at.root), { local: true }).lines.push(message);
+  }
+  for (const error of errors) {
+    const at = error.path ? find(workspacePath(error.path, ws)) : null;
+    // a field that cannot be read shows only that: the core's answer is for the value before it
+    if (at) { if (!byField.get(at.field)?.local) entry(at.field, at.root).lines.push(plainUnits(error.message)); } else unplaced.push(error);
+  }
+  for (const warning of warnings) {
+    // a note about a field (not the option as a whole, which the verdict's notes name)
+    if (!/^\/(options\/\d+\/.+|economics\/.+|demand\/.+|climate\/.+)$/.test(warning.path ?? '')) continue;
+    const at = find(workspacePath(warning.path, ws));
+    if (at) entry(at.field, at.root).notes.push(plainUnits(warning.message));
+  }
+  for (const root of roots) {
+    for (const input of root.querySelectorAll('input[data-kind="number"]')) {
+      if (localErrors.has(input.dataset.path)) continue;
+      const slip = slipFor(input.dataset.path, ws);
+      const field = slip && input.closest('[data-field]');
       if (field) {
-        if (!byField.has(field)) byField.set(field, { root, lines: [] });
-        byField.get(field).lines.push(message);
-        return true;
+        const e = entry(field, root);
+        e.lines = [slip.message];
+        e.fix = slip.fix;
       }
     }
-    return false;
-  };
-  for (const [path, message] of localErrors) place(path, message);
-  for (const error of errors) {
-    const path = workspacePath(error.path ?? '', ws);
-    if (!error.path || !place(path, plainUnits(error.message))) unplaced.push(error);
   }
-  for (const [field, { root, lines }] of byField) {
+  const listed = [];
+  for (const [field, { root, lines, notes, local, fix }] of byField) {
     const msg = field.querySelector('.field-msg');
+    const error = lines.length > 0;
     if (msg) {
-      msg.textContent = lines.join('\n');
+      msg.textContent = (error ? lines : notes).join('\n');
+      msg.classList.toggle('note', !error);
+      if (fix) {
+        msg.append(' ', h('button', { type: 'button', class: 'fix', dataset: { action: 'apply-fix', path: fix.path, value: String(fix.value) }, text: fix.text }));
+      }
       msg.hidden = false;
     }
-    for (const input of field.querySelectorAll('[data-path]')) input.setAttribute('aria-invalid', 'true');
+    if (!error) continue;
+    const input = field.querySelector('[data-path]');
+    if (input) input.setAttribute('aria-invalid', 'true');
+    for (const other of field.querySelectorAll('[data-path]')) other.setAttribute('aria-invalid', 'true');
     counts.set(root, counts.get(root) + 1);
+    listed.push({ path: input?.dataset.path ?? field.dataset.field, label: fieldLabel(field), tab: root.dataset.panel, message: lines[0], local, field });
   }
-  return { unplaced, counts };
+  const order = new Map(roots.map((root, i) => [root, i]));
+  listed.sort((a, b) => {
+    const byRoot = order.get(a.field.closest('[data-panel]')) - order.get(b.field.closest('[data-panel]'));
+    if (byRoot) return byRoot;
+    return a.field.compareDocumentPosition(b.field) & Node.DOCUMENT_POSITION_FOLLOWING ? -1 : 1;
+  });
+  return { unplaced, counts, listed: listed.map(({ field, ...rest }) => rest) };
 }

@@ -118,8 +118,24 @@ export function createFormat({ locale, currency }) {
   };
 }
 
-/** Core words for units in a message ("-5 degF", "W/K") as people write them ("-5 °F"). */
-export const plainUnits = (text) => String(text ?? '').replace(/\bdegF\b/g, '°F').replace(/\bdegC\b/g, '°C');
+/** The core's names of scenario fields in its messages, and the words the page uses for them. */
+const FIELD_WORDS = [
+  [/\(set demand\.balance_point\)/g, '(give the balance point under Heat need)'],
+  [/\bdemand\.balance_point\b/g, 'the balance point under Heat need'],
+  [/\bsettings\.electricity or an electricity option\b/g, 'an electricity price for the equipment on the Fuels tab'],
+  [/\bsettings\.electricity\b/g, 'the electricity price for the equipment (Fuels tab)'],
+  [/\bmonthly_sd\b/g, 'the spread of daily temperatures'],
+  [/\bdaily_range\b/g, 'the daily temperature range'],
+  [/\bmonthly_mean \(12 values\)/g, 'the twelve monthly mean temperatures'],
+  [/\bmonthly_hdd \(12 values\)/g, 'twelve monthly degree-days'],
+  [/\bannual_hdd\b/g, 'annual degree-days'],
+  [/\bdesign_temperature\b/g, 'the design temperature'],
+  [/\bno bill_dates given\b/g, 'no bill-date rule chosen'],
+];
+
+/** Core words in a message ("-5 degF", "set demand.balance_point") as people write them ("-5 °F", "give the balance point"). */
+export const plainUnits = (text) => FIELD_WORDS.reduce((t, [pattern, words]) => t.replace(pattern, words),
+  String(text ?? '').replace(/\bdegF\b/g, '°F').replace(/\bdegC\b/g, '°C'));
 
 /** Short month names of the locale, January first. */
 /** A message of the core ("the lines never cross") as a sentence: capital first letter, full stop. */

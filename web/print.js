@@ -7,7 +7,7 @@ import { costBars } from './charts.js';
 import { asSentence } from './format.js';
 import { fuelName } from './views/fuels.js';
 import { KIND_NAMES } from './views/systems.js';
-import { equipmentNotes, displayValues, rankedOptions } from './views/verdict.js';
+import { equipmentNotes, displayValues, lifeOf, paybackWords, rankedOptions } from './views/verdict.js';
 import { FUEL_BURNING_KINDS, STAGES, auxiliaryDefault, equipmentElectricityPrice, powerText } from './equipment.js';
 import { HEAT_PUMP_KINDS } from './scenario.js';
 import { ENERGY_KWH, unitLabel } from './units.js';
@@ -76,7 +76,8 @@ function resultsTable(ws, result, ctx) {
       return h('tr', {}, h('td', { text: String(i + 1) }), h('td', { text: o.label ?? o.id }), h('td', { text: format.money(v.annual_cost) }),
         h('td', { text: format.price(v.cost_per_useful) }), h('td', { text: `${format.number(v.fuel_quantity)} ${unitLabel(o.fuel_quantity?.unit ?? '')}` }),
         h('td', { text: format.number(v.co2e, 3) }),
-        ...(econ ? [h('td', { text: Number.isFinite(o.simple_payback_years) ? `${format.number(o.simple_payback_years, 3)} yr` : (o.simple_payback_reason ?? '—') }),
+        ...(econ ? [h('td', { text: paybackWords(o, { lifeYears: lifeOf(ws, o.id), studyYears: result.economics?.analysis_years,
+          baselineId: result.economics?.baseline, format }) ?? 'the system now' }),
           h('td', { text: format.money(o.life_cycle_cost) })] : []));
     })));
 }

@@ -342,6 +342,31 @@ function keptServicesOf(ws) {
   return out;
 }
 
+/** The fuel half of an option (fuel, price, fixed charges, heating value and the wood details) of a fuel entry. */
+function fuelPartOf(entry) {
+  const option = {};
+  option.fuel = typeof entry.fuel === 'string' ? entry.fuel : customFuelOf(entry.fuel);
+  option.price = { amount: entry.price?.amount, per: entry.price?.per };
+  if (!isNumber(option.price.amount)) delete option.price.amount;
+  if (Array.isArray(entry.price?.tiers) && entry.price.tiers.length) option.price.tiers = tiersOf(entry.price.tiers);
+  const charges = (entry.fixed_charges ?? []).map(fixedChargeOf).filter((c) => 'amount_per_month' in c || 'amount_per_year' in c);
+  if (charges.length) option.fixed_charges = charges;
+  if (isNumber(entry.heating_value?.value)) {
+    option.heating_value = { value: entry.heating_value.value, unit: entry.heating_value.unit };
+    put(option.heating_value, 'basis', entry.heating_value.basis);
+  }
+  const fid = fuelId(entry);
+  if (fid === 'cordwood') {
+    put(option, 'wood_species', entry.wood_species || undefined);
+    if (isNumber(entry.face_cord_fraction)) option.face_cord_fraction = entry.face_cord_fraction;
+  }
+  if (fid === 'cordwood' || fid === 'wood-pellets') {
+    if (isNumber(entry.moisture_pct)) option.moisture_pct = entry.moisture_pct;
+  }
+  if (fid === 'wood-pellets' && option.price.per === 'bag') put(option, 'bag_mass', quantity(entry.bag_mass));
+  return option;
+}
+
 /** Builds the scenario document of a workspace (what is exported, evaluated and saved). */
 export function toScenario(ws) {
   const doc = { schema: SCENARIO_SCHEMA };
@@ -368,27 +393,7 @@ export function toScenario(ws) {
     const entry = fuels.get(sys.fuel_key);
     const option = { id: sys.id };
     put(option, 'label', isText(sys.label) ? sys.label : undefined);
-    if (entry) {
-      option.fuel = typeof entry.fuel === 'string' ? entry.fuel : customFuelOf(entry.fuel);
-      option.price = { amount: entry.price?.amount, per: entry.price?.per };
-      if (!isNumber(option.price.amount)) delete option.price.amount;
-      if (Array.isArray(entry.price?.tiers) && entry.price.tiers.length) option.price.tiers = tiersOf(entry.price.tiers);
-      const charges = (entry.fixed_charges ?? []).map(fixedChargeOf).filter((c) => 'amount_per_month' in c || 'amount_per_year' in c);
-      if (charges.length) option.fixed_charges = charges;
-      if (isNumber(entry.heating_value?.value)) {
-        option.heating_value = { value: entry.heating_value.value, unit: entry.heating_value.unit };
-        put(option.heating_value, 'basis', entry.heating_value.basis);
-      }
-      const fid = fuelId(entry);
-      if (fid === 'cordwood') {
-        put(option, 'wood_species', entry.wood_species || undefined);
-        if (isNumber(entry.face_cord_fraction)) option.face_cord_fraction = entry.face_cord_fraction;
-      }
-      if (fid === 'cordwood' || fid === 'wood-pellets') {
-        if (isNumber(entry.moisture_pct)) option.moisture_pct = entry.moisture_pct;
-      }
-      if (fid === 'wood-pellets' && option.price.per === 'bag') put(option, 'bag_mass', quantity(entry.bag_mass));
-    }
+    if (entry) Object.assign(option, fuelPartOf(entry));
     option.system = systemOf(sys.system ?? {});
     if (ws.economics?.enabled) {
       if (sys.existing) option.existing = true;
@@ -523,6 +528,55 @@ function keptServicesFromScenario(ws, kept) {
 }
 
 /** Builds a workspace from a scenario document (an imported file or an example). */
+/** A fuel entry of the workspace from the fuel half of an option (or an entry of `other_fuels`). */
+function fuelEntryOf(ws, fuelPart) {
+  const entry = {
+    key: newFuelKey(ws),
+    fuel: typeof fuelPart.fuel === 'object' && fuelPart.fuel
+      ? { kind: fuelPart.fuel.formula !== undefined ? 'formula' : fuelPart.fuel.mixture !== undefined ? 'mixture' : 'ultimate', ...fuelPart.fuel }
+      : fuelPart.fuel ?? '',
+    price: fuelPart.price ?? { per: '' },
+    fixed_charges: fuelPart.fixed_charges ?? [],
+  };
+  for (const key of ['heating_value', 'wood_species', 'moisture_pct', 'bag_mass', 'face_cord_fraction']) {
+    if (fuelPart[key] !== undefined) entry[key] = fuelPart[key];
+  }
+  return entry;
+}
+
+/**
+ * The quote file the page exports: the scenario, every fuel entered (those no option uses as
+ * `other_fuels`) and, when `result` answers this scenario, a `results` summary of the verdict
+ * (full precision, for other programs; the core does not read it back).
+ */
+export function exportDocument(ws, result) {
+  const doc = toScenario(ws);
+  const used = new Set(ws.systems.map((s) => s.fuel_key));
+  const other = ws.fuels.filter((f) => !used.has(f.key)).map(fuelPartOf);
+  if (other.length) doc.other_fuels = other;
+  const results = resultsSummaryOf(result);
+  if (results) doc.results = results;
+  return doc;
+}
+
+/** The verdict as an export carries it: the core's ranking with each option's yearly figures, or null. */
+export function resultsSummaryOf(result) {
+  if (!result || result.errors?.length || !Array.isArray(result.options) || !result.ranking?.length) return null;
+  const byId = new Map(result.options.map((o) => [o.id, o]));
+  const keys = ['annual_cost', 'energy_cost', 'fixed_cost', 'cost_per_useful_kwh', 'fuel_quantity', 'backup_fuel_quantity', 'co2e_kg',
+    'net_installed_cost', 'annual_saving', 'simple_payback_years', 'discounted_payback_years', 'npv', 'life_cycle_cost', 'lcoh_per_kwh'];
+  return {
+    currency: result.settings?.currency ?? '',
+    useful_heat_kwh: result.options[0]?.useful_heat_kwh,
+    ranking: result.ranking.map(({ id }) => {
+      const o = byId.get(id) ?? {};
+      const row = { id, label: o.label || id };
+      for (const key of keys) if (o[key] !== undefined && o[key] !== null) row[key] = clone(o[key]);
+      return row;
+    }),
+  };
+}
+
 export function fromScenario(doc) {
   if (!doc || typeof doc !== 'object' || doc.schema !== SCENARIO_SCHEMA) {
     if (typeof doc?.schema === 'string' && doc.schema.startsWith(`${SCENARIO_FAMILY}/`)) {
@@ -570,17 +624,7 @@ export function fromScenario(doc) {
     const signature = JSON.stringify(FUEL_FIELDS.map((key) => fuelPart[key] ?? null));
     let entry = byFuel.get(signature);
     if (!entry) {
-      entry = {
-        key: newFuelKey(ws),
-        fuel: typeof fuelPart.fuel === 'object' && fuelPart.fuel
-          ? { kind: fuelPart.fuel.formula !== undefined ? 'formula' : fuelPart.fuel.mixture !== undefined ? 'mixture' : 'ultimate', ...fuelPart.fuel }
-          : fuelPart.fuel ?? '',
-        price: fuelPart.price ?? { per: '' },
-        fixed_charges: fuelPart.fixed_charges ?? [],
-      };
-      for (const key of ['heating_value', 'wood_species', 'moisture_pct', 'bag_mass', 'face_cord_fraction']) {
-        if (fuelPart[key] !== undefined) entry[key] = fuelPart[key];
-      }
+      entry = fuelEntryOf(ws, fuelPart);
       byFuel.set(signature, entry);
       ws.fuels.push(entry);
     }
@@ -595,6 +639,10 @@ export function fromScenario(doc) {
     ws.systems.push(sys);
   }
 
+  // priced fuels no option uses, kept with the quote (an export carries every fuel entered)
+  for (const part of Array.isArray(doc.other_fuels) ? doc.other_fuels : []) {
+    if (part && typeof part === 'object') ws.fuels.push(fuelEntryOf(ws, part));
+  }
   keptServicesFromScenario(ws, settings.kept_services);
 
   if (doc.economics && typeof doc.economics === 'object') {

@@ -709,8 +709,14 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
                 parse_day_number(*date, "/quote/date");
             warn_unknown_keys(quote, {"customer", "site", "date", "prepared_by", "notes"}, "/quote", warnings);
         }
+        // `other_fuels` (priced fuels no option uses) and `results` (the verdict as exported) travel with a
+        // quote file for people and other programs; the evaluation does not read them.
+        if (document.contains("other_fuels") && !document.at("other_fuels").is_array())
+            throw input_error("/other_fuels", "must be a list of fuels with their prices");
+        if (document.contains("results") && !document.at("results").is_object())
+            throw input_error("/results", "must be an object (the verdict as exported)");
         warn_unknown_keys(document, {"schema", "title", "description", "quote", "settings", "demand", "options", "climate",
-                                     "economics", "uncertainty"},
+                                     "economics", "uncertainty", "other_fuels", "results"},
                           "", warnings);
     });
     if (!errors.empty()) return out;

@@ -417,22 +417,31 @@ describe('Chromium, tablet portrait 820x1180 with touch', () => {
     const file = join(ARTIFACTS, 'exported-quote.json');
     await download.saveAs(file);
     const exported = JSON.parse(readFileSync(file, 'utf8'));
-    assert.deepEqual(exported, typedScenario());
+    // the scenario as typed, and the verdict it answers as a summary for other programs
+    const { results, ...scenario } = exported;
+    assert.deepEqual(scenario, typedScenario());
+    const answer = await cliEvaluate(scenario);
+    assert.deepEqual(results.ranking.map((r) => r.id), answer.ranking.map((r) => r.id));
+    assert.ok(close(results.ranking[0].annual_cost, answer.options.find((o) => o.id === answer.ranking[0].id).annual_cost));
     assert.deepEqual(await importAndWait(page, file), { ok: true, text: 'Imported “exported-quote.json”.' });
     await settled();
     const [again] = await Promise.all([page.waitForEvent('download'), page.tap('[data-action="export-json"]')]);
     const file2 = join(ARTIFACTS, 'reexported-quote.json');
     await again.saveAs(file2);
     assert.deepEqual(JSON.parse(readFileSync(file2, 'utf8')), exported);
-    const cli = await cliEvaluate(exported);
+    const cli = await cliEvaluate(scenario);
     const shown = await row(cli.options[0].id);
     assert.ok(close(shown.annual.value, cli.options[0].annual_cost));
     const [csv] = await Promise.all([page.waitForEvent('download'), (async () => { await tab('verdict'); await page.tap('[data-action="export-csv"]'); })()]);
     const csvFile = join(ARTIFACTS, 'results.csv');
     await csv.saveAs(csvFile);
+    // the quote's rows, a blank line, the table; money in whole units as the verdict shows it
     const lines = readFileSync(csvFile, 'utf8').trim().split(/\r\n/);
-    assert.equal(lines.length, 1 + cli.options.length);
-    assert.ok(lines[1].includes(String(cli.ranking[0].annual_cost)), lines[1]);
+    const head = lines.indexOf('');
+    assert.equal(lines[head + 1].split(',')[0], 'rank');
+    assert.ok(lines.slice(0, head).some((l) => l.startsWith('customer,')), lines.slice(0, head).join(' | '));
+    assert.equal(lines.length, head + 2 + cli.options.length);
+    assert.ok(lines[head + 2].includes(`,${Math.round(cli.ranking[0].annual_cost)},`), lines[head + 2]);
     // a file that is not a scenario is refused with a message
     const bad = join(ARTIFACTS, 'not-a-scenario.json');
     writeFileSync(bad, JSON.stringify({ schema: 'something-else' }));

@@ -74,9 +74,35 @@ export function rankedOptions(result, by) {
   return list;
 }
 
-function years(value, format) {
-  return `${format.number(value, 3)} years`;
+/** A number of years as people say it: one decimal below 10 ("7.4 years"), whole years above ("24 years"). */
+export function years(value, format) {
+  const rounded = value < 10 ? Math.round(value * 10) / 10 : Math.round(value);
+  return `${format.number(rounded, 3)} ${rounded === 1 ? 'year' : 'years'}`;
 }
+
+/**
+ * An option's payback in plain words for the customer (pure): "7.4 years"; "does not pay back within
+ * its 15-year life" when it would take longer than the equipment lasts (`lifeYears`, as entered); "no
+ * saving a year: it costs $48 more to run" when there is nothing to pay back with; null for the system
+ * in the house now. `key`: simple_payback_years or discounted_payback_years.
+ */
+export function paybackWords(option, { key = 'simple_payback_years', lifeYears, studyYears, baselineId, format }) {
+  if (option.id === baselineId) return null;
+  const value = option[key];
+  const life = isNum(lifeYears) && lifeYears > 0 ? lifeYears : null;
+  if (isNum(value)) {
+    if (life && value > life) return `does not pay back within its ${format.number(life, 3)}-year life`;
+    return years(value, format);
+  }
+  if (isNum(option.annual_saving) && option.annual_saving <= 0) {
+    return option.annual_saving < 0 ? `no saving a year: it costs ${format.money(-option.annual_saving)} more to run` : 'no saving a year';
+  }
+  if (life) return `does not pay back within its ${format.number(life, 3)}-year life`;
+  return isNum(studyYears) ? `does not pay back within ${format.number(studyYears, 3)} years` : 'does not pay back';
+}
+
+/** The expected life entered for the option `id` (its system in the workspace), or undefined. */
+export const lifeOf = (ws, id) => ws.systems?.find((s) => s.id === id)?.life_years;
 
 function table(result, ws, ctx, by) {
   const { format } = ctx;
@@ -123,12 +149,11 @@ function economicsSection(result, ws, ctx) {
   const cell = (option, key, value, text, sub) => h('td', {}, numButton(option, key, value, text, ECONOMIC_LABELS[key]),
     sub ? h('span', { class: 'sub reason', text: sub }) : null);
   const paybackCell = (option, key) => {
-    const value = option[key];
-    if (isNum(value)) return cell(option, key, value, years(value, format));
-    if (option.id === e.baseline) return cell(option, key, undefined, '—');
     // the full reason is in the trace; the table says it in a few words
-    const short = !(option.annual_saving > 0) ? 'no saving a year' : isNum(n) ? `not within ${n} years` : option[key.replace('_years', '_reason')];
-    return cell(option, key, undefined, '—', short);
+    const words = paybackWords(option, { key, lifeYears: lifeOf(ws, option.id), studyYears: n, baselineId: e.baseline, format });
+    if (words === null) return cell(option, key, undefined, '—');
+    if (isNum(option[key]) && words === years(option[key], format)) return cell(option, key, option[key], words);
+    return cell(option, key, option[key], '—', words);
   };
   const money = (v) => (isNum(v) ? format.money(v) : '—');
   const rows = rankedOptions(result, 'life').map((option, i) => {
@@ -176,7 +201,9 @@ function headline(result, ws, ctx, by) {
   const baseline = result.economics?.baseline;
   if (baseline && best.id !== baseline && isNum(best.annual_saving)) {
     const base = list.find((o) => o.id === baseline);
-    const pay = isNum(best.simple_payback_years) ? `, paying back in ${years(best.simple_payback_years, format)}` : '';
+    const words = paybackWords(best, { lifeYears: lifeOf(ws, best.id), studyYears: n, baselineId: baseline, format });
+    const pay = !words ? '' : isNum(best.simple_payback_years) && words === years(best.simple_payback_years, format)
+      ? `, paying back in ${words}` : `, but it ${words}`;
     const now = `${base?.label ?? baseline}, the system in the house now`;
     lines.push(h('p', { id: 'switch-line' }, best.annual_saving >= 0
       ? `Against ${now}, it saves ${format.money(best.annual_saving)} a year${pay}.`
@@ -477,12 +504,16 @@ export function showDrawProgress(container, ctx, fraction) {
   if (status) status.textContent = `Drawing prices… ${ctx.format.percent(fraction)}`;
 }
 
+const TAB_NAMES = { house: 'House', fuels: 'Fuels', systems: 'Systems' };
+
 /** A note from the calculation in words: the option it is about named first, units as people write them. */
-export function warningText(w, result) {
+export function warningText(w, ws) {
   const message = plainUnits(w?.message ?? String(w));
-  const m = /^\/options\/(\d+)$/.exec(w?.path ?? '');
-  const option = m ? result.options?.[Number(m[1])] : null;
-  return option ? `${option.label ?? option.id}: ${message}` : message;
+  // the path's index is the scenario's option (one per system of the workspace), not the result's:
+  // an option with an error is left out of the result's list
+  const m = /^\/options\/(\d+)(\/|$)/.exec(w?.path ?? '');
+  const system = m ? ws?.systems?.[Number(m[1])] : null;
+  return system ? `${system.label || system.id}: ${message}` : message;
 }
 
 function cautionsBlock(result) {
@@ -506,7 +537,7 @@ function keep(name, key, build) {
 }
 
 /**
- * Renders the verdict from the latest result. `state` = {result, errors (unplaced), fieldErrorCount, by,
+ * Renders the verdict from the latest result. `state` = {result, errors (unplaced), fields (listed by showFieldErrors), by,
  * analysis: {state, fuelIndex, sweep, breakEven, pair, tornado}, mc: {state, fraction, uncertainty, stale}}.
  * `options.kiosk` leaves out the file and print actions.
  */
@@ -520,9 +551,20 @@ export function renderVerdict(container, ctx, state, { kiosk = false } = {}) {
       h('p', { text: 'Some entries need attention:' }),
       h('ul', {}, errors.map((e) => h('li', { text: e.path ? `${e.path}: ${e.message}` : e.message })))));
   }
-  if (state.fieldErrorCount) {
-    parts.push(h('p', { class: 'problems', id: 'verdict-field-errors', text: state.fieldErrorCount === 1
-      ? '1 field needs attention: see the message next to it.' : `${state.fieldErrorCount} fields need attention: see the messages next to them.` }));
+  const fields = state.fields ?? [];
+  const stale = fields.filter((f) => f.local);
+  container.classList.toggle('stale', stale.length > 0 && Boolean(result));
+  if (stale.length && result) {
+    parts.push(h('p', { class: 'stale-note', id: 'verdict-stale', role: 'status', text: `Out of date: ${stale.map((f) => f.label).join(', ')} `
+      + 'cannot be read, so the figures below are for the earlier entries.' }));
+  }
+  if (fields.length) {
+    parts.push(h('div', { class: 'problems', id: 'verdict-field-errors' },
+      h('p', { text: fields.length === 1 ? '1 field needs attention:' : `${fields.length} fields need attention:` }),
+      h('ul', {}, fields.map((f) => h('li', {},
+        h('button', { type: 'button', class: 'link', dataset: { action: 'jump-to-field', path: f.path },
+          text: `${f.label} (${TAB_NAMES[f.tab] ?? f.tab})` }),
+        h('span', { text: ` — ${f.message}` }))))));
   }
   if (!result) {
     container.replaceChildren(...parts, h('p', { class: 'status', text: 'Add a fuel and a system to see the verdict.' }));
@@ -559,7 +601,7 @@ export function renderVerdict(container, ctx, state, { kiosk = false } = {}) {
   const warnings = result.warnings ?? [];
   if (warnings.length) {
     parts.push(h('div', { class: 'warnings', id: 'verdict-warnings' }, h('h3', { text: 'Notes from the calculation' }),
-      h('ul', {}, warnings.map((w) => h('li', { text: warningText(w, result) })))));
+      h('ul', {}, warnings.map((w) => h('li', { text: warningText(w, ws) })))));
   }
   parts.push(cautionsBlock(result));
   if (!kiosk) {
@@ -682,7 +724,26 @@ export function bindVerdict(container, ctx, getState) {
   });
 }
 
-/** The results table as CSV text (numbers with a point, in the display units). */
+/** Numbers as the verdict shows them: yearly money in whole units, prices to 2 decimals (4 below 0.1), quantities to 4 significant digits. */
+const SHOWN = {
+  money: (v) => Math.round(v),
+  price: (v) => Number(v.toFixed(Math.abs(v) < 0.1 && v !== 0 ? 4 : 2)),
+  quantity: (v) => (Math.abs(v) >= 1e4 ? Math.round(v) : Number(v.toPrecision(4))),
+  years: (v) => Number(v.toFixed(1)),
+};
+
+/** A CSV cell: a number as shown (never quoted, negative ones included), text quoted where needed and never read as a formula. */
+function csvCell(value, kind) {
+  if (typeof value === 'number') return Number.isFinite(value) ? String(SHOWN[kind] ? SHOWN[kind](value) : value) : '';
+  const text = value === undefined || value === null ? '' : String(value);
+  const guarded = /^[=+\-@\t\r]/.test(text) ? `'${text}` : text;
+  return /[",\n\r]/.test(guarded) || guarded !== text ? `"${guarded.replaceAll('"', '""')}"` : guarded;
+}
+
+/**
+ * The results table as CSV text (numbers with a point, in the display units, rounded as the verdict shows
+ * them), after the quote's customer, site, date and number.
+ */
 export function resultsCsv(result, ws, by = 'annual') {
   const energyUnit = ws.settings.energy_unit;
   const massUnit = ws.settings.units === 'us' ? 'lb' : 'kg';
@@ -696,20 +757,21 @@ export function resultsCsv(result, ws, by = 'annual') {
       `NPV (${currency})`, `life-cycle cost (${currency})`, `levelized cost per useful ${energyUnit} (${currency})`, 'CO2e avoided over the period (t)',
       `cost per tonne CO2e avoided (${currency})`);
   }
-  const quote = (v) => {
-    const text = v === undefined || v === null ? '' : String(v);
-    return /[",\n\r]/.test(text) || /^[=+\-@]/.test(text) ? `"${(/^[=+\-@]/.test(text) && !/^-?\d/.test(text) ? `'${text}` : text).replaceAll('"', '""')}"` : text;
-  };
-  const lines = [header.map(quote).join(',')];
+  const q = ws.quote ?? {};
+  const lines = [['quote number', q.number], ['customer', q.customer], ['site', q.site], ['date', q.date], ['prepared by', q.prepared_by]]
+    .filter(([, v]) => v !== undefined && v !== null && String(v).trim() !== '')
+    .map(([k, v]) => [csvCell(k), csvCell(String(v))].join(','));
+  if (lines.length) lines.push('');
+  lines.push(header.map((c) => csvCell(c)).join(','));
   list.forEach((o, i) => {
     const v = displayValues(o, ws);
-    const row = [i + 1, o.id, o.label ?? o.id, o.fuel_name ?? o.fuel, v.annual_cost, v.energy_cost, v.fixed_cost, v.cost_per_useful,
-      v.fuel_quantity, o.fuel_quantity?.unit, v.co2e];
+    const row = [[i + 1], [o.id], [o.label ?? o.id], [o.fuel_name ?? o.fuel], [v.annual_cost, 'money'], [v.energy_cost, 'money'],
+      [v.fixed_cost, 'money'], [v.cost_per_useful, 'price'], [v.fuel_quantity, 'quantity'], [o.fuel_quantity?.unit], [v.co2e, 'quantity']];
     if (econ) {
-      row.push(o.net_installed_cost ?? '', o.annual_saving ?? '', o.simple_payback_years ?? '', o.discounted_payback_years ?? '', o.npv ?? '',
-        o.life_cycle_cost ?? '', v.lcoh ?? '', v.co2e_saved_t ?? '', o.cost_per_tonne_co2e_avoided ?? '');
+      row.push([o.net_installed_cost, 'money'], [o.annual_saving, 'money'], [o.simple_payback_years, 'years'], [o.discounted_payback_years, 'years'],
+        [o.npv, 'money'], [o.life_cycle_cost, 'money'], [v.lcoh, 'price'], [v.co2e_saved_t, 'quantity'], [o.cost_per_tonne_co2e_avoided, 'money']);
     }
-    lines.push(row.map(quote).join(','));
+    lines.push(row.map(([value, kind]) => csvCell(value, kind)).join(','));
   });
   return `${lines.join('\r\n')}\r\n`;
 }

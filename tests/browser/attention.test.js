@@ -1,0 +1,130 @@
+// Entries that need attention, in headless Chromium with touch, driven as a person would (taps
+// and typing): a price typed as "$1.45" marks the verdict out of date at once and names the field
+// until it reads again; an AFUE typed as 0.95 is asked about with a one-tap fix to 95 %; the
+// verdict's list of fields to fix jumps to the field (its tab, in view, focused, nothing covering
+// it), at 768x1024 and 390x844. Screenshots go to build/test-artifacts. The demo is invented.
+import assert from 'node:assert/strict';
+import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { after, before, describe, test } from 'node:test';
+
+import { TOUCH, launchTablet, verdictSettled, watchPage } from './chromium-page.js';
+import { siteDir } from '../node/helpers.js';
+import { serve } from './server.js';
+
+const TIMEOUT = 90_000;
+const ARTIFACTS = resolve(process.env.FUELWRIGHT_ARTIFACTS ?? join(siteDir, '..', 'test-artifacts'));
+const id = (path) => `#f${path.replace(/[^A-Za-z0-9]+/g, '-')}`;
+const GAS_PRICE = id('/fuels/1/price/amount');
+const GAS_AFUE = id('/systems/1/system/efficiency/value');
+
+let server;
+before(async () => {
+  mkdirSync(ARTIFACTS, { recursive: true });
+  server = await serve(siteDir);
+}, { timeout: TIMEOUT });
+after(async () => { await server?.close(); }, { timeout: TIMEOUT });
+
+/** Opens the demo on a fresh profile at `viewport`; {context, page, profile, consoleErrors}. */
+async function open(viewport) {
+  const profile = mkdtempSync(join(tmpdir(), 'fuelwright-attention-'));
+  const { context, page } = await launchTablet(profile, { ...TOUCH, viewport });
+  const consoleErrors = [];
+  watchPage(page, { consoleErrors });
+  await page.goto(server.url);
+  await verdictSettled(page);
+  return { context, page, profile, consoleErrors };
+}
+
+async function close({ context, profile }) {
+  await context.close();
+  rmSync(profile, { recursive: true, force: true });
+}
+
+/** Taps a field and types into it as a person does (what was there first is cleared). */
+async function typeInto(page, selector, text) {
+  await page.tap(selector);
+  await page.fill(selector, '');
+  await page.type(selector, text);
+}
+
+for (const viewport of [{ width: 768, height: 1024 }, { width: 390, height: 844 }]) {
+  const size = `${viewport.width}x${viewport.height}`;
+  describe(`Entries that need attention (Chromium, ${size} with touch)`, () => {
+    test('an unreadable price marks the verdict out of date at once, naming the field, until it reads', { timeout: TIMEOUT }, async () => {
+      const session = await open(viewport);
+      const { page } = session;
+      try {
+        await page.tap('#tab-fuels');
+        await typeInto(page, GAS_PRICE, '$1.45');
+        await page.waitForSelector('#verdict-stale', { state: 'attached' });
+        assert.equal(await page.textContent(`${id('/fuels/1/price/amount')}-msg`), 'Not a number');
+        assert.match(await page.textContent('#verdict-stale'),
+          /^Out of date: Natural gas: Price \(USD\) cannot be read, so the figures below are for the earlier entries\.$/);
+        assert.equal(await page.$eval('#verdict-body', (b) => b.classList.contains('stale')), true);
+        assert.match(await page.textContent('#summary-text'), /^Out of date: Natural gas: Price \(USD\) cannot be read\.$/);
+        await typeInto(page, GAS_PRICE, '1.45');
+        await page.waitForSelector('#verdict-stale', { state: 'detached' });
+        await verdictSettled(page);
+        assert.equal(await page.$eval('#verdict-body', (b) => b.classList.contains('stale')), false);
+        assert.deepEqual(session.consoleErrors, []);
+      } finally {
+        await close(session);
+      }
+    });
+
+    test('an AFUE typed as 0.95 is asked about and fixed to 95 % in one tap', { timeout: TIMEOUT }, async () => {
+      const session = await open(viewport);
+      const { page } = session;
+      try {
+        await page.tap('#tab-systems');
+        await typeInto(page, GAS_AFUE, '0.95');
+        const question = `${GAS_AFUE}-msg`;
+        await page.waitForFunction((sel) => document.querySelector(sel)?.textContent.includes('did you mean 95 %?'), question);
+        assert.equal(await page.textContent(`${question} button.fix`), 'Use 95 %');
+        await page.screenshot({ path: join(ARTIFACTS, `attention-afue-question-${size}.png`) });
+        await page.tap(`${question} button.fix`);
+        await verdictSettled(page);
+        assert.equal(await page.inputValue(GAS_AFUE), '95');
+        assert.equal(await page.isHidden(question), true);
+        assert.equal(await page.$('#verdict-field-errors'), null);
+        assert.deepEqual(session.consoleErrors, []);
+      } finally {
+        await close(session);
+      }
+    });
+
+    test("the verdict's list of fields to fix jumps to the field, in view and focused", { timeout: TIMEOUT }, async () => {
+      const session = await open(viewport);
+      const { page } = session;
+      try {
+        await page.tap('#tab-fuels');
+        await typeInto(page, GAS_PRICE, 'abc');
+        await page.waitForSelector('#verdict-field-errors', { state: 'attached' });
+        // Away from the field: the verdict's tab (beside the inputs on a wide screen, its own tab here).
+        await page.tap('#tab-verdict');
+        const link = '#verdict-field-errors button[data-action="jump-to-field"]';
+        assert.equal(await page.textContent(link), 'Natural gas: Price (USD) (Fuels)');
+        await page.screenshot({ path: join(ARTIFACTS, `attention-list-${size}.png`) });
+        await page.tap(link);
+        assert.equal(await page.getAttribute('#tab-fuels', 'aria-selected'), 'true');
+        assert.equal(await page.evaluate(() => document.activeElement?.dataset.path), '/fuels/1/price/amount');
+        const box = await page.$eval(GAS_PRICE, (input) => {
+          const r = input.getBoundingClientRect();
+          const covering = [...document.querySelectorAll('.summary-bar, .tabs, .topbar')]
+            .filter((bar) => getComputedStyle(bar).position.match(/fixed|sticky/) && bar.offsetParent !== null || getComputedStyle(bar).position === 'fixed' && getComputedStyle(bar).display !== 'none')
+            .map((bar) => bar.getBoundingClientRect())
+            .filter((b) => b.height > 0 && b.bottom > r.top && b.top < r.bottom);
+          return { top: r.top, bottom: r.bottom, covered: covering.length };
+        });
+        assert.ok(box.top >= 0 && box.bottom <= viewport.height, `in view: ${JSON.stringify(box)}`);
+        assert.equal(box.covered, 0, 'no sticky bar covers the focused field');
+        await page.screenshot({ path: join(ARTIFACTS, `attention-jumped-${size}.png`) });
+        assert.deepEqual(session.consoleErrors, []);
+      } finally {
+        await close(session);
+      }
+    });
+  });
+}
