@@ -12,12 +12,14 @@ import { isKiosk } from './kiosk-scenario.js';
 import { registerServiceWorker } from './offline.js';
 import { renderQuoteSheet } from './print.js';
 import { slipFor } from './slips.js';
+import { MAX_LOGO_BYTES, companyOf, normalizeProfile, takeQuoteNumber, validUntil } from './profile.js';
+import { renderProfile } from './views/profile.js';
 import {
   HEAT_PUMP_KINDS, blankWorkspace, exportDocument, fuelId, newFuelKey, toScenario, today, uniqueSystemId, withoutUncertainty,
 } from './scenario.js';
 import {
-  FORKED_MESSAGE, currentQuoteId, forgetUnsaved, keepUnsaved, loadPreferences, makeRecord, migrateRecord, newId, notDeletedMessage, notMigratedMessage, notRestoredMessage,
-  notSavedMessage, openQuotes, recordProblem, savePreferences, setCurrentQuoteId, unsavedNewerThan, verdictSummary, workspaceFromFile,
+  FORKED_MESSAGE, currentQuoteId, forgetUnsaved, keepUnsaved, loadPreferences, loadProfile, makeRecord, migrateRecord, newId, notDeletedMessage, notMigratedMessage, notRestoredMessage,
+  notSavedMessage, openQuotes, recordProblem, savePreferences, saveProfile, setCurrentQuoteId, unsavedNewerThan, verdictSummary, workspaceFromFile,
   workspaceOf,
 } from './storage.js';
 import { Store, setAt } from './store.js';
@@ -48,6 +50,7 @@ const charts = new CoreClient();
 const draws = new CoreClient();
 const store = new Store(blankWorkspace());
 const localErrors = new Map();
+let profile = normalizeProfile(loadProfile());
 const panels = {};
 const prefs = { locale: 'en-US', tab: 'house', ...loadPreferences() };
 if (!isLocale(prefs.locale)) prefs.locale = 'en-US';
@@ -149,6 +152,53 @@ function paintSummary() {
 
 function paintQuotes() {
   keepingFocus(() => renderQuotes(panels.saved, ctx, quotes));
+  const slot = panels.saved.querySelector('#profile-slot');
+  if (slot && !slot.firstChild) paintProfile();
+}
+
+function paintProfile(message) {
+  const slot = panels.saved?.querySelector('#profile-slot');
+  if (slot) keepingFocus(() => renderProfile(slot, profile, message));
+}
+
+/** A profile field typed: kept on the device, and the open quote's company block follows. */
+function onProfileInput(event) {
+  const key = event.target?.dataset?.profile;
+  if (!key) return;
+  const raw = event.target.value;
+  const next = { ...profile, [key]: key === 'validity_days' || key === 'next_number' ? Number(raw.trim()) : raw };
+  profile = normalizeProfile(next);
+  saveProfile(profile);
+  store.set('/quote/company', companyOf(profile));
+  if (key === 'terms') store.set('/quote/terms', profile.terms);
+  if (key === 'name' && !store.state.quote.prepared_by) store.set('/quote/prepared_by', profile.name);
+}
+
+/** A logo picked: kept as a data URL when small enough. */
+function onLogoFile(file) {
+  const reader = new FileReader();
+  reader.onload = () => {
+    const url = String(reader.result ?? '');
+    if (!url.startsWith('data:image/') || url.length > MAX_LOGO_BYTES) {
+      paintProfile({ ok: false, text: `“${file.name}” was not used: the logo must be an image of at most ${Math.round(MAX_LOGO_BYTES * 0.75 / 1000)} kB.` });
+      return;
+    }
+    profile = normalizeProfile({ ...profile, logo: url });
+    saveProfile(profile);
+    store.set('/quote/company', companyOf(profile));
+    paintProfile({ ok: true, text: `Logo “${file.name}” added.` });
+  };
+  reader.readAsDataURL(file);
+}
+
+/** The paperwork of a new quote from the profile: number, date, valid-until, company, terms. */
+function freshQuote(financing) {
+  const taken = takeQuoteNumber(profile);
+  profile = taken.profile;
+  saveProfile(profile);
+  const date = today();
+  return { customer: '', site: '', date, prepared_by: profile.name, notes: '', number: taken.number,
+    valid_until: validUntil(date, profile.validity_days), terms: profile.terms, company: companyOf(profile), financing };
 }
 
 /** The quote sheet, with the break-even and the price draws only when they belong to the verdict it shows. */
@@ -887,12 +937,18 @@ const ACTIONS = {
   'climate-trace': () => openTrace({ title: 'Climate and heat need', trace: [...(verdict.result?.climate?.trace ?? []), ...(verdict.result?.demand?.trace ?? [])] }),
   'new-quote': () => {
     const ws = blankWorkspace({ units: store.state.settings.units, currency: store.state.settings.currency });
-    ws.quote.prepared_by = store.state.quote.prepared_by;
+    ws.quote = freshQuote(undefined);
     openWorkspace(ws).then(() => setTab('house'));
+  },
+  'remove-logo': () => {
+    profile = normalizeProfile({ ...profile, logo: '' });
+    saveProfile(profile);
+    store.set('/quote/company', companyOf(profile));
+    paintProfile();
   },
   'new-quote-keep': () => {
     const ws = structuredClone(store.state);
-    ws.quote = { customer: '', site: '', date: today(), prepared_by: ws.quote.prepared_by, notes: '' };
+    ws.quote = freshQuote(ws.quote.financing);
     ws.title = '';
     openWorkspace(ws).then(() => setTab('house'));
   },
@@ -967,6 +1023,16 @@ const ACTIONS = {
   },
 };
 
+/** A tab opened from below its panel's top: the panel's top is brought back under the tabs (a new tab starts at its beginning). */
+function showPanelTop(name) {
+  const panel = panels[name];
+  const tabs = document.querySelector('.tabs');
+  if (!panel || !tabs) return;
+  const under = tabs.getBoundingClientRect().bottom;
+  const top = panel.getBoundingClientRect().top;
+  if (top < under) window.scrollBy({ top: top - under - 8 });
+}
+
 /** Shows the field at workspace `path`: its tab, any closed section around it opened, scrolled into view and focused. */
 function jumpToField(path) {
   const input = document.querySelector(`.inputs [data-path="${CSS.escape(path)}"]`)
@@ -983,6 +1049,7 @@ function onClick(event) {
   const tabButton = event.target.closest('button[data-tab]');
   if (tabButton) {
     setTab(tabButton.dataset.tab);
+    showPanelTop(tabButton.dataset.tab);
     if (tabButton.closest('.summary-bar')) $('#tab-verdict').focus();
     return;
   }
@@ -1020,6 +1087,9 @@ function onChange(event) {
     store.state.settings.paper = t.value === 'a4' ? 'a4' : 'letter';
     applyPaper();
     scheduleSave();
+  } else if (t.id === 'logo-file' && t.files?.[0]) {
+    onLogoFile(t.files[0]);
+    t.value = '';
   } else if (t.id === 'import-file' && t.files?.[0]) {
     importFile(t.files[0]);
     t.value = '';
@@ -1144,6 +1214,7 @@ async function start() {
   document.addEventListener('visibilitychange', () => { if (document.visibilityState === 'hidden') saveBeforeLeaving(); });
   window.addEventListener('pagehide', saveBeforeLeaving);
   for (const name of ['house', 'fuels', 'systems']) bindFields(panels[name], ctx, localErrors);
+  panels.saved.addEventListener('input', onProfileInput);
   wireHeader();
   setTab(['house', 'fuels', 'systems', 'verdict', 'saved'].includes(prefs.tab) ? prefs.tab : 'verdict');
 

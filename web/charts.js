@@ -30,6 +30,15 @@ function frame(width, height, label) {
 
 const text = (x, y, content, props = {}) => s('text', { x, y, fill: INK, 'font-size': 13, ...props, text: content });
 
+/** A label on at most two lines of about `width` characters, broken at spaces (cut with … only beyond two lines). */
+export function labelLines(label, width) {
+  if (label.length <= width) return [label];
+  const cut = label.lastIndexOf(' ', width);
+  const first = cut > 0 ? label.slice(0, cut) : label.slice(0, width);
+  const rest = label.slice(first.length).trim();
+  return [first, rest.length > width ? `${rest.slice(0, width - 1)}…` : rest];
+}
+
 /** Horizontal stacked bars of annual cost: rows [{id, label, energy, fixed}]. */
 export function costBars(rows, { money, title = 'Annual cost' }) {
   const width = 640;
@@ -52,8 +61,10 @@ export function costBars(rows, { money, title = 'Annual cost' }) {
   }
   rows.forEach((row, i) => {
     const y = top + i * (barH + gap);
-    const label = row.label.length > 28 ? `${row.label.slice(0, 27)}…` : row.label;
-    svg.append(text(labelW - 8, y + barH / 2 + 5, label, { 'text-anchor': 'end' }));
+    const lines = labelLines(row.label, 30);
+    const label = text(labelW - 8, y + barH / 2 + 5 - (lines.length - 1) * 7, '', { 'text-anchor': 'end', 'font-size': lines.length > 1 ? 12 : 13 });
+    lines.forEach((line, k) => label.append(s('tspan', { x: labelW - 8, dy: k ? 14 : 0, text: line })));
+    svg.append(label);
     svg.append(s('rect', { x: labelW, y, width: Math.max(0, x(row.energy) - labelW), height: barH, fill: PALETTE[0], dataset: { id: row.id, part: 'energy' } }));
     svg.append(s('rect', { x: x(row.energy), y, width: Math.max(0, x(row.energy + row.fixed) - x(row.energy)), height: barH,
       fill: '#9fb8d9', stroke: PALETTE[0], dataset: { id: row.id, part: 'fixed' } }));

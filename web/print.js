@@ -10,6 +10,7 @@ import { KIND_NAMES } from './views/systems.js';
 import { equipmentNotes, displayValues, lifeOf, paybackWords, rankedOptions } from './views/verdict.js';
 import { FUEL_BURNING_KINDS, STAGES, auxiliaryDefault, equipmentElectricityPrice, powerText } from './equipment.js';
 import { HEAT_PUMP_KINDS } from './scenario.js';
+import { optionPrice } from './profile.js';
 import { ENERGY_KWH, unitLabel } from './units.js';
 
 const DISCLAIMER = 'This sheet compares running costs and emissions from the figures entered on the day. It is an estimate, '
@@ -62,24 +63,80 @@ function assumptions(ws, result, ctx) {
   return h('dl', { class: 'assumptions' }, items.flatMap(([k, v]) => [h('dt', { text: k }), h('dd', { text: v })]));
 }
 
+/** The fuel an option burns in a year; a dual-fuel option's two fuels both ("3,120 kWh + 180 therm"). */
+function fuelUsedText(o, v, format) {
+  const main = `${format.number(v.fuel_quantity)} ${unitLabel(o.fuel_quantity?.unit ?? '')}`;
+  const backup = o.backup_fuel_quantity;
+  return backup && Number.isFinite(backup.value) && backup.value > 0 ? `${main} + ${format.number(backup.value)} ${unitLabel(backup.unit ?? '')}` : main;
+}
+
 function resultsTable(ws, result, ctx) {
   const { format } = ctx;
   const energyUnit = unitLabel(ws.settings.energy_unit);
   const massUnit = ws.settings.units === 'us' ? 'lb' : 'kg';
   const list = rankedOptions(result, 'annual');
-  const econ = list.some((o) => Number.isFinite(o.life_cycle_cost));
+  const econ = Boolean(ws.economics?.enabled) && list.some((o) => Number.isFinite(o.life_cycle_cost));
   const head = ['#', 'Option', 'Per year', `Per ${energyUnit}`, 'Fuel used', `CO2e ${massUnit}/yr`, ...(econ ? ['Payback', 'Life-cycle cost'] : [])];
   return h('table', { class: 'print-table' },
     h('thead', {}, h('tr', {}, head.map((t) => h('th', { scope: 'col', text: t })))),
     h('tbody', {}, list.map((o, i) => {
       const v = displayValues(o, ws);
       return h('tr', {}, h('td', { text: String(i + 1) }), h('td', { text: o.label ?? o.id }), h('td', { text: format.money(v.annual_cost) }),
-        h('td', { text: format.price(v.cost_per_useful) }), h('td', { text: `${format.number(v.fuel_quantity)} ${unitLabel(o.fuel_quantity?.unit ?? '')}` }),
+        h('td', { text: format.price(v.cost_per_useful) }), h('td', { text: fuelUsedText(o, v, format) }),
         h('td', { text: format.number(v.co2e, 3) }),
         ...(econ ? [h('td', { text: paybackWords(o, { lifeYears: lifeOf(ws, o.id), studyYears: result.economics?.analysis_years,
           baselineId: result.economics?.baseline, format }) ?? 'the system now' }),
           h('td', { text: format.money(o.life_cycle_cost) })] : []));
     })));
+}
+
+/** The contractor's block: logo, name, address, phone, e-mail and licence number (from the quote's copy of the profile). */
+function companyBlock(q) {
+  const c = q.company ?? {};
+  const contact = [c.phone, c.email].filter(Boolean).join(' · ');
+  return h('div', { class: 'company', id: 'sheet-company' },
+    c.logo ? h('img', { class: 'company-logo', src: c.logo, alt: c.name ? `${c.name} logo` : 'Logo' }) : null,
+    h('div', {},
+      h('p', { class: 'company-name', text: c.name || q.prepared_by || 'Heating cost comparison' }),
+      c.address ? h('p', { text: c.address }) : null,
+      contact ? h('p', { text: contact }) : null,
+      c.licence ? h('p', { id: 'sheet-licence', text: `Licence ${c.licence}` }) : null));
+}
+
+/** Each option's price as quoted: make and model, installed price, incentives, net price and the monthly payment of the loan offered. */
+function pricesSection(ws, result, ctx) {
+  const { format } = ctx;
+  if (!ws.economics?.enabled) return null;
+  const financing = ws.quote?.financing;
+  const rows = rankedOptions(result, 'annual').map((o) => {
+    const sys = ws.systems.find((s) => s.id === o.id);
+    const price = sys && !sys.existing ? optionPrice(sys, financing) : null;
+    return price ? { o, sys, price } : null;
+  }).filter(Boolean);
+  if (!rows.length) return null;
+  const loan = rows.some((r) => Number.isFinite(r.price.monthly));
+  const head = ['Option', 'Installed price', 'Incentives', 'Net price', ...(loan ? ['Monthly payment'] : [])];
+  return h('section', { id: 'sheet-prices' }, h('h2', { text: 'What each option costs to install' }),
+    h('table', { class: 'print-table prices' },
+      h('thead', {}, h('tr', {}, head.map((t) => h('th', { scope: 'col', text: t })))),
+      h('tbody', {}, rows.map(({ o, sys, price }) => h('tr', {},
+        h('td', {}, h('span', { text: o.label ?? o.id }), sys.equipment ? h('span', { class: 'model', text: sys.equipment }) : null),
+        h('td', { text: format.money(price.installed) }),
+        h('td', { text: price.incentives ? `−${format.money(price.incentives)}` : '—' }),
+        h('td', { class: 'net', text: format.money(price.net) }),
+        ...(loan ? [h('td', { text: Number.isFinite(price.monthly) ? `${format.price(price.monthly)} a month` : '—' })] : []))))),
+    loan ? h('p', { class: 'hint', text: `Monthly payment on the net price for a loan at ${format.percent(financing.rate, 2)} a year over `
+      + `${format.number(financing.years)} years (standard amortization), subject to the lender's approval.` }) : null);
+}
+
+/** The terms and the lines where the customer accepts an option and both sides sign. */
+function acceptance(q) {
+  const line = (label) => h('div', { class: 'sign-line' }, h('span', { class: 'rule' }), h('span', { class: 'sign-label', text: label }));
+  return h('section', { class: 'acceptance', id: 'sheet-acceptance' }, h('h2', { text: 'Acceptance' }),
+    q.terms ? h('p', { class: 'terms', text: q.terms }) : null,
+    h('div', { class: 'sign-grid' }, line('Option chosen'), line('Date'), line('Customer signature'), line('Date'),
+      line(`For ${q.company?.name || q.prepared_by || 'the contractor'}`), line('Date')),
+    h('p', { class: 'disclaimer', text: DISCLAIMER }));
 }
 
 /** What could change the ranking: the break-even price of the two leading options and the price draws. */
@@ -105,16 +162,22 @@ export function renderQuoteSheet(sheet, ctx, result, extra = {}) {
   const { format } = ctx;
   const q = ws.quote;
   const parts = [
-    h('header', { class: 'sheet-header' },
-      h('div', {}, h('p', { class: 'brand', text: 'Fuelwright' }), h('h1', { text: ws.title || 'Heating cost comparison' })),
+    h('header', { class: 'sheet-header' }, companyBlock(q),
+      h('dl', { class: 'who', id: 'sheet-quote' },
+        q.number ? [h('dt', { text: 'Quote' }), h('dd', { id: 'sheet-number', text: q.number })] : null,
+        h('dt', { text: 'Date' }), h('dd', { text: q.date ? format.date(q.date) : '—' }),
+        q.valid_until ? [h('dt', { text: 'Prices hold until' }), h('dd', { id: 'sheet-valid-until', text: format.date(q.valid_until) })] : null,
+        h('dt', { text: 'Prepared by' }), h('dd', { text: q.prepared_by || '—' }))),
+    h('section', { class: 'sheet-customer' },
+      h('h1', { text: ws.title || 'Heating cost comparison' }),
       h('dl', { class: 'who' },
         h('dt', { text: 'Customer' }), h('dd', { id: 'sheet-customer', text: q.customer || '—' }),
-        h('dt', { text: 'Site' }), h('dd', { id: 'sheet-site', text: q.site || '—' }),
-        h('dt', { text: 'Date' }), h('dd', { text: q.date ? format.date(q.date) : '—' }),
-        h('dt', { text: 'Prepared by' }), h('dd', { text: q.prepared_by || '—' }))),
+        h('dt', { text: 'Site' }), h('dd', { id: 'sheet-site', text: q.site || '—' }))),
   ];
   if (result?.options?.length && !(result.errors ?? []).length) {
     parts.push(h('section', {}, h('h2', { text: 'Results' }), resultsTable(ws, result, ctx)));
+    const prices = pricesSection(ws, result, ctx);
+    if (prices) parts.push(prices);
     const rows = rankedOptions(result, 'annual').map((o) => ({ id: o.id, label: o.label ?? o.id, energy: o.energy_cost, fixed: o.fixed_cost }));
     parts.push(h('section', { class: 'sheet-chart' }, h('h2', { text: 'Cost per year' }), costBars(rows, { money: format.money, title: 'Annual cost: energy and fixed charges' })));
     const notes = equipmentNotes(result, ws, ctx);
@@ -134,6 +197,6 @@ export function renderQuoteSheet(sheet, ctx, result, extra = {}) {
   if (q.notes) parts.push(h('section', {}, h('h2', { text: 'Notes' }), h('p', { class: 'notes', text: q.notes })));
   parts.push(h('section', { class: 'sheet-cautions', id: 'sheet-cautions' }, h('h2', { text: 'Please read' }),
     h('ul', {}, (result?.cautions ?? []).map((c) => h('li', { text: c })))));
-  parts.push(h('p', { class: 'disclaimer', text: DISCLAIMER }));
-  sheet.replaceChildren(...parts);
+  parts.push(acceptance(q));
+  sheet.replaceChildren(...parts.flat().filter(Boolean));
 }

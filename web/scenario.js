@@ -19,7 +19,9 @@ const FUEL_FIELDS = ['fuel', 'price', 'fixed_charges', 'heating_value', 'wood_sp
   'face_cord_fraction'];
 /** Option fields that belong to the system (kept in `systems`). */
 const SYSTEM_FIELDS = ['id', 'label', 'system', 'existing', 'installed_cost', 'incentives', 'annual_maintenance',
-  'life_years'];
+  'life_years', 'equipment'];
+/** Text fields of the quote, printed on the sheet. */
+const QUOTE_TEXT = ['customer', 'site', 'date', 'prepared_by', 'notes', 'number', 'valid_until', 'terms'];
 const ECONOMIC_FIELDS = ['existing', 'installed_cost', 'incentives', 'annual_maintenance', 'life_years'];
 export const HEAT_PUMP_KINDS = ['air-source-heat-pump', 'ground-source-heat-pump'];
 export const SYSTEM_KINDS = ['furnace', 'boiler', 'stove', 'electric-resistance', 'air-source-heat-pump',
@@ -50,7 +52,7 @@ export function blankWorkspace({ units = 'us', currency = 'USD' } = {}) {
     version: WORKSPACE_VERSION,
     title: '',
     description: '',
-    quote: { customer: '', site: '', date: today(), prepared_by: '', notes: '' },
+    quote: { customer: '', site: '', date: today(), prepared_by: '', notes: '', number: '', valid_until: '', terms: '' },
     settings: { units, currency, gwp: 'AR5', energy_unit: us ? 'MMBtu' : 'kWh', paper: us ? 'letter' : 'a4' },
     demand: {
       method: 'direct',
@@ -373,9 +375,15 @@ export function toScenario(ws) {
   put(doc, 'title', isText(ws.title) ? ws.title : undefined);
   put(doc, 'description', isText(ws.description) ? ws.description : undefined);
   const quote = {};
-  for (const key of ['customer', 'site', 'date', 'prepared_by', 'notes']) {
+  for (const key of QUOTE_TEXT) {
     if (isText(ws.quote?.[key])) quote[key] = ws.quote[key];
   }
+  const company = Object.fromEntries(Object.entries(ws.quote?.company ?? {}).filter(([, v]) => isText(v)));
+  if (Object.keys(company).length) quote.company = company;
+  const financing = {};
+  if (isNumber(ws.quote?.financing?.rate)) financing.rate = ws.quote.financing.rate;
+  if (isNumber(ws.quote?.financing?.years)) financing.years = ws.quote.financing.years;
+  if (Object.keys(financing).length) quote.financing = financing;
   if (Object.keys(quote).length) doc.quote = quote;
   const settings = { units: ws.settings.units, currency: ws.settings.currency };
   put(settings, 'gwp', ws.settings.gwp);
@@ -395,10 +403,10 @@ export function toScenario(ws) {
     put(option, 'label', isText(sys.label) ? sys.label : undefined);
     if (entry) Object.assign(option, fuelPartOf(entry));
     option.system = systemOf(sys.system ?? {});
-    if (ws.economics?.enabled) {
-      if (sys.existing) option.existing = true;
-      for (const key of ECONOMIC_FIELDS.slice(1)) if (isNumber(sys[key])) option[key] = sys[key];
-    }
+    put(option, 'equipment', isText(sys.equipment) ? sys.equipment : undefined);
+    // the system in the house now is the baseline of every saving, with or without the costs over the years
+    if (sys.existing) option.existing = true;
+    if (ws.economics?.enabled) for (const key of ECONOMIC_FIELDS.slice(1)) if (isNumber(sys[key])) option[key] = sys[key];
     for (const [key, value] of Object.entries(sys.extra ?? {})) if (!(key in option)) option[key] = clone(value);
     return option;
   });
@@ -634,7 +642,7 @@ export function fromScenario(doc) {
       fuel_key: entry.key,
       system: systemFromScenario(systemPart.system),
     };
-    for (const key of ECONOMIC_FIELDS) if (systemPart[key] !== undefined) sys[key] = systemPart[key];
+    for (const key of [...ECONOMIC_FIELDS, 'equipment']) if (systemPart[key] !== undefined) sys[key] = systemPart[key];
     if (Object.keys(extra).length) sys.extra = extra;
     ws.systems.push(sys);
   }
@@ -659,7 +667,7 @@ export function fromScenario(doc) {
       if (id === 'default') continue;
       for (const entry of ws.fuels) if (fuelId(entry) === id) entry.escalation = rate;
     }
-  } else if (doc.options.some((o) => ECONOMIC_FIELDS.some((key) => o[key] !== undefined))) {
+  } else if (doc.options.some((o) => ECONOMIC_FIELDS.slice(1).some((key) => o[key] !== undefined))) {
     // per-option costs without study settings: keep them, add no settings of our own
     ws.economics.enabled = true;
     ws.economics.emit = false;

@@ -20,6 +20,8 @@ const STORE = 'quotes';
 const LS_PREFIX = 'fuelwright.quote.';
 const CURRENT_KEY = 'fuelwright.current-quote';
 const PREFS_KEY = 'fuelwright.preferences';
+/** The contractor's profile on this device (web/profile.js). */
+const PROFILE_KEY = 'fuelwright.profile';
 const UNSAVED_KEY = 'fuelwright.unsaved-quote';
 
 
@@ -316,3 +318,10 @@ export function loadPreferences() {
   try { return JSON.parse(local(PREFS_KEY) ?? '{}') ?? {}; } catch { return {}; }
 }
 export const savePreferences = (prefs) => setLocal(PREFS_KEY, JSON.stringify(prefs));
+
+/** The contractor's profile kept on this device (raw: normalize with profile.js), or null. */
+export function loadProfile() {
+  try { return JSON.parse(local(PROFILE_KEY) ?? 'null'); } catch { return null; }
+}
+/** Keeps the profile on this device (best effort, as the preferences: a refusal leaves the last copy). */
+export const saveProfile = (profile) => setLocal(PROFILE_KEY, JSON.stringify(profile));

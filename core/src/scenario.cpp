@@ -501,8 +501,9 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
     }
     warn_unknown_keys(item, {"id", "label", "fuel", "price", "fixed_charges", "system", "heating_value", "wood_species",
                              "moisture_pct", "bag_mass", "face_cord_fraction", "existing", "installed_cost",
-                             "incentives", "annual_maintenance", "life_years"},
+                             "incentives", "annual_maintenance", "life_years", "equipment"},
                       path, warnings);
+    optional_string(item, "equipment", path);  // make and model, for the quote sheet
     return option;
 }
 
@@ -686,6 +687,35 @@ std::string energy_text(double kwh, unit_system units) {
 
 }  // namespace
 
+namespace {
+
+/// Checks the quote's company block and financing (for the sheet; the evaluation does not use them):
+/// `company` {name, address, phone, email, licence, logo (a data: URL of an image)}, `financing` {rate
+/// (a fraction a year, 0 to 0.5), years (1 to 40)}.
+void read_quote_extras(const json& quote, std::vector<issue>& warnings) {
+    if (const auto company = quote.find("company"); company != quote.end()) {
+        require_object(*company, "/quote/company");
+        const std::vector<std::string> keys{"name", "address", "phone", "email", "licence", "logo"};
+        for (const auto& key : keys) optional_string(*company, key, "/quote/company");
+        if (const auto logo = optional_string(*company, "logo", "/quote/company"); logo && !logo->empty() &&
+                                                                                     logo->rfind("data:image/", 0) != 0)
+            throw input_error("/quote/company/logo", "must be an image kept in the file (a data:image/... URL)");
+        warn_unknown_keys(*company, keys, "/quote/company", warnings);
+    }
+    if (const auto financing = quote.find("financing"); financing != quote.end()) {
+        require_object(*financing, "/quote/financing");
+        if (const auto rate = optional_number(*financing, "rate", "/quote/financing"); rate && !(*rate >= 0 && *rate <= 0.5))
+            throw input_error("/quote/financing/rate",
+                              "must be a fraction a year from 0 to 0.5 (0.079 for 7.9 %), got " + format_number(*rate));
+        if (const auto years = optional_number(*financing, "years", "/quote/financing");
+            years && !(*years >= 1 && *years <= 40))
+            throw input_error("/quote/financing/years", "must be from 1 to 40 years, got " + format_number(*years));
+        warn_unknown_keys(*financing, {"rate", "years"}, "/quote/financing", warnings);
+    }
+}
+
+}  // namespace
+
 scenario read_scenario(const json& document, std::vector<issue>& errors, std::vector<issue>& warnings) {
     scenario out;
     auto attempt = [&](auto&& body) {
@@ -704,10 +734,20 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
         if (document.contains("quote")) {
             const auto& quote = document.at("quote");
             require_object(quote, "/quote");
-            for (const char* key : {"customer", "site", "date", "prepared_by", "notes"}) optional_string(quote, key, "/quote");
+            for (const char* key : {"customer", "site", "date", "prepared_by", "notes", "number", "valid_until", "terms"})
+                optional_string(quote, key, "/quote");
+            std::optional<long> quote_day;
             if (const auto date = optional_string(quote, "date", "/quote"); date && !date->empty())
-                parse_day_number(*date, "/quote/date");
-            warn_unknown_keys(quote, {"customer", "site", "date", "prepared_by", "notes"}, "/quote", warnings);
+                quote_day = parse_day_number(*date, "/quote/date");
+            if (const auto until = optional_string(quote, "valid_until", "/quote"); until && !until->empty()) {
+                const long until_day = parse_day_number(*until, "/quote/valid_until");
+                if (quote_day && until_day < *quote_day)
+                    throw input_error("/quote/valid_until", "is before the quote's date (" + *until + ")");
+            }
+            read_quote_extras(quote, warnings);
+            warn_unknown_keys(quote, {"customer", "site", "date", "prepared_by", "notes", "number", "valid_until", "terms",
+                                      "company", "financing"},
+                              "/quote", warnings);
         }
         // `other_fuels` (priced fuels no option uses) and `results` (the verdict as exported) travel with a
         // quote file for people and other programs; the evaluation does not read them.

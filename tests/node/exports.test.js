@@ -85,7 +85,8 @@ describe('the results CSV', () => {
     ws.systems[0].existing = true;
     const result = evaluate(scenario.toScenario(ws));
     const lines = verdict.resultsCsv(result, ws).trimEnd().split('\r\n');
-    assert.equal(lines[0], 'customer,"Rowan Vale, ""Ridge"" farm"');
+    assert.equal(lines[0], 'quote number,HC-0117');
+    assert.equal(lines[1], 'customer,"Rowan Vale, ""Ridge"" farm"');
     const blank = lines.indexOf('');
     const header = lines[blank + 1].split(',');
     assert.equal(header[0], 'rank');

@@ -64,11 +64,15 @@ add_test(NAME browser_chromium_equipment
 add_test(NAME browser_chromium_attention
   COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/attention.test.js"
   WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+# The printed quote sheet (Chromium's PDF read back with pdftotext), in Chromium.
+add_test(NAME browser_chromium_sheet
+  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/sheet.test.js"
+  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
 # Saved quotes of earlier and later record versions, and a full storage, in Chromium.
 add_test(NAME browser_storage
   COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/storage.test.js"
   WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
-set_tests_properties(browser_chromium browser_chromium_climates browser_chromium_equipment browser_chromium_attention browser_webkit browser_firefox browser_storage PROPERTIES
+set_tests_properties(browser_chromium browser_chromium_climates browser_chromium_equipment browser_chromium_attention browser_chromium_sheet browser_webkit browser_firefox browser_storage PROPERTIES
   ENVIRONMENT "${FW_BROWSER_ENV}"
   LABELS browser
   TIMEOUT 240

@@ -22,9 +22,13 @@ function quoteFields(ctx, ws) {
       textField(ctx, { label: 'Customer', path: '/quote/customer', value: q.customer, maxlength: 200 }),
       textField(ctx, { label: 'Site address', path: '/quote/site', value: q.site, maxlength: 300 }),
       textField(ctx, { label: 'Quote date', path: '/quote/date', value: q.date, type: 'date' }),
-      textField(ctx, { label: 'Prepared by', path: '/quote/prepared_by', value: q.prepared_by, maxlength: 200 })),
+      textField(ctx, { label: 'Prepared by', path: '/quote/prepared_by', value: q.prepared_by, maxlength: 200 }),
+      textField(ctx, { label: 'Quote number', path: '/quote/number', value: q.number, maxlength: 40 }),
+      textField(ctx, { label: 'Prices hold until', path: '/quote/valid_until', value: q.valid_until, type: 'date' })),
     textField(ctx, { label: 'Title of this comparison', path: '/title', value: ws.title, maxlength: 200 }),
-    textField(ctx, { label: 'Notes for the customer', path: '/quote/notes', value: q.notes, type: 'textarea' }));
+    textField(ctx, { label: 'Notes for the customer', path: '/quote/notes', value: q.notes, type: 'textarea' }),
+    textField(ctx, { label: 'Terms printed above the signatures', path: '/quote/terms', value: q.terms, type: 'textarea',
+      hint: 'Your standard terms come from your company profile on the Saved quotes tab.' }));
 }
 
 function directFields(ctx, d) {

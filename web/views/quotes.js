@@ -53,6 +53,8 @@ export function renderQuotes(container, ctx, state) {
   const list = h('ul', { class: 'quote-list', id: 'quote-list' }, shown.map((r) => quoteItem(r, ctx, state)));
   const search = h('div', { class: 'field' }, h('label', { for: 'quote-search', text: 'Find a quote (customer, site or date)' }),
     h('input', { id: 'quote-search', type: 'search', autocomplete: 'off', value: state.query ?? '' }));
+  // the contractor's profile (views/profile.js) keeps its own node, and its file input, across repaints
+  const profileSlot = container.querySelector('#profile-slot') ?? h('div', { id: 'profile-slot' });
   const fileInput = container.querySelector('#import-file')
     ?? h('input', { id: 'import-file', type: 'file', accept: '.json,application/json', class: 'visually-hidden' });
   const undo = state.undo ? h('div', { class: 'toast', id: 'undo-toast', role: 'status' },
@@ -74,7 +76,8 @@ export function renderQuotes(container, ctx, state) {
         fileInput),
       h('p', { class: state.importMessage?.ok ? 'field-msg ok' : 'field-msg', id: 'import-msg', role: 'status',
         hidden: !state.importMessage, dataset: { seq: String(state.importMessage?.seq ?? 0) }, text: state.importMessage?.text ?? '' })),
-    h('p', { class: 'hint', id: 'storage-kind', text: `Saved automatically on this device (${state.storageKind}).` })].filter(Boolean));
+    h('p', { class: 'hint', id: 'storage-kind', text: `Saved automatically on this device (${state.storageKind}).` }),
+    profileSlot].filter(Boolean));
   const input = container.querySelector('#quote-search');
   input.addEventListener('input', () => ctx.onSearch(input.value));
 }

@@ -111,7 +111,6 @@ function fuelBurningFields(ctx, ws, base, sys, entry) {
 function economicFields(ctx, ws, base, sys) {
   const currency = ws.settings.currency;
   return h('div', { class: 'economics' },
-    checkField(ctx, { label: 'This is the system in the house now', path: `${base}/existing`, checked: sys.existing, structural: true }),
     h('div', { class: 'grid two' },
       sys.existing ? null : numberField(ctx, { label: 'Installed cost', path: `${base}/installed_cost`, value: sys.installed_cost, unit: currency }),
       sys.existing ? null : numberField(ctx, { label: 'Incentives and rebates', path: `${base}/incentives`, value: sys.incentives, unit: currency }),
@@ -132,9 +131,11 @@ function systemCard(ctx, ws, sys, index) {
   const nodes = [
     h('div', { class: 'card-head' },
       h('h3', { text: sys.label || sys.id }),
-      sys.existing && ws.economics?.enabled ? h('span', { class: 'badge existing', text: 'existing' }) : null),
+      sys.existing ? h('span', { class: 'badge existing', text: 'in the house now' }) : null),
+    checkField(ctx, { label: 'This is the system in the house now', path: `${base}/existing`, checked: sys.existing, structural: true }),
     h('div', { class: 'grid two' },
       textField(ctx, { label: 'Name on the quote', path: `${base}/label`, value: sys.label, maxlength: 120 }),
+      textField(ctx, { label: 'Make and model (optional)', path: `${base}/equipment`, value: sys.equipment, maxlength: 160 }),
       selectField(ctx, { label: 'Fuel', path: `${base}/fuel_key`, value: sys.fuel_key ?? '', structural: true,
         choices: [['', 'Choose a fuel…'], ...ws.fuels.map((f) => [f.key, fuelName(f, catalog)])] }),
       selectField(ctx, { label: 'Kind', path: `${base}/system/kind`, value: kind, structural: true,
@@ -178,6 +179,9 @@ export function renderSystems(container, ctx) {
       numberField(ctx, { label: 'Energy prices rise by', path: '/economics/escalation_default', value: e.escalation_default, scale: 100, unit: '% a year',
         hint: 'Each fuel\'s own rise can be set on its card (Fuels).' }),
       numberField(ctx, { label: 'Maintenance costs rise by (optional)', path: '/economics/maintenance_escalation', value: e.maintenance_escalation, scale: 100, unit: '% a year' }),
+      numberField(ctx, { label: 'Loan offered: interest (optional)', path: '/quote/financing/rate', value: ws.quote?.financing?.rate, scale: 100, unit: '% a year',
+        hint: 'With a term, the sheet shows each option\'s monthly payment on its net price.' }),
+      numberField(ctx, { label: 'Loan term (optional)', path: '/quote/financing/years', value: ws.quote?.financing?.years, unit: 'years' }),
       selectField(ctx, { label: 'Money in', path: '/economics/basis', value: e.basis ?? 'real',
         choices: [['real', 'today\'s money (real)'], ['nominal', 'future money (nominal)']] })) : null);
   container.replaceChildren(...[

@@ -59,7 +59,9 @@ function showOptionTrace(option, ctx, key) {
     sources: option.sources ?? [], extra });
 }
 
-const hasLifeCycle = (result) => (result?.options ?? []).length > 0 && result.options.every((o) => isNum(o.life_cycle_cost));
+/** Whether the verdict shows the costs over the years: asked for on the page, and worked out by the core. */
+const hasLifeCycle = (result, ws) => Boolean(ws?.economics?.enabled) && (result?.options ?? []).length > 0
+  && result.options.every((o) => isNum(o.life_cycle_cost));
 
 /** Rows of the ranked table, in rank order by `by` ('annual', or 'life' for the core's life-cycle ranking). */
 export function rankedOptions(result, by) {
@@ -109,7 +111,7 @@ function table(result, ws, ctx, by) {
   const energyUnit = unitLabel(ws.settings.energy_unit);
   const massUnit = ws.settings.units === 'us' ? 'lb' : 'kg';
   const list = rankedOptions(result, by);
-  const econ = hasLifeCycle(result);
+  const econ = hasLifeCycle(result, ws);
   const head = ['#', 'Option', 'Per year', `Per ${energyUnit} of heat`, 'Fuel used', `CO2e ${massUnit}/yr`];
   if (econ) head.push('Life-cycle cost');
   const rows = list.map((option, i) => {
@@ -140,7 +142,8 @@ function table(result, ws, ctx, by) {
 
 /** Switching economics against the existing system: one row per option in life-cycle order. */
 function economicsSection(result, ws, ctx) {
-  if (!hasLifeCycle(result)) return null;
+  // the system in the house now marked without the costs over the years: the headline's saving a year only
+  if (!hasLifeCycle(result, ws)) return null;
   const { format } = ctx;
   const energyUnit = unitLabel(ws.settings.energy_unit);
   const e = result.economics ?? {};
@@ -201,7 +204,7 @@ function headline(result, ws, ctx, by) {
   const baseline = result.economics?.baseline;
   if (baseline && best.id !== baseline && isNum(best.annual_saving)) {
     const base = list.find((o) => o.id === baseline);
-    const words = paybackWords(best, { lifeYears: lifeOf(ws, best.id), studyYears: n, baselineId: baseline, format });
+    const words = ws.economics?.enabled ? paybackWords(best, { lifeYears: lifeOf(ws, best.id), studyYears: n, baselineId: baseline, format }) : null;
     const pay = !words ? '' : isNum(best.simple_payback_years) && words === years(best.simple_payback_years, format)
       ? `, paying back in ${words}` : `, but it ${words}`;
     const now = `${base?.label ?? baseline}, the system in the house now`;
@@ -570,7 +573,7 @@ export function renderVerdict(container, ctx, state, { kiosk = false } = {}) {
     container.replaceChildren(...parts, h('p', { class: 'status', text: 'Add a fuel and a system to see the verdict.' }));
     return;
   }
-  const hasLife = hasLifeCycle(result);
+  const hasLife = hasLifeCycle(result, ws);
   const by = hasLife ? state.by : 'annual';
   if ((result.options ?? []).length && !(result.errors ?? []).length) {
     parts.push(headline(result, ws, ctx, by));
@@ -598,7 +601,8 @@ export function renderVerdict(container, ctx, state, { kiosk = false } = {}) {
     parts.push(billsSection(result, ctx));
     if (!kiosk) parts.push(keep('draws', [state.mc, state.mc?.state, ws.uncertainty?.enabled, ...shown], () => uncertaintySection(result, ws, ctx, state.mc)));
   }
-  const warnings = result.warnings ?? [];
+  // without the costs over the years the core's economics defaults are not the user's concern
+  const warnings = (result.warnings ?? []).filter((w) => ws.economics?.enabled || w.path !== '/economics');
   if (warnings.length) {
     parts.push(h('div', { class: 'warnings', id: 'verdict-warnings' }, h('h3', { text: 'Notes from the calculation' }),
       h('ul', {}, warnings.map((w) => h('li', { text: warningText(w, ws) })))));
@@ -749,7 +753,7 @@ export function resultsCsv(result, ws, by = 'annual') {
   const massUnit = ws.settings.units === 'us' ? 'lb' : 'kg';
   const currency = ws.settings.currency;
   const list = rankedOptions(result, by);
-  const econ = hasLifeCycle(result);
+  const econ = hasLifeCycle(result, ws);
   const header = ['rank', 'id', 'option', 'fuel', `annual cost (${currency})`, `energy cost (${currency})`, `fixed cost (${currency})`,
     `cost per useful ${energyUnit} (${currency})`, 'fuel used', 'fuel unit', `CO2e (${massUnit}/year)`];
   if (econ) {
