@@ -12,6 +12,7 @@ import { isKiosk } from './kiosk-scenario.js';
 import { registerServiceWorker } from './offline.js';
 import { renderQuoteSheet } from './print.js';
 import { slipFor } from './slips.js';
+import { parseBillLines } from './bills.js';
 import { MAX_LOGO_BYTES, companyOf, normalizeProfile, takeQuoteNumber, validUntil } from './profile.js';
 import { renderProfile } from './views/profile.js';
 import {
@@ -33,6 +34,8 @@ import { openTrace } from './views/trace.js';
 import { bindVerdict, rankedOptions, renderVerdict, resultsCsv, showDrawProgress } from './views/verdict.js';
 
 const ANALYSIS_DEBOUNCE_MS = 350;
+/** The saved record of the demo quote (one, however often it is loaded). */
+const DEMO_ID = 'demo-maple-hollow';
 const DRAWS_DEBOUNCE_MS = 1200;
 const SAVE_DEBOUNCE_MS = 400;
 const SWEEP_POINTS = 41;
@@ -502,7 +505,17 @@ async function runDraws() {
 // ---------------------------------------------------------------------------
 // Saving
 
+/** The save state beside the product name: waiting, saving, saved at a time, or not saved. */
+function showSaveState(state, at) {
+  const node = $('#save-state');
+  if (!node) return;
+  node.dataset.state = state;
+  node.textContent = state === 'saved' ? `Saved ${new Date(at).toLocaleTimeString(prefs.locale, { hour: '2-digit', minute: '2-digit' })}`
+    : state === 'failed' ? 'Not saved' : state === 'saving' ? 'Saving…' : 'Changes not saved yet';
+}
+
 function scheduleSave() {
+  showSaveState('waiting');
   clearTimeout(saveTimer);
   saveTimer = setTimeout(saveNow, SAVE_DEBOUNCE_MS);
 }
@@ -587,13 +600,16 @@ async function saveOnce() {
   if (!storage) return;
   const record = currentRecord();
   let written;
+  showSaveState('saving');
   try {
     written = await writeRecord(record, quotes.knownAt);
   } catch (failure) {
     // the work stays in the store (memory); the message stays until a save succeeds
     setStorageAlert('not-saved', notSavedMessage(failure));
+    showSaveState('failed');
     return;
   }
+  showSaveState('saved', written.updated_at);
   if (quotes.currentId === record.id) {
     quotes.currentId = written.id;
     quotes.knownAt = written.updated_at;
@@ -637,6 +653,7 @@ async function openWorkspace(ws, { id = newId(), save = true, knownAt = null } =
   quotes.knownAt = knownAt;
   setCurrentQuoteId(id);
   localErrors.clear();
+  ctx.billPaste = null;
   verdict.sweepFuel = null;
   verdict.analysis = null;
   if (verdict.mc.run) stopDraws();
@@ -908,6 +925,24 @@ const ACTIONS = {
     ws.demand.bills.push({ start, end: '', unit: last?.unit ?? (us ? 'therm' : 'kWh'),
       mean_temperature: { unit: last?.mean_temperature?.unit ?? (us ? 'degF' : 'degC') } });
   }),
+  'paste-bills': () => {
+    const text = $('#bills-paste')?.value ?? '';
+    const { bills, problems } = parseBillLines(text, prefs.locale);
+    const lines = [];
+    if (bills.length) lines.push(`Added ${bills.length === 1 ? '1 bill' : `${bills.length} bills`}.`);
+    for (const p of problems) lines.push(`Line ${p.line} (${p.text}) was not added: ${p.message}.`);
+    if (!bills.length && !problems.length) lines.push('Nothing to add: paste one bill a line.');
+    // the lines not read stay in the box to be corrected
+    ctx.billPaste = { text: problems.map((p) => p.text).join('\n'), message: { ok: !problems.length && bills.length > 0, text: lines.join('\n') } };
+    store.mutate((ws) => {
+      const us = ws.settings.units === 'us';
+      for (const bill of bills) {
+        const last = ws.demand.bills.at(-1);
+        ws.demand.bills.push({ start: bill.start, end: bill.end, quantity: bill.quantity, unit: bill.unit ?? last?.unit ?? (us ? 'therm' : 'kWh'),
+          mean_temperature: { unit: last?.mean_temperature?.unit ?? (us ? 'degF' : 'degC') } });
+      }
+    });
+  },
   'observed-clear': () => store.mutate((ws) => { delete ws.demand.observed; delete ws.demand.observed_label; }),
   'climate-drop': (d) => store.mutate((ws) => {
     if (d.key === 'bins') { delete ws.climate.bins; delete ws.climate.bin_width; }
@@ -952,7 +987,10 @@ const ACTIONS = {
     ws.title = '';
     openWorkspace(ws).then(() => setTab('house'));
   },
-  'load-demo': () => openWorkspace(demoWorkspace()).then(() => setTab('verdict')),
+  // the demo is one saved quote: loading it again starts it afresh in the same record, never a copy
+  'load-demo': () => openWorkspace(demoWorkspace(), { id: DEMO_ID, knownAt: quotes.records.find((r) => r.id === DEMO_ID)?.updated_at ?? null })
+    .then(() => setTab('verdict')),
+  'save-now': () => saveNow(),
   'open-quote': async (d) => {
     const record = await storage.get(d.id);
     if (!record || recordProblem(record)) return;
@@ -1022,6 +1060,22 @@ const ACTIONS = {
     input?.focus();
   },
 };
+
+/**
+ * Nothing fixed or sticky covers the field being typed in: a field that takes the focus under the summary
+ * bar or the sticky tabs is scrolled clear of them (the bars themselves never move, so a tap never lands
+ * on a bar that appeared under the finger).
+ */
+function keepFocusClear(event) {
+  const field = event.target;
+  if (!(field instanceof HTMLElement) || !field.closest('.inputs') || !field.matches('input, select, textarea')) return;
+  const box = field.getBoundingClientRect();
+  const bar = $('#summary-bar');
+  const barTop = bar && !bar.hidden && getComputedStyle(bar).display !== 'none' ? bar.getBoundingClientRect().top : window.innerHeight;
+  const tabsBottom = document.querySelector('.tabs')?.getBoundingClientRect().bottom ?? 0;
+  if (box.bottom > barTop - 8) window.scrollBy({ top: box.bottom - barTop + 16 });
+  else if (box.top < tabsBottom + 8) window.scrollBy({ top: box.top - tabsBottom - 16 });
+}
 
 /** A tab opened from below its panel's top: the panel's top is brought back under the tabs (a new tab starts at its beginning). */
 function showPanelTop(name) {
@@ -1215,6 +1269,7 @@ async function start() {
   window.addEventListener('pagehide', saveBeforeLeaving);
   for (const name of ['house', 'fuels', 'systems']) bindFields(panels[name], ctx, localErrors);
   panels.saved.addEventListener('input', onProfileInput);
+  document.addEventListener('focusin', keepFocusClear);
   wireHeader();
   setTab(['house', 'fuels', 'systems', 'verdict', 'saved'].includes(prefs.tab) ? prefs.tab : 'verdict');
 
@@ -1245,7 +1300,7 @@ async function start() {
     quotes.knownAt = record.updated_at;
     store.replace(ws);
   } else {
-    await openWorkspace(demoWorkspace());
+    await openWorkspace(demoWorkspace(), { id: DEMO_ID, knownAt: quotes.records.find((r) => r.id === DEMO_ID)?.updated_at ?? null });
     if (!prefs.tabChosen) setTab('verdict');
   }
   paintQuotes();

@@ -86,6 +86,8 @@ export async function startKiosk(core) {
   }
 
   let state = { visitor: blankVisitor(), result: null, errors: [], missing: [], pending: false };
+  // a tap on a question brings its answer into view once it arrives (typing a price does not move the page)
+  let showAnswer = false;
   let timer = 0;
   let generation = 0;
   let idleTimer = 0;
@@ -122,6 +124,12 @@ export async function startKiosk(core) {
       state = { ...state, result: null, errors: [{ message: failure.message }], pending: false };
     }
     paint();
+    if (showAnswer) {
+      showAnswer = false;
+      const answer = container.querySelector('#kiosk-answer');
+      const box = answer?.getBoundingClientRect();
+      if (box && (box.top < 0 || box.top > window.innerHeight * 0.6)) answer.scrollIntoView({ block: 'start', behavior: 'smooth' });
+    }
   };
   const schedule = () => {
     clearTimeout(timer);
@@ -161,6 +169,7 @@ export async function startKiosk(core) {
     const { action, value } = button.dataset;
     if (action === 'kiosk-size') state.visitor.size = value;
     else if (action === 'kiosk-current') state.visitor.current = value;
+    if (action === 'kiosk-size' || action === 'kiosk-current') showAnswer = true;
     else if (action === 'kiosk-restart') { restart(); return; }
     else return;
     paint();

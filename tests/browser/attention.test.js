@@ -95,6 +95,31 @@ for (const viewport of [{ width: 768, height: 1024 }, { width: 390, height: 844 
       }
     });
 
+    test('bills pasted as a block become bill rows, and a line that is not a bill stays with its reason', { timeout: TIMEOUT }, async () => {
+      const session = await open(viewport);
+      const { page } = session;
+      try {
+        await page.tap('#tab-house');
+        await page.tap('label[for="f-demand-method-bills"]');
+        await page.waitForSelector('#bills-paste', { state: 'attached' });
+        await page.tap('details:has(#bills-paste) > summary');
+        // as a US gas statement prints them: each period starts on the day the last one ended (invented amounts)
+        await page.fill('#bills-paste', '11/12/2025\t12/11/2025\t84\n12/11/2025\t1/13/2026\t131 therms\n1/13/2026 2/11/2026 abc');
+        await page.tap('[data-action="paste-bills"]');
+        await page.waitForFunction(() => document.querySelector('#bills-paste-msg')?.textContent.startsWith('Added 2 bills.'));
+        assert.equal(await page.textContent('#bills-paste-msg'),
+          'Added 2 bills.\nLine 3 (1/13/2026 2/11/2026 abc) was not added: "abc" is not a quantity.');
+        assert.equal(await page.inputValue('#bills-paste'), '1/13/2026 2/11/2026 abc', 'the line not read stays to be corrected');
+        assert.equal(await page.inputValue('#f-demand-bills-0-start'), '2025-11-12');
+        assert.equal(await page.inputValue('#f-demand-bills-1-end'), '2026-01-13');
+        assert.equal(await page.inputValue('#f-demand-bills-1-quantity'), '131');
+        await page.screenshot({ path: join(ARTIFACTS, `attention-bills-pasted-${size}.png`) });
+        assert.deepEqual(session.consoleErrors, []);
+      } finally {
+        await close(session);
+      }
+    });
+
     test("the verdict's list of fields to fix jumps to the field, in view and focused", { timeout: TIMEOUT }, async () => {
       const session = await open(viewport);
       const { page } = session;

@@ -22,11 +22,18 @@ export const TYPED = {
 };
 
 /** The scenario the page must build after typing TYPED (see the tests' steps). */
-export function typedScenario({ gasPrice = 1.25, units = 'us', currency = 'USD' } = {}) {
+/** [YYYY-MM-DD] `days` after the date `iso` (calendar days). */
+export function daysAfter(iso, days) {
+  const [y, m, d] = iso.split('-').map(Number);
+  return new Date(Date.UTC(y, m - 1, d) + days * 86_400_000).toISOString().slice(0, 10);
+}
+
+export function typedScenario({ gasPrice = 1.25, units = 'us', currency = 'USD', number = 'Q-0001' } = {}) {
   return {
     schema: 'fuelwright.scenario/1',
-    // a new quote keeps who prepared the previous one (the demo's contractor)
-    quote: { customer: TYPED.customer, site: TYPED.site, date: today(), prepared_by: 'Hollow Creek Heating & Cooling (invented contractor)' },
+    // a new quote on a device with no company profile yet: the first number of the device's counter, prices
+    // holding for the profile's default 30 days, nobody named as its author (not the demo's contractor)
+    quote: { customer: TYPED.customer, site: TYPED.site, date: today(), number, valid_until: daysAfter(today(), 30) },
     settings: { units, currency, gwp: 'AR5' },
     demand: { method: 'direct', annual_useful_heat: { value: 80, unit: 'MMBtu' } },
     options: [

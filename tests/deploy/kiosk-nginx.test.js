@@ -220,6 +220,11 @@ describe('the kiosk in Chromium behind nginx', () => {
     assert.equal(await page.inputValue('#kiosk-prices input.locked >> nth=1'), before, 'typing does not change a locked price');
 
     await chooseSize('medium');
+    // one tap, and the answer is in view (it used to land below the screen)
+    await page.waitForFunction(() => {
+      const box = document.querySelector('#kiosk-answer').getBoundingClientRect();
+      return box.top >= 0 && box.top < innerHeight * 0.6;
+    }, null, { timeout: 5000 });
     // the propane furnace: block-rate tiers and the tank rental come from the file
     const id = 'gas-furnace-condensing-propane';
     const shown = await page.$eval(`#kiosk-results li[data-option="${id}"] button.num`, (b) => ({ value: Number(b.dataset.value), text: b.textContent }));

@@ -76,6 +76,23 @@ function billWeather(ctx, d) {
     h('p', { class: 'field-msg', hidden: true }));
 }
 
+/** Bills pasted as a block (web/bills.js): what was pasted and not read stays in the box with its message. */
+function pasteBills(ctx) {
+  const paste = ctx.billPaste ?? { text: '', message: null };
+  const box = h('textarea', { id: 'bills-paste', rows: '4', spellcheck: 'false', 'aria-describedby': 'bills-paste-hint bills-paste-msg',
+    placeholder: '11/12/2025  12/11/2025  84\n12/11/2025  1/13/2026  131' });
+  box.value = paste.text;
+  return h('details', { class: 'more', open: Boolean(paste.text || paste.message) },
+    h('summary', { text: 'Paste several bills at once' }),
+    h('label', { for: 'bills-paste', text: 'One bill a line: start date, end date, quantity (and its unit if it is not the bills\' unit)' }),
+    box,
+    h('p', { class: 'hint', id: 'bills-paste-hint', text: 'Copied from the utility\'s statement or a spreadsheet; tabs, commas or spaces between the columns.' }),
+    h('button', { type: 'button', class: 'secondary', dataset: { action: 'paste-bills' }, text: 'Add these bills' }),
+    // not a .field-msg: those are the fields' own messages, rewritten after every evaluation
+    h('p', { class: paste.message?.ok ? 'paste-msg ok' : 'paste-msg', id: 'bills-paste-msg', role: 'status', hidden: !paste.message,
+      text: paste.message?.text ?? '' }));
+}
+
 function billFields(ctx, ws, d) {
   const rows = (d.bills ?? []).map((bill, i) => {
     const base = `/demand/bills/${i}`;
@@ -101,6 +118,7 @@ function billFields(ctx, ws, d) {
       text: 'These bills do not say how their dates are read: when two bills share a day they are read as meter reads, otherwise as inclusive. Choose one to be sure.' }) : null,
     h('div', { class: 'rows' }, rows),
     h('button', { type: 'button', class: 'secondary', dataset: { action: 'add-bill' }, text: 'Add a bill' }),
+    pasteBills(ctx),
     billWeather(ctx, d),
   ];
 }
