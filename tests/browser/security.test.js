@@ -416,9 +416,6 @@ describe('text typed into the page stays text', () => {
       filled.set(id, text);
     }
     await page.tap('label[for="f-fuels-1-fuel-kind-formula"]');
-    await page.waitForTimeout(1500);
-    await page.screenshot({ path: '/tmp/sec-debug.png' });
-    console.log('DEBUG', await page.evaluate(() => [...document.querySelectorAll('[id^="f-fuels-1-fuel"]')].map((n) => n.id + ':' + (n.checked ?? '')).join(' ')));
     await page.fill('#f-fuels-1-fuel-formula', filled.get('f-fuels-1-fuel-formula'));
     await tab('verdict');
     await settled('errors');
