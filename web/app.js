@@ -169,11 +169,26 @@ function onProfileInput(event) {
   const key = event.target?.dataset?.profile;
   if (!key) return;
   const raw = event.target.value;
-  const next = { ...profile, [key]: key === 'validity_days' || key === 'next_number' ? Number(raw.trim()) : raw };
+  const before = profile;
+  const numeric = key === 'validity_days' || key === 'next_number';
+  const number = Number(raw.trim());
+  if (numeric && !(Number.isInteger(number) && number >= 1 && number <= (key === 'validity_days' ? 365 : 999999))) {
+    // not kept until it reads: said at once, never silently replaced
+    const msg = $('#profile-msg');
+    msg.className = 'field-msg';
+    msg.hidden = false;
+    msg.textContent = key === 'validity_days' ? 'Quotes hold for: type a whole number of days from 1 to 365; the last one that read is kept.'
+      : 'Next quote number: type a whole number from 1; the last one that read is kept.';
+    return;
+  }
+  if (numeric) $('#profile-msg').hidden = true;
+  const next = { ...profile, [key]: numeric ? number : raw };
   profile = normalizeProfile(next);
   saveProfile(profile);
   store.set('/quote/company', companyOf(profile));
-  if (key === 'terms') store.set('/quote/terms', profile.terms);
+  // the open quote's terms follow the profile's unless they were written for this quote
+  const terms = store.state.quote.terms ?? '';
+  if (key === 'terms' && (!terms || terms === before.terms)) store.set('/quote/terms', profile.terms);
   if (key === 'name' && !store.state.quote.prepared_by) store.set('/quote/prepared_by', profile.name);
 }
 
