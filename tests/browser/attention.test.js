@@ -4,12 +4,11 @@
 // verdict's list of fields to fix jumps to the field (its tab, in view, focused, nothing covering
 // it), at 768x1024 and 390x844. Screenshots go to build/test-artifacts. The demo is invented.
 import assert from 'node:assert/strict';
-import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { mkdirSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { after, before, describe, test } from 'node:test';
 
-import { TOUCH, launchTablet, verdictSettled, watchPage } from './chromium-page.js';
+import { tabletSession, verdictSettled } from './chromium-page.js';
 import { siteDir } from '../node/helpers.js';
 import { serve } from './server.js';
 
@@ -26,20 +25,12 @@ before(async () => {
 }, { timeout: TIMEOUT });
 after(async () => { await server?.close(); }, { timeout: TIMEOUT });
 
-/** Opens the demo on a fresh profile at `viewport`; {context, page, profile, consoleErrors}. */
+/** Opens the demo on a fresh profile at `viewport`: a tabletSession. */
 async function open(viewport) {
-  const profile = mkdtempSync(join(tmpdir(), 'fuelwright-attention-'));
-  const { context, page } = await launchTablet(profile, { ...TOUCH, viewport });
-  const consoleErrors = [];
-  watchPage(page, { consoleErrors });
-  await page.goto(server.url);
-  await verdictSettled(page);
-  return { context, page, profile, consoleErrors };
-}
-
-async function close({ context, profile }) {
-  await context.close();
-  rmSync(profile, { recursive: true, force: true });
+  const session = await tabletSession('attention', { viewport });
+  await session.page.goto(server.url);
+  await verdictSettled(session.page);
+  return session;
 }
 
 /** Taps a field and types into it as a person does (what was there first is cleared). */
@@ -70,7 +61,7 @@ for (const viewport of [{ width: 768, height: 1024 }, { width: 390, height: 844 
         assert.equal(await page.$eval('#verdict-body', (b) => b.classList.contains('stale')), false);
         assert.deepEqual(session.consoleErrors, []);
       } finally {
-        await close(session);
+        await session.close();
       }
     });
 
@@ -91,7 +82,7 @@ for (const viewport of [{ width: 768, height: 1024 }, { width: 390, height: 844 
         assert.equal(await page.$('#verdict-field-errors'), null);
         assert.deepEqual(session.consoleErrors, []);
       } finally {
-        await close(session);
+        await session.close();
       }
     });
 
@@ -116,7 +107,7 @@ for (const viewport of [{ width: 768, height: 1024 }, { width: 390, height: 844 
         await page.screenshot({ path: join(ARTIFACTS, `attention-bills-pasted-${size}.png`) });
         assert.deepEqual(session.consoleErrors, []);
       } finally {
-        await close(session);
+        await session.close();
       }
     });
 
@@ -148,7 +139,7 @@ for (const viewport of [{ width: 768, height: 1024 }, { width: 390, height: 844 
         await page.screenshot({ path: join(ARTIFACTS, `attention-jumped-${size}.png`) });
         assert.deepEqual(session.consoleErrors, []);
       } finally {
-        await close(session);
+        await session.close();
       }
     });
   });

@@ -1,5 +1,9 @@
 // Shared by the tests that drive Debian's Chromium with playwright-core: where it is, how it is
 // started on a machine with no network, what a page reports, and waiting for the verdict.
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
 import { chromium } from 'playwright-core';
 
 /** The browser (FUELWRIGHT_CHROMIUM, default Debian's /usr/bin/chromium). */
@@ -55,4 +59,23 @@ export async function importAndWait(page, file, input = '#import-file') {
     return msg && !msg.hidden && msg.dataset.seq !== seq;
   }, before);
   return page.$eval('#import-msg', (msg) => ({ ok: msg.classList.contains('ok'), text: msg.textContent }));
+}
+
+/**
+ * A tablet session on its own profile folder at `viewport` (768x1024 by default, touch), watched for
+ * console errors: {context, page, consoleErrors, close()}; close() ends the browser and removes the
+ * profile. `options` add to the launch options (acceptDownloads, …).
+ */
+export async function tabletSession(name, { viewport = { width: 768, height: 1024 }, ...options } = {}) {
+  const profile = mkdtempSync(join(tmpdir(), `fuelwright-${name}-`));
+  const { context, page } = await launchTablet(profile, { ...TOUCH, viewport, ...options });
+  const consoleErrors = [];
+  watchPage(page, { consoleErrors });
+  return {
+    context, page, consoleErrors,
+    close: async () => {
+      await context.close();
+      rmSync(profile, { recursive: true, force: true });
+    },
+  };
 }

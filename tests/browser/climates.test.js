@@ -8,12 +8,11 @@
 // exported and imported. Screenshots of the House tab at 768x1024 and 390x844.
 // Every weather value, station and place here is invented.
 import assert from 'node:assert/strict';
-import { mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { mkdirSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { after, before, describe, test } from 'node:test';
 
-import { TOUCH, launchTablet, verdictSettled, watchPage } from './chromium-page.js';
+import { tabletSession, verdictSettled } from './chromium-page.js';
 import { siteDir } from '../node/helpers.js';
 import { serve } from './server.js';
 
@@ -21,23 +20,20 @@ const TIMEOUT = 60_000;
 const ARTIFACTS = resolve(process.env.FUELWRIGHT_ARTIFACTS ?? join(siteDir, '..', 'test-artifacts'));
 
 let server;
-let profile;
-let context;
+let session;
 let page;
-const consoleErrors = [];
+let consoleErrors = [];
 
 before(async () => {
   mkdirSync(ARTIFACTS, { recursive: true });
   server = await serve(siteDir);
-  profile = mkdtempSync(join(tmpdir(), 'fuelwright-climates-'));
-  ({ context, page } = await launchTablet(profile, { ...TOUCH, acceptDownloads: true, viewport: { width: 768, height: 1024 } }));
-  watchPage(page, { consoleErrors });
+  session = await tabletSession('climates', { acceptDownloads: true });
+  ({ page, consoleErrors } = session);
 }, { timeout: TIMEOUT });
 
 after(async () => {
-  await context?.close();
+  await session?.close();
   await server?.close();
-  if (profile) rmSync(profile, { recursive: true, force: true });
 }, { timeout: TIMEOUT });
 
 async function typeInto(selector, text) {

@@ -7,12 +7,11 @@
 // images (pdftoppm) go to build/test-artifacts. Everything in the demo is invented.
 import assert from 'node:assert/strict';
 import { execFileSync } from 'node:child_process';
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { after, before, describe, test } from 'node:test';
 
-import { TOUCH, launchTablet, verdictSettled, watchPage } from './chromium-page.js';
+import { tabletSession, verdictSettled } from './chromium-page.js';
 import { siteDir } from '../node/helpers.js';
 import { serve } from './server.js';
 
@@ -21,23 +20,19 @@ const ARTIFACTS = resolve(process.env.FUELWRIGHT_ARTIFACTS ?? join(siteDir, '..'
 const id = (path) => `#f${path.replace(/[^A-Za-z0-9]+/g, '-')}`;
 
 let server;
-let profile;
-let context;
+let session;
 let page;
-const consoleErrors = [];
 
 before(async () => {
   mkdirSync(ARTIFACTS, { recursive: true });
   server = await serve(siteDir);
-  profile = mkdtempSync(join(tmpdir(), 'fuelwright-sheet-'));
-  ({ context, page } = await launchTablet(profile, { ...TOUCH, viewport: { width: 768, height: 1024 } }));
-  watchPage(page, { consoleErrors });
+  session = await tabletSession('sheet');
+  ({ page } = session);
 }, { timeout: TIMEOUT });
 
 after(async () => {
-  await context?.close();
+  await session?.close();
   await server?.close();
-  if (profile) rmSync(profile, { recursive: true, force: true });
 }, { timeout: TIMEOUT });
 
 /** The sheet printed on `paper` ('letter' or 'a4'): {text, pages}; page images written as PNGs. */
@@ -84,6 +79,6 @@ describe('The quote sheet on paper (Chromium, 768x1024 with touch)', () => {
       assert.doesNotMatch(text, /air-source-heat-pump|gas-furnace|degF|undefined|NaN/);
       assert.ok(pages.length <= 3, `${paper}: ${pages.length} pages`);
     }
-    assert.deepEqual(consoleErrors, []);
+    assert.deepEqual(session.consoleErrors, []);
   });
 });

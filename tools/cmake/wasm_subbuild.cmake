@@ -36,42 +36,35 @@ set_tests_properties(node_wasm PROPERTIES
   LABELS wasm
   TIMEOUT 120)
 
+# One test file of tests/browser/ run by Node as its own ctest test.
+function(fw_node_browser_test name file)
+  add_test(NAME ${name}
+    COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/${file}"
+    WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+endfunction()
+
 # The page in three engines, each its own test: headless Chromium
 # (playwright-core), WebKitGTK's WebDriver under Xvfb (selenium-webdriver) and
 # Firefox ESR through WebDriver BiDi (ws). Screenshots go to build/test-artifacts.
 set(FW_CHROMIUM "/usr/bin/chromium" CACHE FILEPATH "Chromium used by the browser tests")
 find_program(FW_XVFB_RUN xvfb-run)
 set(FW_BROWSER_ENV "FUELWRIGHT_SITE=${FW_SITE_DIR};FUELWRIGHT_CLI=$<TARGET_FILE:fuelwright>;FUELWRIGHT_CHROMIUM=${FW_CHROMIUM};FUELWRIGHT_ARTIFACTS=${CMAKE_SOURCE_DIR}/build/test-artifacts")
-add_test(NAME browser_chromium
-  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/chromium.test.js"
-  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+fw_node_browser_test(browser_chromium chromium.test.js)
 add_test(NAME browser_webkit
   COMMAND "${FW_XVFB_RUN}" -a -s "-screen 0 1280x1024x24"
           "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/webkit.test.js"
   WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
-add_test(NAME browser_firefox
-  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/firefox.test.js"
-  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+fw_node_browser_test(browser_firefox firefox.test.js)
 # The House tab's bills as printed, weather file and climate library, in Chromium.
-add_test(NAME browser_chromium_climates
-  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/climates.test.js"
-  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+fw_node_browser_test(browser_chromium_climates climates.test.js)
 # Heat pumps and fuel-burning equipment as rated and sold (issue 13), in Chromium.
-add_test(NAME browser_chromium_equipment
-  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/equipment.test.js"
-  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+fw_node_browser_test(browser_chromium_equipment equipment.test.js)
 # Entries that need attention: the out-of-date verdict, slips asked about, the jump to a field, in Chromium.
-add_test(NAME browser_chromium_attention
-  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/attention.test.js"
-  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+fw_node_browser_test(browser_chromium_attention attention.test.js)
 # The printed quote sheet (Chromium's PDF read back with pdftotext), in Chromium.
-add_test(NAME browser_chromium_sheet
-  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/sheet.test.js"
-  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+fw_node_browser_test(browser_chromium_sheet sheet.test.js)
 # Saved quotes of earlier and later record versions, and a full storage, in Chromium.
-add_test(NAME browser_storage
-  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/storage.test.js"
-  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+fw_node_browser_test(browser_storage storage.test.js)
 set_tests_properties(browser_chromium browser_chromium_climates browser_chromium_equipment browser_chromium_attention browser_chromium_sheet browser_webkit browser_firefox browser_storage PROPERTIES
   ENVIRONMENT "${FW_BROWSER_ENV}"
   LABELS browser
@@ -80,9 +73,7 @@ set_tests_properties(browser_chromium browser_chromium_climates browser_chromium
 
 # Text typed in, imported or read from a price file shown as text and never run;
 # requests only to the site's own origin, and none once the page has loaded offline.
-add_test(NAME browser_security
-  COMMAND "${FW_NODE}" --test --test-reporter=spec "${CMAKE_SOURCE_DIR}/tests/browser/security.test.js"
-  WORKING_DIRECTORY "${CMAKE_SOURCE_DIR}")
+fw_node_browser_test(browser_security security.test.js)
 set_tests_properties(browser_security PROPERTIES
   ENVIRONMENT "${FW_BROWSER_ENV}"
   LABELS browser
