@@ -29,7 +29,8 @@ import { renderFuels, saleUnitsOf, fuelName } from './views/fuels.js';
 import { renderHouse } from './views/house.js';
 import { renderLab } from './views/lab.js';
 import { renderQuotes } from './views/quotes.js';
-import { KIND_NAMES, renderSystems } from './views/systems.js';
+import { DUAL_FUEL_CHOICE, KIND_NAMES, renderSystems } from './views/systems.js';
+import { FUEL_BURNING_KINDS } from './equipment.js';
 import { openTrace } from './views/trace.js';
 import { bindVerdict, rankedOptions, renderVerdict, resultsCsv, showDrawProgress } from './views/verdict.js';
 
@@ -832,7 +833,9 @@ function addFuel(id) {
   cards[cards.length - 1]?.querySelector('[data-path$="/price/amount"]')?.focus();
 }
 
-function addSystem(kind) {
+function addSystem(choice) {
+  const dual = choice === DUAL_FUEL_CHOICE;
+  const kind = dual ? 'air-source-heat-pump' : choice;
   store.mutate((ws) => {
     const electric = kind === 'electric-resistance' || HEAT_PUMP_KINDS.includes(kind);
     const fuel = ws.fuels.find((f) => (fuelId(f) === 'electricity') === electric) ?? ws.fuels[0];
@@ -840,6 +843,11 @@ function addSystem(kind) {
     fitSystemToCatalog(ws, sys);
     if (!sys.system.efficiency?.rating) sys.system.efficiency = { rating: electric ? 'COP' : 'thermal' };
     sys.id = uniqueSystemId(ws, `${kind}-${fuelId(fuel) || 'fuel'}`);
+    const backup = dual ? ws.systems.find((other) => other.existing && FUEL_BURNING_KINDS.includes(other.system?.kind)) : null;
+    if (backup) {
+      sys.system.backup = backup.id;
+      sys.system.changeover_mode = 'temperature';
+    }
     sys.label = autoLabel(ws, sys);
     ws.systems.push(sys);
   });

@@ -7,7 +7,7 @@ import { costBars } from './charts.js';
 import { asSentence } from './format.js';
 import { fuelName } from './views/fuels.js';
 import { KIND_NAMES } from './views/systems.js';
-import { equipmentNotes, displayValues, lifeOf, paybackWords, rankedOptions } from './views/verdict.js';
+import { equipmentNotes, displayValues, fuelUsedText, lifeOf, paybackWords, rankedOptions } from './views/verdict.js';
 import { FUEL_BURNING_KINDS, STAGES, auxiliaryDefault, equipmentElectricityPrice, powerText } from './equipment.js';
 import { HEAT_PUMP_KINDS } from './scenario.js';
 import { optionPrice } from './profile.js';
@@ -61,13 +61,6 @@ function assumptions(ws, result, ctx) {
   items.push(['Emissions', `CO2e with IPCC ${ws.settings.gwp ?? 'AR5'} warming potentials; electricity ${
     ws.settings.electricity_co2e_kg_per_kwh ?? result?.settings?.electricity_co2e_kg_per_kwh ?? '—'} kg CO2e/kWh`]);
   return h('dl', { class: 'assumptions' }, items.flatMap(([k, v]) => [h('dt', { text: k }), h('dd', { text: v })]));
-}
-
-/** The fuel an option burns in a year; a dual-fuel option's two fuels both ("3,120 kWh + 180 therm"). */
-function fuelUsedText(o, v, format) {
-  const main = `${format.number(v.fuel_quantity)} ${unitLabel(o.fuel_quantity?.unit ?? '')}`;
-  const backup = o.backup_fuel_quantity;
-  return backup && Number.isFinite(backup.value) && backup.value > 0 ? `${main} + ${format.number(backup.value)} ${unitLabel(backup.unit ?? '')}` : main;
 }
 
 function resultsTable(ws, result, ctx) {

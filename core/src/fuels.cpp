@@ -281,7 +281,9 @@ unit_heating_value heating_value_per_sale_unit(const fuel_record& fuel, const st
                       fuel.basis_unit + " at " + fuel.gas_reference + " (ideal gas)";
             } else {
                 basis_units = convert(1.0, sale_unit, fuel.basis_unit);
-                how = "1 " + sale_unit + " = " + format_number(basis_units) + " " + fuel.basis_unit;
+                // sold in the unit its heating value is given per: nothing to convert, nothing to say
+                if (sale_unit != fuel.basis_unit)
+                    how = "1 " + sale_unit + " = " + format_number(basis_units) + " " + fuel.basis_unit;
             }
         } else if (fuel.density_kg_per_l && ((sale.kind == dimension::mass && basis.kind == dimension::volume) ||
                                              (sale.kind == dimension::volume && basis.kind == dimension::mass))) {

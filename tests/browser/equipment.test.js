@@ -214,4 +214,27 @@ describe('Equipment as rated and sold (Chromium, 768x1024 with touch)', () => {
     }
     assert.deepEqual(consoleErrors, []);
   });
+  test('a heat pump with the boiler in the house now as its backup is one choice in the add menu', { timeout: TIMEOUT }, async () => {
+    await page.tap('#tab-systems');
+    const choice = 'air-source-heat-pump+existing-backup';
+    const label = await page.$eval(`#add-system-kind option[value="${choice}"]`, (o) => o.textContent);
+    assert.equal(label, 'Air-source heat pump, with Existing oil boiler, 86 AFUE as backup (dual fuel)');
+    const before = await page.locator('.system-card').count();
+    await page.selectOption('#add-system-kind', choice);
+    await page.tap('[data-action="add-system"]');
+    await page.waitForFunction((n) => document.querySelectorAll('.system-card').length === n + 1, before);
+    assert.equal(await page.inputValue(id(`/systems/${before}/system/backup`)), 'oil-boiler');
+    await page.tap('#tab-verdict');
+    await verdictSettled(page);
+    const { doc } = await exported();
+    const added = doc.options[before];
+    assert.equal(added.system.backup, 'oil-boiler');
+    const cli = await cliEvaluate(doc);
+    assert.deepEqual(cli.errors, []);
+    const option = cli.options.find((o) => o.id === added.id);
+    assert.equal(option.backup_option, 'oil-boiler');
+    assert.equal(option.backup_fuel_quantity.unit, 'gal');
+    assert.ok(option.backup_fuel_quantity.value > 0, 'the boiler burns oil in the coldest hours');
+    assert.deepEqual(consoleErrors, []);
+  });
 });

@@ -35,8 +35,24 @@ function choice(action, value, pressed, label, detail) {
     h('span', { text: label }), detail ? h('span', { class: 'sub', text: detail }) : null);
 }
 
+/** A fuel's name for a visitor ("Propane"), with the trade grade as a small subtitle ("HD-5"). */
+export function plainFuelName(name) {
+  const m = /^(.*\S)\s*\(([^)]+)\)$/.exec(name ?? '');
+  return m ? { name: m[1], grade: m[2] } : { name: name ?? '', grade: '' };
+}
+
+/** Units as a visitor says them: "ton" (US short ton), "million Btu". */
+const KIOSK_UNITS = { short_ton: 'ton', MMBtu: 'million Btu' };
+const kioskUnit = (unit) => KIOSK_UNITS[unit] ?? unitLabel(unit);
+
+/** A fuel's row heading: the plain name, and the grade beside it in small type. */
+const fuelHeading = (entry, suffix) => {
+  const { name, grade } = plainFuelName(entry.name);
+  return [`${name}${suffix}`, grade ? h('span', { class: 'grade', text: ` ${grade}` }) : null];
+};
+
 function tiersText(p, format) {
-  const unit = unitLabel(p.unit);
+  const unit = kioskUnit(p.unit);
   return p.tiers.map((t) => (isNum(t.to)
     ? `${format.price(t.amount)} from ${format.number(t.from)} to ${format.number(t.to)} ${unit} a year`
     : `${format.price(t.amount)} above ${format.number(t.from)} ${unit}`)).join('; ');
@@ -48,11 +64,11 @@ function priceRows(k, format, visitor) {
     if (!entry.prices.length) {
       const id = `kiosk-price-${entry.fuel}`;
       rows.push(h('tr', { dataset: { fuel: entry.fuel } },
-        h('th', { scope: 'row' }, h('label', { for: id, text: `${entry.name}: your price` })),
+        h('th', { scope: 'row' }, h('label', { for: id }, fuelHeading(entry, ': your price'))),
         h('td', {}, h('div', { class: 'with-unit' },
           h('input', { id, type: 'text', inputmode: 'decimal', autocomplete: 'off', dataset: { action: 'kiosk-price', fuel: entry.fuel },
             value: visitor.priceText?.[entry.fuel] ?? '', placeholder: 'e.g. 0.16' }),
-          h('span', { class: 'unit', text: `${k.currency} per ${unitLabel(entry.unit)}` }))),
+          h('span', { class: 'unit', text: `${k.currency} per ${kioskUnit(entry.unit)}` }))),
         h('td', { class: 'hint', text: 'Not on our price list: enter it from your bill to include it.' })));
       return;
     }
@@ -65,12 +81,12 @@ function priceRows(k, format, visitor) {
         notes.push(isNum(c.amount_per_month) ? `${c.label ?? 'fixed charge'} ${format.price(c.amount_per_month)} a month`
           : `${c.label ?? 'fixed charge'} ${format.price(c.amount_per_year)} a year`);
       }
-      if (p.delivery_minimum) notes.push(`smallest delivery ${format.number(p.delivery_minimum.value)} ${unitLabel(p.delivery_minimum.unit)}`);
+      if (p.delivery_minimum) notes.push(`smallest delivery ${format.number(p.delivery_minimum.value)} ${kioskUnit(p.delivery_minimum.unit)}`);
       if (p.note) notes.push(p.note);
       if (!compared) notes.push('not used in the comparison');
       const value = p.tiers?.length ? p.tiers.map((t) => format.price(t.amount)).join(' / ') : format.price(p.amount);
       rows.push(h('tr', { dataset: { fuel: entry.fuel, unit: p.unit } },
-        h('th', { scope: 'row' }, h('label', { for: id, text: `${entry.name}, per ${unitLabel(p.unit)}` })),
+        h('th', { scope: 'row' }, h('label', { for: id }, fuelHeading(entry, `, per ${kioskUnit(p.unit)}`))),
         h('td', {}, h('input', { id, type: 'text', readonly: true, 'aria-readonly': 'true', class: 'locked', value,
           dataset: { fuel: entry.fuel, unit: p.unit, ...(isNum(p.amount) ? { amount: String(p.amount) } : {}) } })),
         h('td', { class: 'hint', text: notes.join('; ') })));
@@ -94,7 +110,7 @@ function resultsCard(k, state, format) {
     const baseline = r.economics?.baseline;
     nodes.push(h('ol', { class: 'kiosk-results', id: 'kiosk-results' }, list.map((o, i) => {
       const perUseful = o.cost_per_useful_kwh * ENERGY_KWH[energyUnit];
-      const subs = [`${o.fuel_name}: ${format.number(o.fuel_quantity?.value)} ${unitLabel(o.fuel_quantity?.unit ?? '')} a year, ${format.price(perUseful)} per ${unitLabel(energyUnit)} of heat`];
+      const subs = [`${plainFuelName(o.fuel_name).name}: ${format.number(o.fuel_quantity?.value, 3)} ${kioskUnit(o.fuel_quantity?.unit ?? '')} a year, ${format.price(perUseful)} per ${kioskUnit(energyUnit)} of heat`];
       if (baseline && o.id === baseline) subs.push('what you have now');
       else if (baseline && isNum(o.annual_saving)) {
         subs.push(o.annual_saving >= 0 ? `saves ${format.money(o.annual_saving)} a year against what you have now`

@@ -161,15 +161,20 @@ function systemCard(ctx, ws, sys, index) {
   return h('article', { class: 'card system-card', dataset: { field: base, systemId: sys.id } }, nodes);
 }
 
+/** The add menu's choice for a heat pump backed by the fuel-burning system in the house now (dual fuel in one step). */
+export const DUAL_FUEL_CHOICE = 'air-source-heat-pump+existing-backup';
+
 /** Renders the systems panel. */
 export function renderSystems(container, ctx) {
   const ws = ctx.store.state;
+  const existingBurner = ws.systems.find((sys) => sys.existing && FUEL_BURNING_KINDS.includes(sys.system?.kind));
   const e = ws.economics;
   const cards = ws.systems.map((sys, i) => systemCard(ctx, ws, sys, i));
   const add = h('div', { class: 'add-row' },
     h('label', { for: 'add-system-kind', text: 'Add a system' }),
     h('div', { class: 'with-unit' },
-      h('select', { id: 'add-system-kind' }, SYSTEM_KINDS.map((k) => h('option', { value: k, text: KIND_NAMES[k] }))),
+      h('select', { id: 'add-system-kind' }, SYSTEM_KINDS.map((k) => h('option', { value: k, text: KIND_NAMES[k] })),
+        existingBurner ? h('option', { value: DUAL_FUEL_CHOICE, text: `Air-source heat pump, with ${existingBurner.label || existingBurner.id} as backup (dual fuel)` }) : null),
       h('button', { type: 'button', class: 'primary', dataset: { action: 'add-system' }, text: 'Add' })));
   const economics = h('fieldset', { class: 'group' }, h('legend', { text: 'Costs over the years' }),
     checkField(ctx, { label: 'Compare installed costs, payback and life-cycle cost', path: '/economics/enabled', checked: e.enabled, structural: true }),

@@ -106,6 +106,13 @@ export function paybackWords(option, { key = 'simple_payback_years', lifeYears, 
 /** The expected life entered for the option `id` (its system in the workspace), or undefined. */
 export const lifeOf = (ws, id) => ws.systems?.find((s) => s.id === id)?.life_years;
 
+/** The fuel an option burns in a year; a dual-fuel option's two fuels both ("3,120 kWh + 180 therm"). */
+export function fuelUsedText(o, v, format) {
+  const main = `${format.number(v.fuel_quantity)} ${unitLabel(o.fuel_quantity?.unit ?? '')}`;
+  const backup = o.backup_fuel_quantity;
+  return backup && Number.isFinite(backup.value) && backup.value > 0 ? `${main} + ${format.number(backup.value)} ${unitLabel(backup.unit ?? '')}` : main;
+}
+
 function table(result, ws, ctx, by) {
   const { format } = ctx;
   const energyUnit = unitLabel(ws.settings.energy_unit);
@@ -124,14 +131,13 @@ function table(result, ws, ctx, by) {
         h('span', { class: 'name', text: option.label ?? option.id }),
         h('span', { class: 'sub', text: option.fuel_name ?? option.fuel }), hp,
         option.id === result.economics?.baseline || option.existing ? h('span', { class: 'badge existing', text: 'existing' }) : null),
-      h('td', {}, numButton(option, 'annual_cost', v.annual_cost, format.money(v.annual_cost), 'Annual cost'),
+      h('td', { dataset: { label: head[2] } }, numButton(option, 'annual_cost', v.annual_cost, format.money(v.annual_cost), 'Annual cost'),
         h('span', { class: 'sub', text: `${format.money(v.energy_cost)} energy + ${format.money(v.fixed_cost)} fixed` })),
-      h('td', {}, numButton(option, 'cost_per_useful', v.cost_per_useful, format.price(v.cost_per_useful), `Cost per ${energyUnit} of useful heat`)),
-      h('td', {}, numButton(option, 'fuel_quantity', v.fuel_quantity,
-        `${format.number(v.fuel_quantity)} ${unitLabel(option.fuel_quantity?.unit ?? '')}`, 'Fuel used per year')),
-      h('td', {}, numButton(option, 'co2e', v.co2e, format.number(v.co2e, 3), `CO2e ${massUnit} per year`)),
+      h('td', { dataset: { label: head[3] } }, numButton(option, 'cost_per_useful', v.cost_per_useful, format.price(v.cost_per_useful), `Cost per ${energyUnit} of useful heat`)),
+      h('td', { dataset: { label: head[4] } }, numButton(option, 'fuel_quantity', v.fuel_quantity, fuelUsedText(option, v, format), 'Fuel used per year')),
+      h('td', { dataset: { label: head[5] } }, numButton(option, 'co2e', v.co2e, format.number(v.co2e, 3), `CO2e ${massUnit} per year`)),
     ];
-    if (econ) cells.push(h('td', {}, numButton(option, 'life_cycle_cost', option.life_cycle_cost, format.money(option.life_cycle_cost), 'Life-cycle cost')));
+    if (econ) cells.push(h('td', { dataset: { label: head[6] } }, numButton(option, 'life_cycle_cost', option.life_cycle_cost, format.money(option.life_cycle_cost), 'Life-cycle cost')));
     return h('tr', { dataset: { option: option.id, rank: String(i + 1) } }, cells);
   });
   return h('div', { class: 'table-wrap' }, h('table', { id: 'verdict-table', class: 'ranked' },
