@@ -30,7 +30,7 @@ import { renderHouse } from './views/house.js';
 import { renderLab } from './views/lab.js';
 import { renderQuotes } from './views/quotes.js';
 import { DUAL_FUEL_CHOICE, KIND_NAMES, renderSystems } from './views/systems.js';
-import { FUEL_BURNING_KINDS } from './equipment.js';
+import { FUEL_BURNING_KINDS, billedSystemId, dualFuelSystem } from './equipment.js';
 import { openTrace } from './views/trace.js';
 import { bindVerdict, rankedOptions, renderVerdict, resultsCsv, showDrawProgress } from './views/verdict.js';
 
@@ -692,7 +692,16 @@ async function flushSave() {
 
 function autoLabel(ws, sys) {
   const entry = ws.fuels.find((f) => f.key === sys.fuel_key);
-  return `${KIND_NAMES[sys.system?.kind] ?? 'System'}${entry ? `, ${fuelName(entry, ctx.catalog)}` : ''}`;
+  const backup = sys.system?.backup && ws.systems.find((s) => s.id === sys.system.backup);
+  if (backup) {
+    // a dual-fuel option says so and names its backup, so it is never read as the heat pump alone
+    const backupFuel = ws.fuels.find((f) => f.key === backup.fuel_key);
+    return `Dual fuel: ${(KIND_NAMES[sys.system.kind] ?? 'heat pump').toLowerCase()} + ${(KIND_NAMES[backup.system?.kind] ?? 'system').toLowerCase()}${
+      backupFuel ? ` (${fuelName(backupFuel, ctx.catalog)})` : ''}`;
+  }
+  // the system in the house now is named so, never confused with a new one of the same kind and fuel
+  const kind = KIND_NAMES[sys.system?.kind] ?? 'System';
+  return `${sys.existing ? `Existing ${kind.toLowerCase()}` : kind}${entry ? `, ${fuelName(entry, ctx.catalog)}` : ''}`;
 }
 
 function fitSystemToCatalog(ws, sys) {
@@ -792,8 +801,29 @@ function onField(path, value, { structural }) {
     if (head) head.textContent = value || ws.systems[Number(m[1])].id;
     return;
   }
-  if ((m = /^\/systems\/(\d+)\/existing$/.exec(path)) && value) {
-    store.mutate(() => ws.systems.forEach((s, i) => { s.existing = i === Number(m[1]); }));
+  if (path === '/demand/method' && value === 'bills') {
+    store.mutate(() => {
+      ws.demand.method = value;
+      ws.demand.bills_option = billedSystemId(ws);
+    });
+    return;
+  }
+  if ((m = /^\/systems\/(\d+)\/existing$/.exec(path))) {
+    store.mutate(() => {
+      if (value) ws.systems.forEach((s, i) => { s.existing = i === Number(m[1]); });
+      else ws.systems[Number(m[1])].existing = false;
+      for (const s of ws.systems) if (s.label_auto) s.label = autoLabel(ws, s);
+      // bills are the existing system's: marking it links them (shown on the House tab)
+      ws.demand.bills_option = billedSystemId(ws);
+    });
+    return;
+  }
+  if ((m = /^\/systems\/(\d+)\/system\/backup$/.exec(path))) {
+    const sys = ws.systems[Number(m[1])];
+    store.mutate(() => {
+      setAt(ws, path, value);
+      if (sys.label_auto) sys.label = autoLabel(ws, sys);
+    });
     return;
   }
   if ((m = /^\/demand\/bills\/(\d+)\/mean_temperature\/value$/.exec(path)) && !ws.demand.bills[Number(m[1])]?.mean_temperature?.unit) {
@@ -845,8 +875,12 @@ function addSystem(choice) {
     sys.id = uniqueSystemId(ws, `${kind}-${fuelId(fuel) || 'fuel'}`);
     const backup = dual ? ws.systems.find((other) => other.existing && FUEL_BURNING_KINDS.includes(other.system?.kind)) : null;
     if (backup) {
+      // the heat pump already on the quote, from its data sheet, is the one paired with the backup
+      const copy = dualFuelSystem(ws, backup.id);
+      if (copy) Object.assign(sys, copy);
       sys.system.backup = backup.id;
       sys.system.changeover_mode = 'temperature';
+      sys.id = uniqueSystemId(ws, `dual-fuel-${fuelId(backup && ws.fuels.find((f) => f.key === backup.fuel_key)) || 'backup'}`);
     }
     sys.label = autoLabel(ws, sys);
     ws.systems.push(sys);
@@ -1220,11 +1254,6 @@ function wireHeader() {
     store.mutate(() => {}, { reason: 'display' });
   });
   window.addEventListener('beforeprint', paintSheet);
-  // the tabs stick just below the (sticky) top bar, whose height changes with its wrapping
-  const topbar = $('.topbar');
-  const setTopbarHeight = () => document.documentElement.style.setProperty('--topbar-h', `${topbar.offsetHeight}px`);
-  if (typeof ResizeObserver === 'function') new ResizeObserver(setTopbarHeight).observe(topbar);
-  setTopbarHeight();
 }
 
 function onStoreChange(change) {

@@ -166,3 +166,31 @@ export function keptServicesName(ws, catalog) {
   if (fuels.length === 1) return `${catalog?.fuels?.find((f) => f.id === fuels[0])?.name ?? 'Fuel'} service kept for other appliances`;
   return 'Services kept for other appliances';
 }
+
+/**
+ * The system the bills belong to after an edit: the one they name while it is still the system in the house
+ * now, else the one system marked as in the house now (bills are that system's by definition), else what
+ * they named (possibly '' — the House tab then asks for it).
+ */
+export function billedSystemId(ws) {
+  const named = ws.demand?.bills_option ?? '';
+  const existing = (ws.systems ?? []).filter((s) => s.existing);
+  if (named && existing.some((s) => s.id === named)) return named;
+  return existing.length === 1 ? existing[0].id : named;
+}
+
+/**
+ * The heat pump of a dual-fuel option added with `backupId` as its backup: a copy of the last candidate
+ * air-source heat pump without a fuel-burning backup (the same unit from its data sheet, typed once), or
+ * null when there is none. Changeover below a set temperature, as dual-fuel thermostats do (common practice).
+ */
+export function dualFuelSystem(ws, backupId) {
+  const ids = new Set((ws.systems ?? []).map((s) => s.id));
+  const template = [...(ws.systems ?? [])].reverse().find((s) => !s.existing && s.system?.kind === 'air-source-heat-pump'
+    && (!s.system.backup || s.system.backup === 'electric-resistance' || !ids.has(s.system.backup)));
+  if (!template) return null;
+  const system = structuredClone(template.system);
+  system.backup = backupId;
+  system.changeover_mode = 'temperature';
+  return { fuel_key: template.fuel_key, equipment: template.equipment, system };
+}

@@ -10,7 +10,7 @@ import { createFormat, isCurrency, isLocale, parseNumber } from './format.js';
 import { kioskOffer, kioskScenario, kioskSettings, priceFileVerdict, sameOriginUrl, unitsOf } from './kiosk-scenario.js';
 import { today } from './scenario.js';
 import { openTrace } from './views/trace.js';
-import { renderKiosk, renderRefusal } from './views/kiosk.js';
+import { brandKioskHeader, renderKiosk, renderRefusal } from './views/kiosk.js';
 
 const EVALUATE_DEBOUNCE_MS = 150;
 
@@ -73,6 +73,7 @@ export async function startKiosk(core) {
       return;
     }
     const file = JSON.parse(text);
+    brandKioskHeader(document.querySelector('.topbar'), file.supplier, url.href);
     const currency = isCurrency(check.currency) ? check.currency : 'USD';
     const locale = isLocale(settings.locale) && settings.locale ? settings.locale : 'en-US';
     format = createFormat({ locale, currency });

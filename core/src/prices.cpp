@@ -1,7 +1,9 @@
 #include "fw/api.hpp"
 
 #include <algorithm>
+#include <cctype>
 #include <cmath>
+#include <regex>
 #include <nlohmann/json.hpp>
 
 #include "fw/demand.hpp"
@@ -54,6 +56,20 @@ std::string required_text(const json& obj, const std::string& key, const std::st
     const auto value = optional_string(obj, key, path);
     if (!value || value->empty()) throw input_error(path + "/" + key, "is required (text)");
     return *value;
+}
+
+/** Whether `logo` names an image on the kiosk's own site (a relative path to .svg/.png/.jpg/.jpeg/.webp) or is a data:image URL. */
+bool is_site_image(const std::string& logo) {
+    for (const std::string prefix : {"data:image/png;base64,", "data:image/jpeg;base64,", "data:image/webp;base64,", "data:image/svg+xml;base64,"}) {
+        if (logo.rfind(prefix, 0) != 0) continue;
+        // checked character by character (a regex over a long data URL would recurse once per character)
+        return logo.size() > prefix.size() && logo.size() <= 200000 &&
+               std::all_of(logo.begin() + static_cast<std::ptrdiff_t>(prefix.size()), logo.end(),
+                           [](char ch) { return std::isalnum(static_cast<unsigned char>(ch)) || ch == '+' || ch == '/' || ch == '='; });
+    }
+    static const std::regex relative_image(R"(^[A-Za-z0-9_][A-Za-z0-9_./-]*\.(svg|png|jpg|jpeg|webp)$)", std::regex::icase);
+    return logo.size() <= 200 && logo.find("..") == std::string::npos && logo.find("//") == std::string::npos &&
+           std::regex_match(logo, relative_image);
 }
 
 void check_price(const json& item, const std::string& path, const std::string& currency, checker& c, json& summary) {
@@ -138,10 +154,16 @@ std::string check_prices_json(const std::string& text, const std::string& today)
             if (!doc.contains("supplier")) throw input_error("/supplier", "is required ({name, contact})");
             const auto& supplier = doc.at("supplier");
             require_object(supplier, "/supplier");
-            only_keys(supplier, {"name", "contact", "quote_text"}, "/supplier", c);
+            only_keys(supplier, {"name", "contact", "quote_text", "phone", "help_text", "logo"}, "/supplier", c);
             out["supplier"] = required_text(supplier, "name", "/supplier");
             optional_string(supplier, "contact", "/supplier");
             optional_string(supplier, "quote_text", "/supplier");
+            optional_string(supplier, "phone", "/supplier");
+            optional_string(supplier, "help_text", "/supplier");
+            if (const auto logo = optional_string(supplier, "logo", "/supplier"); logo && !is_site_image(*logo))
+                throw input_error("/supplier/logo",
+                                  "must be an image file on this site (e.g. logo.svg or images/logo.png: .svg, .png, .jpg or .webp, "
+                                  "no address elsewhere) or a data:image URL");
         });
         std::string currency = "USD";
         c.attempt([&] {

@@ -45,7 +45,7 @@ const ROWS = `(() => Object.fromEntries([...document.querySelectorAll('#verdict-
 const ECONOMICS = `(() => Object.fromEntries([...document.querySelectorAll('#economics-table tbody tr')].map((tr) => [tr.dataset.option,
   Object.fromEntries([...tr.querySelectorAll('button.num')].map((b) => [b.dataset.key, { value: Number(b.dataset.value), text: b.textContent }]))])))()`;
 
-async function checkAgainstCli(driver, scenario) {
+export async function checkAgainstCli(driver, scenario) {
   const cli = await cliEvaluate(scenario);
   assert.deepEqual(cli.errors, []);
   const rows = await driver.js(ROWS);

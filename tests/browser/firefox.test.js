@@ -13,6 +13,7 @@ import WebSocket from 'ws';
 
 import { siteDir } from '../node/helpers.js';
 import { CORE_FLOW } from './core-flow.js';
+import { walk } from './quote-walk.js';
 import { serve } from './server.js';
 
 const TIMEOUT = 30_000;
@@ -119,4 +120,18 @@ after(async () => {
 
 describe('Firefox ESR (WebDriver BiDi)', () => {
   for (const [name, step] of CORE_FLOW) test(name, { timeout: TIMEOUT }, () => step(driver, env));
+});
+
+describe('Firefox ESR: the issue-14 quote entered end to end', () => {
+  test('the quote typed tab by tab is saved with every entry and gives the CLI\'s numbers', { timeout: 180_000 }, async () => {
+    // its own server, so its own origin: a device with nothing saved yet, whatever the core flow left
+    const own = await serve(siteDir);
+    try {
+      const { setup, quote } = await walk(driver, own.url);
+      console.log(`# firefox: device set-up ${setup.taps} taps, ${setup.chars} characters; the quote ${quote.taps} taps, ${quote.chars} characters`);
+      await driver.screenshot(join(ARTIFACTS, 'firefox-walk-verdict.png'));
+    } finally {
+      await own.close();
+    }
+  });
 });

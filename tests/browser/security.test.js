@@ -97,7 +97,7 @@ const current = { ...structuredClone(sample), effective: day(-30), expires: day(
 /** A valid price file whose every text carries an attack. */
 const hostile = {
   ...structuredClone(current),
-  supplier: { name: attack(0), contact: attack(2), quote_text: attack(4) },
+  supplier: { name: attack(0), contact: attack(2), quote_text: attack(4), phone: attack(6), help_text: attack(8) },
   notes: attack(1),
   prices: current.prices.map((p, i) => ({
     ...p,
@@ -672,6 +672,10 @@ describe('a kiosk price file stays text', () => {
     await assertShows('#kiosk-supplier-name', hostile.supplier.name, 'the supplier');
     await assertShows('#kiosk-contact', hostile.supplier.contact, 'the contact');
     await assertShows('#kiosk-quote-text', hostile.supplier.quote_text, 'the supplier\'s line');
+    await assertShows('#kiosk-brand-name', hostile.supplier.name, 'the supplier in the header');
+    await assertShows('#kiosk-brand-contact', hostile.supplier.contact, 'the contact line in the header');
+    await assertAmong('#kiosk-help span', `Call us: ${hostile.supplier.phone}`, 'the phone in the header');
+    await assertAmong('#kiosk-help span', hostile.supplier.help_text, 'the help line in the header');
     for (const p of hostile.prices) {
       await assertAmong('#kiosk-prices td.hint', p.note, `${p.fuel} per ${p.unit}: its note`);
       for (const c of p.fixed_charges ?? []) await assertAmong('#kiosk-prices td.hint', c.label, `${p.fuel}: its fixed charge`);

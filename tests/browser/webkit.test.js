@@ -6,12 +6,13 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { after, before, describe, test } from 'node:test';
 
-import { Builder, By } from 'selenium-webdriver';
+import { Builder, By, Key } from 'selenium-webdriver';
 import remote from 'selenium-webdriver/remote/index.js';
 import { findFreePort } from 'selenium-webdriver/net/portprober.js';
 
 import { siteDir } from '../node/helpers.js';
 import { CORE_FLOW } from './core-flow.js';
+import { walk } from './quote-walk.js';
 import { serve } from './server.js';
 
 const TIMEOUT = 30_000;
@@ -29,11 +30,18 @@ const driver = {
     `const done = arguments[arguments.length - 1];
      Promise.resolve().then(() => (${expression})).then((v) => done({ ok: true, v: JSON.stringify(v ?? null) }), (e) => done({ ok: false, e: String(e) }));`)
     .then((r) => { if (!r.ok) throw new Error(r.e); return JSON.parse(r.v); }),
-  click: async (css) => (await webdriver.findElement(By.css(css))).click(),
+  // as a person scrolls a control to the middle of the screen before tapping it (WebDriver's own scrolling
+  // leaves it at the lower edge, under the fixed summary bar)
+  click: async (css) => {
+    const element = await webdriver.findElement(By.css(css));
+    await webdriver.executeScript('arguments[0].scrollIntoView({ block: "center" })', element);
+    await element.click();
+  },
   type: async (css, text) => {
     const element = await webdriver.findElement(By.css(css));
     await element.clear();
-    await element.sendKeys(text);
+    // WebKitWebDriver drops a plain "\n": a line break is typed as the Enter key
+    await element.sendKeys(text.replace(/\n/g, Key.ENTER));
   },
   select: (css, value) => webdriver.executeScript(
     'const s = document.querySelector(arguments[0]); s.value = arguments[1]; s.dispatchEvent(new Event("change", { bubbles: true }));', css, value),
@@ -63,4 +71,18 @@ after(async () => {
 
 describe('WebKit (WebKitGTK MiniBrowser)', () => {
   for (const [name, step] of CORE_FLOW) test(name, { timeout: TIMEOUT }, () => step(driver, env));
+});
+
+describe('WebKit: the issue-14 quote entered end to end', () => {
+  test('the quote typed tab by tab is saved with every entry and gives the CLI\'s numbers', { timeout: 180_000 }, async () => {
+    // its own server, so its own origin: a device with nothing saved yet, whatever the core flow left
+    const own = await serve(siteDir);
+    try {
+      const { setup, quote } = await walk(driver, own.url);
+      console.log(`# webkit: device set-up ${setup.taps} taps, ${setup.chars} characters; the quote ${quote.taps} taps, ${quote.chars} characters`);
+      await driver.screenshot(join(ARTIFACTS, 'webkit-walk-verdict.png'));
+    } finally {
+      await own.close();
+    }
+  });
 });

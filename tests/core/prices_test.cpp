@@ -107,3 +107,26 @@ TEST(prices, tiered_price_in_a_scenario_is_billed_block_by_block) {
 }
 
 }  // namespace
+
+TEST(prices, the_supplier_header_may_carry_a_phone_a_help_line_and_a_logo_on_this_site) {
+    auto doc = json::parse(read_text("data/examples/supplier-prices.json"));
+    doc["supplier"]["phone"] = "555-0163";
+    doc["supplier"]["help_text"] = "Ask at the counter";
+    for (const std::string logo : {"logo.svg", "images/brightwater-logo.png", "Logo_2.JPG", "data:image/png;base64,iVBORw0KGgo="}) {
+        doc["supplier"]["logo"] = logo;
+        const auto good = json::parse(fw::check_prices_json(doc.dump(), "2026-12-01"));
+        EXPECT_TRUE(good.at("valid").get<bool>()) << logo << " " << good.dump();
+    }
+    // anything that could load from elsewhere, or is not an image, is refused at the field
+    for (const std::string logo : {"https://elsewhere.example/logo.png", "//elsewhere.example/logo.png", "../logo.png", "/etc/logo.png",
+                                   "javascript:alert(1)", "logo.html", "data:text/html;base64,PGI+", "data:image/png;base64,<svg>"}) {
+        doc["supplier"]["logo"] = logo;
+        const auto bad = json::parse(fw::check_prices_json(doc.dump(), "2026-12-01"));
+        EXPECT_FALSE(bad.at("valid").get<bool>()) << logo;
+        ASSERT_EQ(bad.at("errors").size(), 1u) << bad.dump();
+        EXPECT_EQ(bad.at("errors")[0].at("path"), "/supplier/logo");
+        EXPECT_EQ(bad.at("errors")[0].at("message"),
+                  "must be an image file on this site (e.g. logo.svg or images/logo.png: .svg, .png, .jpg or .webp, no address elsewhere) "
+                  "or a data:image URL");
+    }
+}

@@ -202,6 +202,11 @@ describe('the kiosk in Chromium behind nginx', () => {
     assert.equal(await page.getAttribute('#kiosk-expires', 'data-date'), current.expires);
     assert.equal(await page.textContent('#kiosk-supplier-name'), current.supplier.name);
     assert.equal(await page.textContent('#kiosk-contact'), current.supplier.contact);
+    // the header is the supplier's: its name and contact line, "Call us" and where to ask, from the file
+    assert.equal(await page.textContent('#kiosk-brand-name'), current.supplier.name);
+    assert.equal(await page.textContent('#kiosk-brand-contact'), current.supplier.contact);
+    assert.equal(await page.textContent('#kiosk-help'), `Call us: ${current.supplier.phone}${current.supplier.help_text}`);
+    assert.equal(await page.isVisible('.save-line'), false, 'nothing is saved at the kiosk');
     assert.equal(await page.locator('#kiosk-expired').count(), 0);
 
     // prices locked: read-only fields holding the file's amounts

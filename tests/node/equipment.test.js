@@ -268,3 +268,34 @@ describe('the verdict says it in words', () => {
     assert.deepEqual(hp.map((l) => `${l.label}: ${l.text}`), [`Gas service kept for other appliances: ${fmt.money(216)} a year`]);
   });
 });
+
+describe('Editing rules for a quote typed in any order (issue 14)', () => {
+  const furnace = { id: 'furnace-natural-gas', existing: true, fuel_key: 'f1', system: { kind: 'furnace' } };
+  const heatPump = { id: 'air-source-heat-pump-electricity', equipment: 'Invented Co. CX-36 (invented)', fuel_key: 'f2',
+    system: { kind: 'air-source-heat-pump', stages: 'variable', cutoff: { value: -13, unit: 'degF' },
+      ratings: [{ outdoor: { value: 5, unit: 'degF' }, capacity: { value: 27000, unit: 'Btu/h' }, cop: 2.1 }] } };
+
+  test('bills typed before the system is marked are linked to the one system in the house now', () => {
+    const ws = { demand: { bills_option: '' }, systems: [{ ...furnace, existing: false }, heatPump] };
+    assert.equal(equipment.billedSystemId(ws), '', 'no system in the house now: the House tab asks');
+    ws.systems[0].existing = true;
+    assert.equal(equipment.billedSystemId(ws), 'furnace-natural-gas');
+  });
+
+  test('bills naming a system that is no longer the one in the house now follow the one that is', () => {
+    const ws = { demand: { bills_option: 'air-source-heat-pump-electricity' }, systems: [furnace, heatPump] };
+    assert.equal(equipment.billedSystemId(ws), 'furnace-natural-gas');
+    ws.demand.bills_option = 'furnace-natural-gas';
+    assert.equal(equipment.billedSystemId(ws), 'furnace-natural-gas');
+  });
+
+  test('a dual-fuel option copies the heat pump already typed from its data sheet, backed by the furnace', () => {
+    const ws = { systems: [furnace, heatPump] };
+    const dual = equipment.dualFuelSystem(ws, 'furnace-natural-gas');
+    assert.equal(dual.fuel_key, 'f2');
+    assert.equal(dual.equipment, heatPump.equipment);
+    assert.deepEqual(dual.system, { ...heatPump.system, backup: 'furnace-natural-gas', changeover_mode: 'temperature' });
+    assert.notEqual(dual.system.ratings, heatPump.system.ratings, 'a copy, not shared with the heat pump alone');
+    assert.equal(equipment.dualFuelSystem({ systems: [furnace] }, 'furnace-natural-gas'), null, 'no heat pump typed yet');
+  });
+});

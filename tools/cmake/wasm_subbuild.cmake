@@ -63,9 +63,11 @@ fw_node_browser_test(browser_chromium_equipment equipment.test.js)
 fw_node_browser_test(browser_chromium_attention attention.test.js)
 # The printed quote sheet (Chromium's PDF read back with pdftotext), in Chromium.
 fw_node_browser_test(browser_chromium_sheet sheet.test.js)
+# The issue-14 quote entered end to end by taps and typing, counted, kept and printed, in Chromium.
+fw_node_browser_test(browser_chromium_quote quote-walk.test.js)
 # Saved quotes of earlier and later record versions, and a full storage, in Chromium.
 fw_node_browser_test(browser_storage storage.test.js)
-set_tests_properties(browser_chromium browser_chromium_climates browser_chromium_equipment browser_chromium_attention browser_chromium_sheet browser_webkit browser_firefox browser_storage PROPERTIES
+set_tests_properties(browser_chromium browser_chromium_climates browser_chromium_equipment browser_chromium_attention browser_chromium_sheet browser_chromium_quote browser_webkit browser_firefox browser_storage PROPERTIES
   ENVIRONMENT "${FW_BROWSER_ENV}"
   LABELS browser
   TIMEOUT 240

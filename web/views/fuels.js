@@ -144,9 +144,12 @@ function fuelCard(ctx, ws, entry, index) {
       hint: triangular ? 'Half-width of a triangular spread around today\'s price.' : 'Standard deviation of the logarithm of the price (lognormal, median today\'s price).' }));
   }
   if (extras.length) nodes.push(h('div', { class: 'grid two' }, extras));
+  // why the fuel cannot be removed is said in the card, where a finger can read it (a tooltip needs a mouse)
+  const whyKept = usedBy > 0 ? `Used by ${usedBy === 1 ? 'a system' : `${usedBy} systems`} (Systems tab): change or remove ${usedBy === 1 ? 'it' : 'them'} first to remove this fuel.` : null;
   nodes.push(h('div', { class: 'card-actions' },
+    whyKept ? h('p', { class: 'hint', id: `remove-fuel-why-${index}`, text: whyKept }) : null,
     h('button', { type: 'button', class: 'quiet danger', dataset: { action: 'remove-fuel', index: String(index) },
-      disabled: usedBy > 0, title: usedBy > 0 ? 'Used by a system: change or remove the system first' : undefined,
+      disabled: usedBy > 0, 'aria-describedby': whyKept ? `remove-fuel-why-${index}` : undefined,
       text: 'Remove this fuel' })));
   return h('article', { class: 'card fuel-card', dataset: { fuelKey: entry.key, field: base } }, nodes);
 }

@@ -5,6 +5,7 @@ import { checkField, numberField, radioField, selectField, textField } from '../
 import { monthNames } from '../format.js';
 import { observedSpan } from '../weather.js';
 import { POWER_UNITS, UA_UNITS } from '../units.js';
+import { fuelName } from './fuels.js';
 
 const TEMPS = ['degF', 'degC'];
 const DEMAND_ENERGY = ['MMBtu', 'therm', 'kWh', 'GJ', 'MJ', 'Btu'];
@@ -107,10 +108,16 @@ function billFields(ctx, ws, d) {
       h('button', { type: 'button', class: 'quiet', dataset: { action: 'remove-bill', index: String(i) }, text: `Remove bill ${i + 1}` }),
       h('p', { class: 'field-msg', hidden: true }));
   });
-  const systems = ws.systems.map((s) => [s.id, s.label || s.id]);
+  const systems = ws.systems.map((s) => [s.id, `${s.label || s.id}${s.existing ? ' (in the house now)' : ''}`]);
+  const billed = ws.systems.find((s) => s.id === d.bills_option);
+  const billedFuel = billed && ws.fuels.find((f) => f.key === billed.fuel_key);
+  // the House tab can be filled first: the bills are linked to the system once it is marked as in the house now
+  const hint = billed
+    ? `Billed fuel: ${billedFuel ? fuelName(billedFuel, ctx.catalog) : 'none chosen yet (Systems tab)'}.`
+    : 'Mark the system in the house now on the Systems tab (3): these bills are then linked to it.';
   return [
     selectField(ctx, { label: 'These bills are for', path: '/demand/bills_option', value: d.bills_option ?? '',
-      choices: [['', 'Choose the existing system…'], ...systems] }),
+      choices: [['', ws.systems.length ? 'Choose the existing system…' : 'No system yet (Systems tab)'], ...systems], hint }),
     radioField(ctx, { legend: 'Bill dates are', path: '/demand/bill_dates', value: d.bill_dates,
       choices: [['meter-reads', 'Meter reads (each bill starts on the day the last one ended)'],
         ['inclusive', 'Inclusive (the end date is the bill\'s last day)']] }),

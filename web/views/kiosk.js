@@ -30,6 +30,33 @@ function supplierCard(k, format) {
     k.file?.climate ? h('p', { class: 'hint', id: 'kiosk-climate', text: 'Heat-pump figures use the weather of this supplier\'s area.' }) : null);
 }
 
+/**
+ * The page's header made the supplier's (kiosk mode): its name, its logo (an image on this site, resolved
+ * against the price file's address, or a data:image URL; the core has checked it), its contact line and
+ * the help element ("Call us: …" and the file's help text, e.g. "Ask at the counter").
+ */
+export function brandKioskHeader(topbar, supplier, priceUrl) {
+  const brand = topbar.querySelector('.brand');
+  const logo = brand.querySelector('.logo');
+  if (supplier.logo) {
+    logo.src = supplier.logo.startsWith('data:') ? supplier.logo : new URL(supplier.logo, priceUrl).href;
+    logo.alt = `${supplier.name} logo`;
+    logo.classList.add('supplier-logo');
+  } else {
+    logo.hidden = true;
+  }
+  const help = [supplier.phone ? `Call us: ${supplier.phone}` : null, supplier.help_text || null].filter(Boolean);
+  brand.querySelector('div').replaceChildren(
+    h('p', { class: 'name', id: 'kiosk-brand-name', text: supplier.name }),
+    supplier.contact ? h('p', { class: 'tag', id: 'kiosk-brand-contact', text: supplier.contact }) : null);
+  topbar.querySelector('#kiosk-help')?.remove();
+  if (help.length) {
+    topbar.append(h('p', { class: 'kiosk-help', id: 'kiosk-help' },
+      supplier.phone ? h('span', { class: 'call', text: `Call us: ${supplier.phone}` }) : null,
+      supplier.help_text ? h('span', { text: supplier.help_text }) : null));
+  }
+}
+
 function choice(action, value, pressed, label, detail) {
   return h('button', { type: 'button', dataset: { action, value }, 'aria-pressed': String(pressed) },
     h('span', { text: label }), detail ? h('span', { class: 'sub', text: detail }) : null);
