@@ -3,6 +3,7 @@
 // quote sheet and autosave. One role per module; this one only connects them.
 import { climateInUnit } from './climate-library.js';
 import { createClimateTools } from './climates.js';
+import { createTemplateTools } from './template-shelf.js';
 import { CoreClient } from './core-client.js';
 import { download, h } from './dom.js';
 import { bindFields, showFieldErrors } from './fields.js';
@@ -90,6 +91,7 @@ const ctx = {
   onSearch: (query) => { quotes.query = query; paintQuotes(); },
 };
 ctx.climateTools = createClimateTools(ctx);
+ctx.templateTools = createTemplateTools(ctx);
 
 // ---------------------------------------------------------------------------
 // Rendering
@@ -1334,6 +1336,7 @@ async function start() {
   }
   storage = await opening;
   ctx.climateTools.start();
+  ctx.templateTools.paint();
   quotes.storageKind = storage.kind;
   quotes.records = await loadRecords();
   await restoreUnsaved();

@@ -22,6 +22,7 @@ const CURRENT_KEY = 'fuelwright.current-quote';
 const PREFS_KEY = 'fuelwright.preferences';
 /** The contractor's profile on this device (web/profile.js). */
 const PROFILE_KEY = 'fuelwright.profile';
+const TEMPLATES_KEY = 'fuelwright.templates';
 const UNSAVED_KEY = 'fuelwright.unsaved-quote';
 
 
@@ -325,3 +326,12 @@ export function loadProfile() {
 }
 /** Keeps the profile on this device (best effort, as the preferences: a refusal leaves the last copy). */
 export const saveProfile = (profile) => setLocal(PROFILE_KEY, JSON.stringify(profile));
+
+/** The price lists and equipment kept on this device (raw: normalize with templates.js), or null. */
+export function loadTemplates() {
+  try { return JSON.parse(local(TEMPLATES_KEY) ?? 'null'); } catch { return null; }
+}
+/** Keeps the price lists and equipment on this device; throws when the browser refuses (full storage, private mode): they are the contractor's work. */
+export function saveTemplates(shelf) {
+  localStorage.setItem(TEMPLATES_KEY, JSON.stringify(shelf));
+}

@@ -5,6 +5,7 @@
 #include <cstdio>
 #include <map>
 
+#include "fw/systems.hpp"
 #include "fw/units.hpp"
 
 namespace fw {
@@ -17,6 +18,12 @@ double cost_in_year(const option_result& r, const scenario_option& o, const econ
     for (const auto& part : r.cost_parts)
         cost += (part.energy_cost + part.fixed_cost) * std::pow(1 + e.escalation_of(part.fuel_id), t);
     return cost;
+}
+
+/// The catalog record an option's system most likely is: its catalog type, else the nearest typical record.
+const system_record* record_of(const scenario_option& o) {
+    return o.system_catalog ? &find_system(*o.system_catalog)
+                            : typical_system_for(o.system.kind, o.fuel.id, o.system.efficiency_value, o.system.rating);
 }
 
 }  // namespace
@@ -57,8 +64,19 @@ std::vector<option_economics> appraise(const scenario& input, const evaluation& 
             x.energy_fixed_pv += (part.energy_cost + part.fixed_cost) * factor;
         }
         x.maintenance_pv = o.annual_maintenance * upw_escalating(d, e.maintenance_escalation, n);
-        if (o.life_years && o.installed_cost > 0) {
-            const double life = *o.life_years;
+        // The service life: as entered, else the catalog's median for the record the system most likely is
+        // (ASHRAE's table of median service lives where it has a row; data/systems.json names the source).
+        x.life_years = o.life_years;
+        if (!x.life_years) {
+            if (const auto* record = record_of(o); record && record->service_life_years > 0) {
+                x.life_years = record->service_life_years;
+                x.life_from_catalog = true;
+                x.trace.push_back("service life " + format_fixed(*x.life_years, 0) + " years: the median for " + record->id +
+                                  " (" + record->service_life_source + "); give life_years to replace it");
+            }
+        }
+        if (x.life_years && o.installed_cost > 0) {
+            const double life = *x.life_years;
             for (double t = life; t < n - 1e-9; t += life) x.replacement_pv += o.installed_cost * spw(d, t);
             const double age_at_end = n - std::floor(n / life - 1e-12) * life;
             x.residual_pv = o.installed_cost * std::max(0.0, 1.0 - age_at_end / life) * spw(d, n);

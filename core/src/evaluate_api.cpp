@@ -185,6 +185,8 @@ void add_economics(json& out, const option_economics& x) {
     if (!x.discounted_payback_years && !x.discounted_payback_reason.empty())
         out["discounted_payback_reason"] = x.discounted_payback_reason;
     out["npv"] = nullable(x.npv);
+    out["life_years"] = nullable(x.life_years);
+    if (x.life_years) out["life_years_from"] = x.life_from_catalog ? "catalog" : "entered";
     out["co2e_saved_kg_life"] = nullable(x.co2e_saved_kg_life);
     out["cost_per_tonne_co2e_avoided"] = nullable(x.cost_per_tonne_co2e_avoided);
     for (const auto& line : x.trace) out["trace"].push_back(line);

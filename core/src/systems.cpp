@@ -112,6 +112,8 @@ const std::vector<system_record>& system_table() {
                                  load_rated(item.at("minimum")),
                                  0.0,
                                  false,
+                                 {},
+                                 0.0,
                                  {}};
             for (const auto& rating : item.at("ratings")) record.ratings.push_back(parse_rating(rating.get<std::string>()));
             if (item.contains("auxiliary_electricity")) {
@@ -120,6 +122,12 @@ const std::vector<system_record>& system_table() {
                 record.auxiliary_watts = aux.at("unit").get<std::string>() == "W";
                 const auto key = aux.at("source").get<std::string>();
                 record.auxiliary_source = doc.at("sources").contains(key) ? doc.at("sources").at(key).get<std::string>() : key;
+            }
+            if (item.contains("service_life")) {
+                const auto& life = item.at("service_life");
+                record.service_life_years = life.at("years").get<double>();
+                const auto key = life.at("source").get<std::string>();
+                record.service_life_source = doc.at("sources").contains(key) ? doc.at("sources").at(key).get<std::string>() : key;
             }
             records.push_back(std::move(record));
         }

@@ -197,3 +197,46 @@ export async function walk(driver, url) {
   const cli = await checkQuote(d, scenario);
   return { setup, quote, scenario, cli };
 }
+
+/**
+ * After the walk: the quote's prices kept as a price list and its heat pump as equipment, then a new
+ * quote that takes both in one tap each. {keep, reuse} tallies and the new quote's saved scenario.
+ */
+export async function reuseTemplates(driver, first) {
+  const d = counting(driver);
+  await d.click('#tab-fuels');
+  await d.type('#price-list-name', 'Winter 2026 prices');
+  await d.click('[data-action="price-list-keep"]');
+  await waitFor(d, `document.querySelector('#price-list-msg')?.textContent.startsWith('Kept “Winter 2026 prices” with 2 prices.')`, { what: 'the price list kept' });
+  await d.click('#tab-systems');
+  await d.click('[data-action="equipment-keep"][data-index="1"]');
+  await waitFor(d, `document.querySelector('#equipment-msg')?.textContent === 'Kept “${QUOTE.heatPump.equipment}” in your equipment.'`, { what: 'the heat pump kept' });
+  const keep = { ...d.tally };
+  d.reset();
+  await d.click('#tab-saved');
+  await d.click('[data-action="new-quote"]');
+  await waitFor(d, `document.querySelector('#verdict-body').dataset.state === 'empty'`);
+  await d.click('#tab-fuels');
+  await d.click('[data-action="price-list-use"]');
+  await d.click('#tab-systems');
+  await d.click('[data-action="equipment-use"]');
+  await waitFor(d, `!!document.querySelector('${id('/systems/0/system/ratings/2/cop')}')`, { what: 'the heat pump added with its data sheet' });
+  await d.click('[data-action="save-now"]');
+  await waitFor(d, `document.querySelector('#save-state')?.dataset.state === 'saved'`, { what: 'the new quote saved' });
+  const reuse = { ...d.tally };
+  const scenario = await savedScenario(d);
+  const firstHeatPump = first.options.find((o) => o.system.kind === 'air-source-heat-pump' && !o.system.backup);
+  assert.equal(scenario.options.length, 1);
+  assert.equal(scenario.options[0].label, QUOTE.heatPump.equipment);
+  assert.deepEqual(scenario.options[0].system, firstHeatPump.system, 'the data sheet, compressor and cut-out as typed');
+  assert.deepEqual(scenario.options[0].price, firstHeatPump.price);
+  // on the new quote's tabs: the gas price too (used by no system yet) and the heat pump's installed price
+  // (in the quote's costs once the costs over the years are switched on)
+  const gas = first.options.find((o) => o.existing);
+  const saved = await d.js(`(async () => { const s = await import('./storage.js'); const q = await s.openQuotes();
+    const ws = (await q.get(s.currentQuoteId())).workspace;
+    return { fuels: ws.fuels.map((f) => [f.fuel, f.price, f.fixed_charges.map((c) => c.amount_per_month)]), installed: ws.systems[0].installed_cost }; })()`);
+  assert.deepEqual(saved.fuels, [[gas.fuel, gas.price, [18]], [firstHeatPump.fuel, firstHeatPump.price, []]]);
+  assert.equal(saved.installed, firstHeatPump.installed_cost);
+  return { keep, reuse, scenario };
+}

@@ -13,7 +13,7 @@ import { after, before, describe, test } from 'node:test';
 
 import { importAndWait, tabletSession, verdictSettled } from './chromium-page.js';
 import { siteDir } from '../node/helpers.js';
-import { QUOTE, savedScenario, walk } from './quote-walk.js';
+import { QUOTE, reuseTemplates, savedScenario, walk } from './quote-walk.js';
 import { serve } from './server.js';
 
 const TIMEOUT = 240_000;
@@ -97,6 +97,24 @@ for (const viewport of [{ width: 768, height: 1024 }, { width: 390, height: 844 
         assert.match(text, /\$14,500 −\$2,000 \$12,500/, 'the heat pump\'s net price');
         assert.match(text, /Dual fuel: air-source heat pump \+ furnace \(Natural gas\) \$[\d,]+ \$[\d.]+ [\d,.]+ kWh \+ [\d,.]+ therm/);
         assert.doesNotMatch(text, /air-source-heat-pump|furnace-natural-gas|degF|undefined|NaN/);
+
+        // the prices and the heat pump kept on the device, and a second quote built from them
+        const { keep, reuse } = await reuseTemplates(driver, scenario);
+        console.log(`# ${size}: keeping the price list and the heat pump ${keep.taps} taps, ${keep.chars} characters; a new quote from them ${reuse.taps} taps`);
+        // exported as a file and imported again (on this device: the names come back numbered)
+        await page.tap('#tab-saved');
+        const [shelfDownload] = await Promise.all([page.waitForEvent('download'), page.tap('[data-action="templates-export"]')]);
+        const shelf = JSON.parse(readFileSync(await shelfDownload.path(), 'utf8'));
+        assert.equal(shelf.schema, 'fuelwright.templates/1');
+        assert.deepEqual(shelf.price_lists.map((l) => l.name), ['Winter 2026 prices']);
+        assert.deepEqual(shelf.equipment.map((e) => e.name), [QUOTE.heatPump.equipment]);
+        await page.setInputFiles('#templates-file', { name: 'shelf.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(shelf)) });
+        await page.waitForFunction(() => document.querySelector('#templates-msg')?.textContent.startsWith('Imported 2'));
+        assert.equal(await page.textContent('#templates-msg'),
+          `Imported 2 from “shelf.json”: “Winter 2026 prices (2)”, “${QUOTE.heatPump.equipment} (2)”.`);
+        await page.screenshot({ path: join(ARTIFACTS, `walk-${size}-saved.png`), fullPage: true });
+        await page.tap('#tab-systems');
+        await page.screenshot({ path: join(ARTIFACTS, `walk-${size}-systems.png`), fullPage: true });
         assert.deepEqual(session.consoleErrors, []);
       } finally {
         await session.close();

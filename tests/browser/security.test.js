@@ -463,12 +463,17 @@ describe('text typed into the page stays text', () => {
     await page.reload();
     await settled();
     for (const [id, text] of filled) {
-      // not part of the quote (the lab, the saved-quote search, the name a climate is about to be kept under), or kept only for their kind
-      if (['lab-input', 'quote-search', 'currency', 'climate-keep-name'].includes(id) || id.endsWith('-mixture') || id.endsWith('-ultimate')) continue;
+      // not part of the quote (the lab, the saved-quote search, the names a climate or a price list is about to be kept under), or kept only for their kind
+      if (['lab-input', 'quote-search', 'currency', 'climate-keep-name', 'price-list-name'].includes(id) || id.endsWith('-mixture') || id.endsWith('-ultimate')) continue;
       assert.equal(await page.inputValue(`[id="${id}"]`), text, `${id} after a reload`);
     }
     await tab('fuels');
     assert.equal((await textsOf('.fuel-card h3'))[1], filled.get('f-fuels-1-fuel-name'), 'the custom fuel\'s heading');
+    // a price list kept under a name full of markup lists that name as text
+    await page.fill('#price-list-name', attack(40, 80));
+    await page.tap('[data-action="price-list-keep"]');
+    await page.waitForSelector('#price-list-items');
+    await assertAmong('#price-list-items strong', attack(40, 80), 'the kept price list\'s name');
     await tab('systems');
     const fuelChoices = await textsOf('#f-systems-1-fuel-key option');
     assert.ok(fuelChoices.includes(filled.get('f-fuels-1-fuel-name')), `the fuel choices: ${JSON.stringify(fuelChoices)}`);

@@ -13,6 +13,7 @@
 #include "fw/api.hpp"
 #include "fw/economics.hpp"
 #include "fw/roots.hpp"
+#include "fw/systems.hpp"
 
 namespace {
 
@@ -163,7 +164,33 @@ TEST(economics, replacement_and_residual_value) {
     const auto with_life = json::parse(fw::evaluate_json(patched.dump()));
     const double difference = option_of(with_life, "lp").at("life_cycle_cost").get<double>() -
                               option_of(result, "lp").at("life_cycle_cost").get<double>();
-    EXPECT_NEAR(difference, 7000 * std::pow(1.05, -10) - 3500 * std::pow(1.05, -15), 1e-6);
+    // Without life_years the furnace gets the catalog's median of 18 years (data/systems.json, ASHRAE's
+    // table, from memory): no replacement in 15 years and 3/18 of it left at the end, residual
+    // 7000 x (1 - 15/18) x 1.05^-15, which the 10-year life does not have.
+    EXPECT_EQ(option_of(result, "lp").at("life_years"), 18);
+    EXPECT_EQ(option_of(result, "lp").at("life_years_from"), "catalog");
+    EXPECT_EQ(option_of(with_life, "lp").at("life_years_from"), "entered");
+    EXPECT_NEAR(difference, 7000 * std::pow(1.05, -10) - 3500 * std::pow(1.05, -15) + 7000 * (1 - 15.0 / 18) * std::pow(1.05, -15), 1e-6);
+}
+
+TEST(economics, a_system_without_a_life_gets_its_catalog_median_service_life) {
+    // A heat pump lasts 15 years and a gas furnace 18 (ASHRAE Handbook HVAC Applications, median service lives,
+    // from memory): within a 20-year period the heat pump is bought again at year 15 and is 5/15 used at the end.
+    const auto result = json::parse(fw::evaluate_json(switching_scenario({{"economics", {{"analysis_years", 20}}}}).dump()));
+    ASSERT_TRUE(result.at("errors").empty()) << result.dump();
+    const auto& hp = option_of(result, "hp");
+    EXPECT_EQ(hp.at("life_years"), 15);
+    EXPECT_EQ(hp.at("life_years_from"), "catalog");
+    const auto annual = hp.at("annual_cost").get<double>();
+    const double upw = fw::upw_escalating(0.05, 0.02, 20);
+    EXPECT_NEAR(hp.at("life_cycle_cost").get<double>(),
+                12000 + 16000 * std::pow(1.05, -15) - 16000 * (1 - 5.0 / 15) * std::pow(1.05, -20) + annual * upw, 1e-6);
+    bool said = false;
+    for (const auto& line : hp.at("trace"))
+        said = said || line.get<std::string>().rfind("service life 15 years: the median for air-source-heat-pump (ASHRAE Handbook", 0) == 0;
+    EXPECT_TRUE(said) << hp.at("trace").dump();
+    // The existing oil boiler has no installed cost: its life is reported, and costs nothing.
+    EXPECT_EQ(option_of(result, "oil").at("life_years"), 24);
 }
 
 TEST(economics, lcoh_is_the_life_cycle_cost_levelized_in_every_example) {
@@ -394,3 +421,15 @@ TEST(economics, illinois_root_keeps_its_bracket) {
 }
 
 }  // namespace
+
+TEST(economics, every_catalog_system_has_a_median_service_life_with_its_source) {
+    // Data-driven over data/systems.json: a life between 5 and 60 years, and the source's full citation
+    // (a key of the file's sources, resolved), never the bare key.
+    ASSERT_FALSE(fw::system_table().empty());
+    for (const auto& record : fw::system_table()) {
+        EXPECT_GE(record.service_life_years, 5) << record.id;
+        EXPECT_LE(record.service_life_years, 60) << record.id;
+        EXPECT_GT(record.service_life_source.size(), 40u) << record.id << ": " << record.service_life_source;
+        EXPECT_NE(record.service_life_source.find("from memory"), std::string::npos) << record.id;
+    }
+}

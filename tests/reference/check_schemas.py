@@ -199,9 +199,13 @@ for fuel_id, fuel in fuels.items():
     check(sorted(per_fuel.get(fuel_id) or []) == sorted(fuel["sale_units"]),
           f"sync    scenario price units of {fuel_id} = its sale_units in data/fuels.json",
           f"schema {per_fuel.get(fuel_id)} vs data {fuel['sale_units']}")
+system_sources = catalogs["systems"].get("sources", {})
 for system in systems:
     unknown = [f for f in system["fuels"] if f not in fuels]
     check(not unknown, f"sync    fuels of system {system['id']} are in data/fuels.json", str(unknown))
+    cited = [system[k]["source"] for k in ("typical", "minimum", "auxiliary_electricity", "service_life") if k in system]
+    missing = [c for c in cited if c not in system_sources]
+    check(not missing, f"sources of system {system['id']} are keys of the file's sources", str(missing))
 
 # ---------------------------------------------------------------------------
 # Documents the scenario schema must reject, and unusual ones it must accept.

@@ -222,7 +222,8 @@ export function renderFuels(container, ctx) {
         choices: [['lognormal', 'lognormal (median today\'s price)'], ['triangular', 'triangular (± a fixed share)']] }),
       numberField(ctx, { label: 'Spread of fuels without their own', path: '/uncertainty/spread_default', value: u.spread_default, scale: 100, unit: '%',
         placeholder: '20', hint: 'Each fuel\'s own spread is set on its card; the core assumes 20 % when none is given.' })) : null);
-  container.replaceChildren(...[h('div', { class: 'cards' }, cards), add, equipmentElectricity(ctx, ws), emissions, uncertainty,
+  // the price lists kept on this device: a node owned by web/template-shelf.js, placed here as it is
+  container.replaceChildren(...[h('div', { class: 'cards' }, cards), add, ctx.templateTools?.priceNode, equipmentElectricity(ctx, ws), emissions, uncertainty,
     h('div', { id: 'lab-slot' })].filter(Boolean));
   ctx.renderLab?.(container.querySelector('#lab-slot'));
 }

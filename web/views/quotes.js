@@ -77,7 +77,9 @@ export function renderQuotes(container, ctx, state) {
       h('p', { class: state.importMessage?.ok ? 'field-msg ok' : 'field-msg', id: 'import-msg', role: 'status',
         hidden: !state.importMessage, dataset: { seq: String(state.importMessage?.seq ?? 0) }, text: state.importMessage?.text ?? '' })),
     h('p', { class: 'hint', id: 'storage-kind', text: `Saved automatically on this device (${state.storageKind}).` }),
-    profileSlot].filter(Boolean));
+    profileSlot,
+    // the price lists and equipment kept on this device: a node owned by web/template-shelf.js
+    ctx.templateTools?.fileNode].filter(Boolean));
   const input = container.querySelector('#quote-search');
   input.addEventListener('input', () => ctx.onSearch(input.value));
 }

@@ -156,6 +156,8 @@ function systemCard(ctx, ws, sys, index) {
   if (FUEL_BURNING_KINDS.includes(kind)) nodes.push(fuelBurningFields(ctx, ws, base, sys.system ?? {}, entry));
   if (ws.economics?.enabled) nodes.push(economicFields(ctx, ws, base, sys));
   nodes.push(h('div', { class: 'card-actions' },
+    sys.existing ? null : h('button', { type: 'button', class: 'quiet', dataset: { action: 'equipment-keep', index: String(index) },
+      'aria-label': `Keep ${sys.label || sys.id} in your equipment`, text: 'Keep in your equipment' }),
     h('button', { type: 'button', class: 'quiet', dataset: { action: 'duplicate-system', index: String(index) }, text: 'Duplicate' }),
     h('button', { type: 'button', class: 'quiet danger', dataset: { action: 'remove-system', index: String(index) }, text: 'Remove' })));
   return h('article', { class: 'card system-card', dataset: { field: base, systemId: sys.id } }, nodes);
@@ -191,5 +193,6 @@ export function renderSystems(container, ctx) {
         choices: [['real', 'today\'s money (real)'], ['nominal', 'future money (nominal)']] })) : null);
   container.replaceChildren(...[
     ws.fuels.length ? null : h('p', { class: 'notice', text: 'Add a fuel with its local price first (Fuels tab).' }),
-    h('div', { class: 'cards' }, cards), add, economics].filter(Boolean));
+    // the equipment kept on this device: a node owned by web/template-shelf.js, placed here as it is
+    h('div', { class: 'cards' }, cards), add, ctx.templateTools?.equipmentNode, economics].filter(Boolean));
 }

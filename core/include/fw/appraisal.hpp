@@ -30,6 +30,8 @@ struct option_economics {
     std::string payback_reason, discounted_payback_reason;
     std::optional<double> co2e_saved_kg_life, cost_per_tonne_co2e_avoided;
     std::vector<double> part_upw;      ///< UPW* of each cost part (its fuel's escalation)
+    std::optional<double> life_years;  ///< service life used [years]: as entered, else the catalog record's median
+    bool life_from_catalog = false;    ///< whether `life_years` is the catalog's, not entered
     std::vector<std::string> trace;
 };
 

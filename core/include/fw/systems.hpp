@@ -39,6 +39,9 @@ struct system_record {
     double auxiliary_value = 0;
     bool auxiliary_watts = false;
     std::string auxiliary_source;
+    /// A typical unit's median service life [years] and its source (data/systems.json `service_life`).
+    double service_life_years = 0;
+    std::string service_life_source;
 };
 
 /// The catalog record a system of this kind and fuel most likely is: of those burning the fuel, the one
