@@ -77,7 +77,7 @@ function resultsTable(ws, result, ctx) {
       return h('tr', {}, h('td', { text: String(i + 1) }), h('td', { text: o.label ?? o.id }), h('td', { text: format.money(v.annual_cost) }),
         h('td', { text: format.price(v.cost_per_useful) }), h('td', { text: fuelUsedText(o, v, format) }),
         h('td', { text: format.number(v.co2e, 3) }),
-        ...(econ ? [h('td', { text: paybackWords(o, { lifeYears: lifeOf(ws, o.id), studyYears: result.economics?.analysis_years,
+        ...(econ ? [h('td', { text: paybackWords(o, { lifeYears: lifeOf(ws, o), studyYears: result.economics?.analysis_years,
           baselineId: result.economics?.baseline, format }) ?? 'the system now' }),
           h('td', { text: format.money(o.life_cycle_cost) })] : []));
     })));

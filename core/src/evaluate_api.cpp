@@ -350,6 +350,9 @@ std::string catalog_json() noexcept {
                 systems.back()["auxiliary_electricity"] = {{"value", record.auxiliary_value},
                                                            {"unit", record.auxiliary_watts ? "W" : "kWh"},
                                                            {"source", record.auxiliary_source}};
+            // the life a system is appraised over when the scenario gives none
+            if (record.service_life_years > 0)
+                systems.back()["service_life"] = {{"years", record.service_life_years}, {"source", record.service_life_source}};
         }
         const auto& electricity = default_electricity_emissions();
         json gwp = json::object();

@@ -116,5 +116,10 @@ describe('payback in plain words', () => {
     assert.equal(words({ simple_payback_years: null, annual_saving: -47.62 }), 'no saving a year: it costs $48 more to run');
     assert.equal(words({ simple_payback_years: null, annual_saving: 50 }), 'does not pay back within 15 years');
     assert.equal(words({ id: 'oil', simple_payback_years: null }), null, 'the system in the house now');
+    // no life entered: the core's catalog median (ASHRAE's 15 years for a heat pump) is the usual life
+    const catalogLife = { simple_payback_years: 34.1, annual_saving: 372, life_years: 15, life_years_from: 'catalog' };
+    assert.equal(words(catalogLife, { lifeYears: verdict.lifeOf({ systems: [{ id: 'hp' }] }, { id: 'hp', ...catalogLife }) }),
+      'does not pay back within its usual 15-year life');
+    assert.equal(verdict.lifeOf({ systems: [{ id: 'hp', life_years: 12 }] }, { id: 'hp' }), 12, 'no result yet: the life on the card');
   });
 });

@@ -3,7 +3,7 @@
 // points and dual-fuel changeover; installed costs when the life-cycle view is on.
 import { h } from '../dom.js';
 import { checkField, numberField, radioField, selectField, textField } from '../fields.js';
-import { FUEL_BURNING_KINDS, MODULATING, STAGES, auxiliaryDefault, cutoffOf, defaultCutoff } from '../equipment.js';
+import { FUEL_BURNING_KINDS, MODULATING, STAGES, auxiliaryDefault, cutoffOf, defaultCutoff, defaultRecord } from '../equipment.js';
 import { formatInput } from '../format.js';
 import { HEAT_PUMP_KINDS, RATINGS, SYSTEM_KINDS, fuelId } from '../scenario.js';
 import { unitLabel } from '../units.js';
@@ -110,12 +110,20 @@ function fuelBurningFields(ctx, ws, base, sys, entry) {
 
 function economicFields(ctx, ws, base, sys) {
   const currency = ws.settings.currency;
+  // the life the core appraises over when none is typed: the catalog record's median service life
+  const entry = ws.fuels.find((f) => f.key === sys.fuel_key);
+  const record = ctx.catalog.systemsById.get(sys.system?.catalog)
+    ?? defaultRecord({ ...sys.system, kind: sys.system?.kind }, typeof entry?.fuel === 'string' ? entry.fuel : '', ctx.catalog)
+    ?? ctx.catalog.systems.find((m) => m.kind === sys.system?.kind);
+  const life = record?.service_life;
   return h('div', { class: 'economics' },
     h('div', { class: 'grid two' },
       sys.existing ? null : numberField(ctx, { label: 'Installed cost', path: `${base}/installed_cost`, value: sys.installed_cost, unit: currency }),
       sys.existing ? null : numberField(ctx, { label: 'Incentives and rebates', path: `${base}/incentives`, value: sys.incentives, unit: currency }),
       numberField(ctx, { label: 'Maintenance per year', path: `${base}/annual_maintenance`, value: sys.annual_maintenance, unit: currency }),
-      numberField(ctx, { label: 'Expected life', path: `${base}/life_years`, value: sys.life_years, unit: 'years' })));
+      numberField(ctx, { label: 'Expected life', path: `${base}/life_years`, value: sys.life_years, unit: 'years',
+        placeholder: life ? String(life.years) : undefined,
+        hint: life ? `Left empty: ${life.years} years, the usual (median) life of a ${KIND_NAMES[record.kind].toLowerCase()} (${record.variant}).` : undefined })));
 }
 
 function systemCard(ctx, ws, sys, index) {

@@ -92,19 +92,22 @@ export function paybackWords(option, { key = 'simple_payback_years', lifeYears, 
   if (option.id === baselineId) return null;
   const value = option[key];
   const life = isNum(lifeYears) && lifeYears > 0 ? lifeYears : null;
+  // a life the core took from the catalog (none entered) is the usual one for such equipment
+  const its = option.life_years_from === 'catalog' && lifeYears === option.life_years ? 'its usual' : 'its';
   if (isNum(value)) {
-    if (life && value > life) return `does not pay back within its ${format.number(life, 3)}-year life`;
+    if (life && value > life) return `does not pay back within ${its} ${format.number(life, 3)}-year life`;
     return years(value, format);
   }
   if (isNum(option.annual_saving) && option.annual_saving <= 0) {
     return option.annual_saving < 0 ? `no saving a year: it costs ${format.money(-option.annual_saving)} more to run` : 'no saving a year';
   }
-  if (life) return `does not pay back within its ${format.number(life, 3)}-year life`;
+  if (life) return `does not pay back within ${its} ${format.number(life, 3)}-year life`;
   return isNum(studyYears) ? `does not pay back within ${format.number(studyYears, 3)} years` : 'does not pay back';
 }
 
 /** The expected life entered for the option `id` (its system in the workspace), or undefined. */
-export const lifeOf = (ws, id) => ws.systems?.find((s) => s.id === id)?.life_years;
+/** An option's service life [years]: the core's (as entered, or its catalog record's median), else as entered on its card. */
+export const lifeOf = (ws, option) => (isNum(option?.life_years) ? option.life_years : ws.systems?.find((s) => s.id === option?.id)?.life_years);
 
 /** The fuel an option burns in a year; a dual-fuel option's two fuels both ("3,120 kWh + 180 therm"). */
 export function fuelUsedText(o, v, format) {
@@ -159,7 +162,7 @@ function economicsSection(result, ws, ctx) {
     sub ? h('span', { class: 'sub reason', text: sub }) : null);
   const paybackCell = (option, key) => {
     // the full reason is in the trace; the table says it in a few words
-    const words = paybackWords(option, { key, lifeYears: lifeOf(ws, option.id), studyYears: n, baselineId: e.baseline, format });
+    const words = paybackWords(option, { key, lifeYears: lifeOf(ws, option), studyYears: n, baselineId: e.baseline, format });
     if (words === null) return cell(option, key, undefined, '—');
     if (isNum(option[key]) && words === years(option[key], format)) return cell(option, key, option[key], words);
     return cell(option, key, option[key], '—', words);
@@ -210,10 +213,11 @@ function headline(result, ws, ctx, by) {
   const baseline = result.economics?.baseline;
   if (baseline && best.id !== baseline && isNum(best.annual_saving)) {
     const base = list.find((o) => o.id === baseline);
-    const words = ws.economics?.enabled ? paybackWords(best, { lifeYears: lifeOf(ws, best.id), studyYears: n, baselineId: baseline, format }) : null;
+    const words = ws.economics?.enabled ? paybackWords(best, { lifeYears: lifeOf(ws, best), studyYears: n, baselineId: baseline, format }) : null;
     const pay = !words ? '' : isNum(best.simple_payback_years) && words === years(best.simple_payback_years, format)
       ? `, paying back in ${words}` : `, but it ${words}`;
-    const now = `${base?.label ?? baseline}, the system in the house now`;
+    const baseName = base?.label ?? baseline;
+    const now = /^existing\b/i.test(baseName) ? baseName : `${baseName}, the system in the house now`;
     lines.push(h('p', { id: 'switch-line' }, best.annual_saving >= 0
       ? `Against ${now}, it saves ${format.money(best.annual_saving)} a year${pay}.`
       : `It costs ${format.money(-best.annual_saving)} a year more to run than ${now}.`));
