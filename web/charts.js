@@ -123,7 +123,9 @@ export function priceLines(series, { marks = [], current, formatX, money, xLabel
  * grey bars; the heat the backup supplies is shaded (between capacity and load,
  * or the whole load where the heat pump is off).
  */
-export function binsChart(bins, { tempLabel, toTemp, title, number }) {
+export function binsChart(bins, { tempLabel, toTemp, title, number, powerLabel = 'kW', kwTo = 1 }) {
+  // load and capacity in the unit the quote speaks (`kwTo` per kW, e.g. Btu/h on a US quote)
+  bins = bins.map((b) => ({ ...b, load_kw: (b.load_kw ?? 0) * kwTo, capacity_kw: b.capacity_kw === undefined ? undefined : b.capacity_kw * kwTo }));
   const width = 640;
   const height = 340;
   const left = 56;
@@ -133,7 +135,7 @@ export function binsChart(bins, { tempLabel, toTemp, title, number }) {
   const ts = bins.map((b) => toTemp(b.t));
   const t0 = Math.min(...ts);
   const t1 = Math.max(...ts);
-  const kw = Math.max(1, ...bins.flatMap((b) => [b.load_kw ?? 0, b.off ? 0 : b.capacity_kw ?? 0]));
+  const kw = Math.max(kwTo, ...bins.flatMap((b) => [b.load_kw ?? 0, b.off ? 0 : b.capacity_kw ?? 0]));
   const kTicks = niceTicks(0, kw, 4);
   const kMax = kTicks.at(-1);
   const hours = Math.max(1, ...bins.map((b) => b.hours ?? 0));
@@ -167,7 +169,7 @@ export function binsChart(bins, { tempLabel, toTemp, title, number }) {
   line((b) => b.load_kw, kMax, PALETTE[4], '', 'load');
   line((b) => (b.off ? 0 : b.capacity_kw), kMax, PALETTE[0], '6 3', 'capacity');
   line((b) => (b.off ? null : b.cop), copMax, PALETTE[2], '2 3', 'cop');
-  svg.append(text(left, 14, 'kW: load (solid red), heat-pump capacity (dashed blue); COP (dotted green, right scale)', { fill: MUTED, 'font-size': 12 }));
+  svg.append(text(left, 14, `${powerLabel}: load (solid red), heat-pump capacity (dashed blue); COP (dotted green, right scale)`, { fill: MUTED, 'font-size': 12 }));
   svg.append(s('rect', { x: left, y: 22, width: 14, height: 12, fill: 'rgb(179 38 30 / 0.22)' }),
     text(left + 20, 33, 'heat from the backup', { fill: MUTED, 'font-size': 12 }));
   for (const t of niceTicks(0, copMax, 4)) {

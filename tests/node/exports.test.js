@@ -123,3 +123,16 @@ describe('payback in plain words', () => {
     assert.equal(verdict.lifeOf({ systems: [{ id: 'hp', life_years: 12 }] }, { id: 'hp' }), 12, 'no result yet: the life on the card');
   });
 });
+
+describe('charts in the customer\'s units', () => {
+  test('the bills chart speaks the bills\' energy unit; a volume stays in the core\'s kWh', () => {
+    const fit = { unit: 'kWh' };
+    const therms = [{ unit: 'therm' }, { unit: 'therm' }];
+    // 1 therm = 100,000 Btu (IT) = 105.505585262 MJ = 29.307107017222 kWh (NIST SP 811, exact)
+    const shown = verdict.billsUnitOf(fit, therms);
+    assert.equal(shown.unit, 'therm');
+    assert.ok(Math.abs(shown.factor * 29.307107017222222 - 1) < 1e-12, String(shown.factor));
+    assert.deepEqual(verdict.billsUnitOf(fit, [{ unit: 'L' }]), { factor: 1, unit: 'kWh' }, 'litres of oil need the heating value');
+    assert.deepEqual(verdict.billsUnitOf(fit, [{ unit: 'therm' }, { unit: 'MMBtu' }]), { factor: 1, unit: 'kWh' }, 'mixed units');
+  });
+});

@@ -9,7 +9,7 @@ import { h } from '../dom.js';
 import { billsChart, binsChart, costBars, priceLines, probabilityBars, rangeChart, tornadoChart } from '../charts.js';
 import { keptServicesName, siteCostLines, sizingSentence } from '../equipment.js';
 import { asSentence, plainUnits } from '../format.js';
-import { ENERGY_KWH, UA_W_PER_K, co2In, convertTemperature, unitLabel } from '../units.js';
+import { ENERGY_KWH, POWER_W, UA_W_PER_K, co2In, convertTemperature, unitLabel } from '../units.js';
 import { fuelName } from './fuels.js';
 import { openTrace } from './trace.js';
 
@@ -413,7 +413,9 @@ function binsSection(result, ws, ctx) {
     return h('section', { class: 'chart-card bins', id: `bins-${o.id}` },
       h('h3', { text: `${o.label ?? o.id}: performance by outdoor temperature` }),
       binsChart(bins.length ? bins : o.bins, { tempLabel: unitLabel(want), toTemp: (t) => convertTemperature(t, from, want), number: (v) => ctx.format.number(v, 3),
-        title: `Heat pump ${o.label ?? o.id} over temperature bins` }),
+        title: `Heat pump ${o.label ?? o.id} over temperature bins`,
+        // a US quote's capacities are typed in Btu/h: the chart says them so (1 kW = 1000 / (1055.05585262 / 3600) Btu/h)
+        ...(ws.settings.units === 'us' ? { powerLabel: 'Btu/h', kwTo: 1000 / POWER_W['Btu/h'] } : {}) }),
       h('p', { class: 'hint' },
         isNum(o.seasonal_cop) ? ['Seasonal COP ', traceButton('bins', o.seasonal_cop, ctx.format.number(o.seasonal_cop, 3), 'Seasonal COP', { option: o.id }), '. '] : null,
         isNum(o.backup_share) ? `The backup (${backupName}) supplies ${ctx.format.percent(o.backup_share, 1)} of the heat. ` : '',
@@ -425,12 +427,30 @@ function binsSection(result, ws, ctx) {
   });
 }
 
-function billsSection(result, ctx) {
-  const fit = result.demand?.fit;
-  if (!fit || !Array.isArray(fit.points) || !fit.points.length) return null;
+/**
+ * The fit's energy per day in the unit the bills are in when they are all in one energy unit (therm, MMBtu,
+ * GJ…): {factor per fit unit, unit}; else the fit's own unit (a volume or mass needs the fuel's heating value).
+ */
+export function billsUnitOf(fit, bills) {
+  const units = new Set((bills ?? []).map((b) => b.unit).filter(Boolean));
+  const [only] = units;
+  const fitKwh = ENERGY_KWH[fit.unit ?? 'kWh'];
+  if (units.size === 1 && ENERGY_KWH[only] && fitKwh) return { factor: fitKwh / ENERGY_KWH[only], unit: only };
+  return { factor: 1, unit: fit.unit ?? 'kWh' };
+}
+
+function billsSection(result, ctx, ws) {
+  const raw = result.demand?.fit;
+  if (!raw || !Array.isArray(raw.points) || !raw.points.length) return null;
   const { format } = ctx;
-  const tUnit = unitLabel(fit.temperature_unit ?? 'degC');
-  const unit = unitLabel(fit.unit ?? 'kWh');
+  const tUnit = unitLabel(raw.temperature_unit ?? 'degC');
+  // use per day in the bills' own unit (therm for a gas customer billed in therms)
+  const shown = billsUnitOf(raw, ws?.demand?.bills);
+  const fit = { ...raw, base_per_day: raw.base_per_day * shown.factor, slope: raw.slope * shown.factor,
+    points: raw.points.map((p) => ({ ...p, use_per_day: p.use_per_day * shown.factor })) };
+  const unit = unitLabel(shown.unit);
+  // the heat need in the unit the quote shows it in (MMBtu, therm, kWh, GJ…)
+  const heatUnit = ENERGY_KWH[ws?.settings?.energy_unit] ? ws.settings.energy_unit : 'kWh';
   return h('section', { class: 'chart-card', id: 'chart-bills' },
     h('h3', { text: 'Past bills against the weather' }),
     billsChart(fit.points, { base: fit.base_per_day, slope: fit.slope, number: (v) => format.number(v, 3),
@@ -440,7 +460,7 @@ function billsSection(result, ctx) {
       traceButton('bills', fit.base_per_day, `${format.number(fit.base_per_day, 4)} ${unit}`, 'Base use per day'), ' a day + ',
       traceButton('bills', fit.slope, `${format.number(fit.slope, 4)} ${unit}`, 'Use per degree-day'), ` per ${tUnit}·d`,
       isNum(fit.r2) ? ` (R² ${format.fixed(fit.r2, 3)})` : '',
-      isNum(result.demand.uncertainty_kwh) ? `; the heat need is known to about ±${format.number(result.demand.uncertainty_kwh, 3)} kWh.` : '.'),
+      isNum(result.demand.uncertainty_kwh) ? `; the heat need is known to about ±${format.number(result.demand.uncertainty_kwh / ENERGY_KWH[heatUnit], 3)} ${unitLabel(heatUnit)}.` : '.'),
     fit.weather ? h('p', { class: 'hint', id: 'bills-weather', text: billsWeatherText(fit, format) }) : null);
 }
 
@@ -608,7 +628,7 @@ export function renderVerdict(container, ctx, state, { kiosk = false } = {}) {
     const bins = (result.options ?? []).filter((o) => Array.isArray(o.bins)).map((o) => JSON.stringify([o.bins, o.seasonal_cop, o.backup_share,
       o.changeover, o.bin_cop_range, o.hours_below_balance_point, o.backup_option])).join('\u0001');
     parts.push(keep('bins', [bins, result.climate?.unit, ...shown], () => binsSection(result, ws, ctx)));
-    parts.push(billsSection(result, ctx));
+    parts.push(billsSection(result, ctx, ws));
     if (!kiosk) parts.push(keep('draws', [state.mc, state.mc?.state, ws.uncertainty?.enabled, ...shown], () => uncertaintySection(result, ws, ctx, state.mc)));
   }
   // without the costs over the years the core's economics defaults are not the user's concern
