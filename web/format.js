@@ -131,6 +131,14 @@ const FIELD_WORDS = [
   [/\bannual_hdd\b/g, 'annual degree-days'],
   [/\bdesign_temperature\b/g, 'the design temperature'],
   [/\bno bill_dates given\b/g, 'no bill-date rule chosen'],
+  [/^is required \(a fuel id or a custom fuel object\)$/, 'choose a fuel (the Fuels tab holds this quote\'s fuels)'],
+  [/\bmust be a fuel id or a custom fuel object\b/g, 'must be one of the fuels on the Fuels tab'],
+  [/\bis required \(or give a catalog system\)/g, 'is required (or choose a catalog type)'],
+  [/\bgive electric-resistance or the id of a furnace or boiler option\b/g, 'choose electric resistance strips or a furnace or boiler of this quote'],
+  [/\bgive either amount_per_month or amount_per_year\b/g, 'give the amount either a month or a year'],
+  [/\bwithout one give efficiency\b/g, 'without one give its rated efficiency'],
+  [/\bgive life_years to replace it\b/g, 'type its expected life to replace it'],
+  [/\bis not in data\/species\.json\b/g, 'is not in the built-in table of compounds'],
 ];
 
 /** Core words in a message ("-5 degF", "set demand.balance_point") as people write them ("-5 °F", "give the balance point"). */

@@ -136,3 +136,16 @@ describe('charts in the customer\'s units', () => {
     assert.deepEqual(verdict.billsUnitOf(fit, [{ unit: 'therm' }, { unit: 'MMBtu' }]), { factor: 1, unit: 'kWh' }, 'mixed units');
   });
 });
+
+describe('the core\'s messages in the customer\'s words', () => {
+  test('no field names, ids or file names of the core reach the page', async () => {
+    const { plainUnits } = await web('format.js');
+    assert.equal(plainUnits('is required (a fuel id or a custom fuel object)'), 'choose a fuel (the Fuels tab holds this quote\'s fuels)');
+    assert.equal(plainUnits('below -13 degF (set demand.balance_point)'), 'below -13 °F (give the balance point under Heat need)');
+    assert.equal(plainUnits('give either amount_per_month or amount_per_year'), 'give the amount either a month or a year');
+    assert.equal(plainUnits('service life 15 years: the median for air-source-heat-pump (…); give life_years to replace it'),
+      'service life 15 years: the median for air-source-heat-pump (…); type its expected life to replace it');
+    assert.equal(plainUnits('"XeF2" is not in data/species.json; give its standard enthalpy of formation'),
+      '"XeF2" is not in the built-in table of compounds; give its standard enthalpy of formation');
+  });
+});
