@@ -122,6 +122,8 @@ before(async () => {
   profile = mkdtempSync(join(tmpdir(), 'fuelwright-kiosk-'));
   ({ context, page } = await launchTablet(profile, TOUCH));
   watchPage(page, { consoleErrors });
+  // a request that fails (net::ERR_FAILED for the price file while the kiosk starts was reported once) is an error too
+  page.on('requestfailed', (request) => consoleErrors.push(`request failed: ${request.url()} ${request.failure()?.errorText ?? ''}`));
 }, { timeout: TIMEOUT });
 
 after(async () => {
