@@ -31,7 +31,7 @@ import { renderHouse } from './views/house.js';
 import { renderLab } from './views/lab.js';
 import { renderQuotes } from './views/quotes.js';
 import { DUAL_FUEL_CHOICE, KIND_NAMES, renderSystems } from './views/systems.js';
-import { FUEL_BURNING_KINDS, billedSystemId, dualFuelSystem } from './equipment.js';
+import { FUEL_BURNING_KINDS, billedSystemId, dualFuelSystem, efficiencyFor } from './equipment.js';
 import { openTrace } from './views/trace.js';
 import { bindVerdict, rankedOptions, renderVerdict, resultsCsv, showDrawProgress } from './views/verdict.js';
 
@@ -715,12 +715,9 @@ function fitSystemToCatalog(ws, sys) {
   if (!fits(model)) {
     const next = ctx.catalog.systems.find(fits);
     sys.system.catalog = next?.id ?? '';
-    if (next) sys.system.efficiency = { value: next.typical.value, rating: next.typical.rating };
   }
   const current = ctx.catalog.systemsById.get(sys.system.catalog);
-  if (current && !current.ratings.includes(sys.system.efficiency?.rating)) {
-    sys.system.efficiency = { value: current.typical.value, rating: current.typical.rating };
-  }
+  if (current) sys.system.efficiency = efficiencyFor(sys.system.efficiency, current);
   if (sys.label_auto) sys.label = autoLabel(ws, sys);
 }
 
@@ -789,7 +786,7 @@ function onField(path, value, { structural }) {
       else {
         sys.system.catalog = value;
         const model = ctx.catalog.systemsById.get(value);
-        if (model && !model.ratings.includes(sys.system.efficiency?.rating)) sys.system.efficiency = { ...model.typical };
+        if (model) sys.system.efficiency = efficiencyFor(sys.system.efficiency, model);
       }
       if (m[2] !== 'system/catalog') fitSystemToCatalog(ws, sys);
       if (sys.label_auto) sys.label = autoLabel(ws, sys);

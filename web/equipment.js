@@ -194,3 +194,13 @@ export function dualFuelSystem(ws, backupId) {
   system.changeover_mode = 'temperature';
   return { fuel_key: template.fuel_key, equipment: template.equipment, system };
 }
+
+/**
+ * A card's efficiency after its catalog type is chosen or changes: a value typed in a rating the type is
+ * rated in stays; otherwise the type's rating with no value, so the type's typical value shows as the
+ * field's placeholder and is what the core uses — never a value the user did not type.
+ */
+export function efficiencyFor(efficiency, record) {
+  if (record.ratings.includes(efficiency?.rating)) return { ...efficiency };
+  return { rating: record.typical.rating };
+}

@@ -299,3 +299,18 @@ describe('Editing rules for a quote typed in any order (issue 14)', () => {
     assert.equal(equipment.dualFuelSystem({ systems: [furnace] }, 'furnace-natural-gas'), null, 'no heat pump typed yet');
   });
 });
+
+describe('No value appears as entered that the user did not type (issue 14)', () => {
+  const hp = { ratings: ['HSPF2', 'HSPF', 'SCOP', 'COP'], typical: { value: 8.5, rating: 'HSPF2' } };
+  test('a new card gets the catalog type\'s rating and no value: the typical is the placeholder', () => {
+    assert.deepEqual(equipment.efficiencyFor({ rating: '' }, hp), { rating: 'HSPF2' });
+    assert.deepEqual(equipment.efficiencyFor(undefined, hp), { rating: 'HSPF2' });
+  });
+  test('a typed value in a rating the type accepts stays as typed', () => {
+    assert.deepEqual(equipment.efficiencyFor({ value: 9.5, rating: 'HSPF2' }, hp), { value: 9.5, rating: 'HSPF2' });
+    assert.deepEqual(equipment.efficiencyFor({ value: 3.4, rating: 'SCOP' }, hp), { value: 3.4, rating: 'SCOP' });
+  });
+  test('an AFUE left from a furnace is not carried onto a heat pump', () => {
+    assert.deepEqual(equipment.efficiencyFor({ value: 95, rating: 'AFUE' }, hp), { rating: 'HSPF2' });
+  });
+});

@@ -155,7 +155,8 @@ function systemCard(ctx, ws, sys, index) {
         placeholder: typical ? String(typical.value) : undefined,
         unit: { path: `${base}/system/efficiency/rating`, value: sys.system?.efficiency?.rating || typical?.rating || ratings[0],
           choices: ratings.map((r) => [r, RATING_NAMES[r] ?? r]) },
-        hint: typical ? `Typical ${typical.value} ${typical.rating}, minimum ${model.minimum?.value} ${model.minimum?.rating}.` : undefined }),
+        hint: typical ? `${typeof sys.system?.efficiency?.value === 'number' ? 'Typical' : 'Left empty: the typical'} ${typical.value} ${typical.rating}${
+          typeof sys.system?.efficiency?.value === 'number' ? '' : ' is used'}; minimum ${model.minimum?.value} ${model.minimum?.rating}.` : undefined }),
       h('div', { class: 'grid two tight' },
         numberField(ctx, { label: 'Duct or pipe loss', path: `${base}/system/distribution_loss`, value: sys.system?.distribution_loss, scale: 100, unit: '%' }),
         numberField(ctx, { label: 'Loss with age', path: `${base}/system/age_derating`, value: sys.system?.age_derating, scale: 100, unit: '%' }))),
