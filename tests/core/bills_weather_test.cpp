@@ -10,7 +10,7 @@
 #include <vector>
 
 #include "fw/api.hpp"
-#include "fw/demand.hpp"
+#include "climate/demand.hpp"
 
 namespace {
 

@@ -8,8 +8,8 @@
 #include <numeric>
 
 #include "fw/api.hpp"
-#include "fw/climate.hpp"
-#include "fw/units.hpp"
+#include "climate/climate.hpp"
+#include "base/units.hpp"
 
 namespace {
 

@@ -6,9 +6,9 @@
 #include <numeric>
 
 #include "fw/api.hpp"
-#include "fw/demand.hpp"
-#include "fw/heat_pump.hpp"
-#include "fw/units.hpp"
+#include "climate/demand.hpp"
+#include "climate/heat_pump.hpp"
+#include "base/units.hpp"
 
 namespace {
 

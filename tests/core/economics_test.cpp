@@ -11,9 +11,9 @@
 #include <random>
 
 #include "fw/api.hpp"
-#include "fw/economics.hpp"
-#include "fw/roots.hpp"
-#include "fw/systems.hpp"
+#include "model/economics.hpp"
+#include "base/roots.hpp"
+#include "supply/systems.hpp"
 
 namespace {
 

@@ -6,8 +6,8 @@
 #include <nlohmann/json.hpp>
 
 #include "fw/api.hpp"
-#include "fw/economics.hpp"
-#include "fw/error.hpp"
+#include "model/economics.hpp"
+#include "base/error.hpp"
 
 namespace {
 

@@ -4,9 +4,9 @@
 
 #include <cmath>
 
-#include "fw/error.hpp"
-#include "fw/fuels.hpp"
-#include "fw/units.hpp"
+#include "base/error.hpp"
+#include "supply/fuels.hpp"
+#include "base/units.hpp"
 
 namespace {
 

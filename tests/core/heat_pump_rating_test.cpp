@@ -10,7 +10,7 @@
 #include <vector>
 
 #include "fw/api.hpp"
-#include "fw/heat_pump.hpp"
+#include "climate/heat_pump.hpp"
 
 namespace {
 

@@ -10,7 +10,7 @@
 #include <sstream>
 
 #include "fw/api.hpp"
-#include "fw/json_fields.hpp"
+#include "json/json_fields.hpp"
 
 namespace {
 

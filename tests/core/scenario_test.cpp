@@ -5,7 +5,7 @@
 #include <nlohmann/json.hpp>
 
 #include "fw/api.hpp"
-#include "fw/fuels.hpp"
+#include "supply/fuels.hpp"
 
 namespace {
 

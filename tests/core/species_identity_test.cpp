@@ -5,9 +5,9 @@
 #include <nlohmann/json.hpp>
 #include <set>
 
-#include "fw/combustion.hpp"
-#include "fw/embedded_data.hpp"
-#include "fw/species.hpp"
+#include "thermo/combustion.hpp"
+#include "base/embedded_data.hpp"
+#include "thermo/species.hpp"
 
 namespace {
 

@@ -8,8 +8,8 @@
 
 #include <cmath>
 
-#include "fw/combustion.hpp"
-#include "fw/species.hpp"
+#include "thermo/combustion.hpp"
+#include "thermo/species.hpp"
 
 namespace {
 

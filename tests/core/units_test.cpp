@@ -3,8 +3,8 @@
 
 #include <cmath>
 
-#include "fw/error.hpp"
-#include "fw/units.hpp"
+#include "base/error.hpp"
+#include "base/units.hpp"
 
 namespace {
 

@@ -12,8 +12,8 @@
 #include <vector>
 
 #include "fw/api.hpp"
-#include "fw/demand.hpp"
-#include "fw/weather.hpp"
+#include "climate/demand.hpp"
+#include "climate/weather.hpp"
 
 namespace {
 

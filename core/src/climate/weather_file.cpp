@@ -5,9 +5,9 @@
 #include <map>
 #include <set>
 
-#include "fw/demand.hpp"
-#include "fw/units.hpp"
-#include "fw/weather.hpp"
+#include "climate/demand.hpp"
+#include "base/units.hpp"
+#include "climate/weather.hpp"
 
 namespace fw {
 

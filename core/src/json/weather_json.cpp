@@ -3,10 +3,10 @@
 #include <nlohmann/json.hpp>
 
 #include "fw/api.hpp"
-#include "fw/demand.hpp"
-#include "fw/json_fields.hpp"
-#include "fw/units.hpp"
-#include "fw/weather.hpp"
+#include "climate/demand.hpp"
+#include "json/json_fields.hpp"
+#include "base/units.hpp"
+#include "climate/weather.hpp"
 
 namespace fw {
 

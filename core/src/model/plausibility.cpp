@@ -1,13 +1,13 @@
 // Plausibility warnings: the slips a user makes (a fraction typed for a percentage, a price or a
 // capacity in the wrong unit) that the hard limits still let through.
-#include "fw/plausibility.hpp"
+#include "model/plausibility.hpp"
 
 #include <algorithm>
 #include <array>
 #include <cmath>
 #include <string_view>
 
-#include "fw/units.hpp"
+#include "base/units.hpp"
 
 namespace fw {
 namespace {
