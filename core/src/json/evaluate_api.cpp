@@ -6,6 +6,7 @@
 #include "base/embedded_data.hpp"
 #include "json/json_fields.hpp"
 #include "model/appraisal.hpp"
+#include "model/verdict.hpp"
 #include "json/scenario_reader.hpp"
 #include "base/units.hpp"
 
@@ -195,21 +196,20 @@ void add_economics(json& out, const option_economics& x) {
 json evaluate(const json& document, const std::function<bool(double)>& progress) {
     std::vector<issue> errors, warnings;
     const auto input = read_scenario(document, errors, warnings);
-    const auto evaluated = evaluate_scenario(input);
+    const auto verdict = judge(input, errors.empty(), progress);
+    const auto& evaluated = verdict.evaluated;
+    const auto& results = evaluated.results;
     for (const auto& error : evaluated.errors) errors.push_back(error);
     json options = json::array();
-    for (const auto& result : evaluated.results) {
-        for (const auto& w : result.warnings) warnings.push_back({evaluated.options[&result - evaluated.results.data()]->path, w});
-        options.push_back(option_json(result, input));
+    for (std::size_t i = 0; i < results.size(); ++i) {
+        for (const auto& w : results[i].warnings) warnings.push_back({evaluated.options[i]->path, w});
+        options.push_back(option_json(results[i], input));
     }
-    const auto& results = evaluated.results;
-    std::vector<std::size_t> order(results.size());
-    for (std::size_t i = 0; i < order.size(); ++i) order[i] = i;
-    std::stable_sort(order.begin(), order.end(),
-                     [&](std::size_t a, std::size_t b) { return results[a].annual_cost < results[b].annual_cost; });
     json ranking = json::array();
-    for (std::size_t rank = 0; rank < order.size(); ++rank)
-        ranking.push_back({{"rank", rank + 1}, {"id", results[order[rank]].id}, {"annual_cost", results[order[rank]].annual_cost}});
+    for (std::size_t rank = 0; rank < verdict.by_annual_cost.size(); ++rank) {
+        const auto& r = results[verdict.by_annual_cost[rank]];
+        ranking.push_back({{"rank", rank + 1}, {"id", r.id}, {"annual_cost", r.annual_cost}});
+    }
     json settings = {{"units", input.settings.units == unit_system::us ? "us" : "metric"},
                      {"currency", input.settings.currency},
                      {"electricity_co2e_kg_per_kwh", input.settings.electricity_co2e_kg_per_kwh},
@@ -220,30 +220,14 @@ json evaluate(const json& document, const std::function<bool(double)>& progress)
                 {"demand", demand_result(input)},
                 {"options", options},
                 {"ranking", ranking}};
-    // Economics: when asked for, or when the scenario carries costs or an existing system.
-    bool wanted = input.economics.has_value() || input.uncertainty.has_value();
-    for (const auto& option : input.options) wanted = wanted || option.existing || option.installed_cost > 0;
-    if (wanted && errors.empty()) {
-        const auto economics = input.economics.value_or(economics_settings{});
-        if (!economics.given)
-            warnings.push_back({"/economics", "no economics given: " + std::to_string(economics.analysis_years) +
-                                                  " years, " + format_number(100 * economics.discount_rate) +
-                                                  " % real discount rate, no price escalation (assumptions)"});
-        const auto baseline = baseline_index(evaluated);
-        if (!baseline)
-            warnings.push_back({"/options", "no option is marked existing: savings, payback and NPV need the system in "
-                                            "the house now as the baseline"});
-        const auto appraised = appraise(input, evaluated, economics, baseline);
-        for (std::size_t i = 0; i < appraised.size(); ++i) add_economics(out["options"][i], appraised[i]);
-        std::vector<std::size_t> by_lcc(order.size());
-        for (std::size_t i = 0; i < by_lcc.size(); ++i) by_lcc[i] = i;
-        std::stable_sort(by_lcc.begin(), by_lcc.end(), [&](std::size_t a, std::size_t b) {
-            return appraised[a].life_cycle_cost < appraised[b].life_cycle_cost;
-        });
+    if (verdict.economics) {
+        const auto& economics = *verdict.economics;
+        for (std::size_t i = 0; i < verdict.appraised.size(); ++i) add_economics(out["options"][i], verdict.appraised[i]);
         json lcc_ranking = json::array();
-        for (std::size_t rank = 0; rank < by_lcc.size(); ++rank)
-            lcc_ranking.push_back({{"rank", rank + 1}, {"id", results[by_lcc[rank]].id},
-                                   {"life_cycle_cost", appraised[by_lcc[rank]].life_cycle_cost}});
+        for (std::size_t rank = 0; rank < verdict.by_life_cycle_cost.size(); ++rank) {
+            const auto i = verdict.by_life_cycle_cost[rank];
+            lcc_ranking.push_back({{"rank", rank + 1}, {"id", results[i].id}, {"life_cycle_cost", verdict.appraised[i].life_cycle_cost}});
+        }
         out["ranking_life_cycle"] = lcc_ranking;
         out["economics"] = {{"analysis_years", economics.analysis_years},
                             {"discount_rate", economics.discount_rate},
@@ -251,11 +235,11 @@ json evaluate(const json& document, const std::function<bool(double)>& progress)
                             {"default_escalation", economics.default_escalation},
                             {"escalation", economics.escalation},
                             {"maintenance_escalation", economics.maintenance_escalation},
-                            {"baseline", baseline ? json(results[*baseline].id) : json(nullptr)},
+                            {"baseline", verdict.baseline ? json(results[*verdict.baseline].id) : json(nullptr)},
                             {"convention", "end-of-year cash flows; cost in year t = base-year cost x (1 + e)^t / (1 + d)^t "
                                            "(NIST Handbook 135); fixed charges escalate with their fuel"}};
-        if (input.uncertainty) {
-            const auto mc = monte_carlo(input, evaluated, appraised, *input.uncertainty, progress);
+        if (verdict.uncertainty) {
+            const auto& mc = *verdict.uncertainty;
             json list = json::array();
             for (const auto& o : mc.options)
                 list.push_back({{"id", o.id},
@@ -271,9 +255,9 @@ json evaluate(const json& document, const std::function<bool(double)>& progress)
             out["uncertainty"] = {{"draws", mc.draws}, {"seed", mc.seed}, {"cancelled", mc.cancelled},
                                   {"form", input.uncertainty->triangular ? "triangular" : "lognormal"},
                                   {"notes", mc.notes}, {"options", list}};
-            if (mc.cancelled) warnings.push_back({"/uncertainty", "cancelled after " + std::to_string(mc.draws) + " draws"});
         }
     }
+    for (const auto& w : verdict.warnings) warnings.push_back(w);
     out["cautions"] = cautions();
     out["errors"] = issues_json(errors);
     out["warnings"] = issues_json(warnings);
