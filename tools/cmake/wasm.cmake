@@ -50,7 +50,7 @@ target_compile_options(core PRIVATE ${FW_WASM_COMPILE_OPTIONS})
 # heavy analyses spend their time (bins, Monte Carlo, quantiles, sweeps) are compiled with inlining.
 # Measured on the heavy benchmark: without this 71 ms and 217 KB gzip, with it 27 ms and 260 KB; inlining
 # everywhere 24 ms and 308 KB; adding the JSON-building files (scenario, evaluate_api, json_fields) gained nothing.
-set(FW_WASM_HOT_SOURCES climate/heat_pump.cpp model/heat_pump_option.cpp model/appraisal.cpp model/economics.cpp climate/climate.cpp json/analysis_api.cpp)
+set(FW_WASM_HOT_SOURCES climate/heat_pump.cpp model/heat_pump_option.cpp model/appraisal.cpp model/economics.cpp climate/climate.cpp model/analysis.cpp)
 list(TRANSFORM FW_WASM_HOT_SOURCES PREPEND "${CMAKE_SOURCE_DIR}/core/src/")
 set_source_files_properties(${FW_WASM_HOT_SOURCES} TARGET_DIRECTORY core PROPERTIES COMPILE_OPTIONS -finline-functions)
 
