@@ -6,7 +6,7 @@
 // node for each group, which views/house.js places in the panel; the views
 // render them (views/climates.js). app.js creates it and hands it the store,
 // the core client and the formatter.
-import { h, download } from './dom.js';
+import { download, h, onActions } from './dom.js';
 import { keepableClimate, libraryFile, makeEntry, nameProblem, readLibraryFile, uniqueName } from './climate-library.js';
 import { openClimates } from './climate-store.js';
 import { climateFromScenario } from './scenario.js';
@@ -297,16 +297,7 @@ export function createClimateTools(ctx) {
     'library-undo': undo,
     'library-export': exportLibrary,
   };
-  for (const node of [weatherNode, libraryNode]) {
-    node.addEventListener('click', (event) => {
-      const button = event.target.closest('button[data-action]');
-      const action = button && ACTIONS[button.dataset.action];
-      if (!action) return;
-      event.preventDefault();
-      event.stopPropagation();
-      action(button.dataset);
-    });
-  }
+  onActions([weatherNode, libraryNode], ACTIONS);
   weatherNode.addEventListener('change', (event) => {
     const t = event.target;
     if (t === weatherInput && t.files?.[0]) {

@@ -53,3 +53,20 @@ export function download(name, type, text) {
   a.remove();
   setTimeout(() => URL.revokeObjectURL(url), 1000);
 }
+
+/**
+ * A tap on a button with `data-action` inside any of `nodes` calls `actions[action](button.dataset)`; the
+ * tap goes no further (the page's own action table does not see it). Buttons of other actions are left alone.
+ */
+export function onActions(nodes, actions) {
+  for (const node of nodes) {
+    node.addEventListener('click', (event) => {
+      const button = event.target.closest('button[data-action]');
+      const action = button && actions[button.dataset.action];
+      if (!action) return;
+      event.preventDefault();
+      event.stopPropagation();
+      action(button.dataset);
+    });
+  }
+}

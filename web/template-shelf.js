@@ -3,7 +3,7 @@
 // exports and imports them as a file (fuelwright.templates/1). Kept in localStorage (a small shelf,
 // read at start); a refused write is said, never silent. It owns one node for each tab, which the
 // views place in their panels; views/templates.js renders them. app.js creates it with the store.
-import { download, h } from './dom.js';
+import { download, h, onActions } from './dom.js';
 import { loadTemplates, newId, saveTemplates } from './storage.js';
 import {
   applyEquipment, applyPriceList, emptyShelf, equipmentFrom, normalizeShelf, priceListFrom, priceListSummary,
@@ -157,16 +157,7 @@ export function createTemplateTools(ctx) {
     'equipment-delete': (d) => deleteEntry('equipment', d.id, 'equipmentMessage'),
     'templates-export': exportShelf,
   };
-  for (const node of [priceNode, equipmentNode, fileNode]) {
-    node.addEventListener('click', (event) => {
-      const button = event.target.closest('button[data-action]');
-      const action = button && ACTIONS[button.dataset.action];
-      if (!action) return;
-      event.preventDefault();
-      event.stopPropagation();
-      action(button.dataset);
-    });
-  }
+  onActions([priceNode, equipmentNode, fileNode], ACTIONS);
   // a system card's "Keep in your equipment" (the cards belong to the Systems tab's view)
   document.addEventListener('click', (event) => {
     const button = event.target.closest?.('button[data-action="equipment-keep"]');
