@@ -329,6 +329,14 @@ describe('the kiosk in Chromium behind nginx', () => {
 
   test('a running Monte Carlo stops when its flag is set (cross-origin isolated)', { timeout: TIMEOUT }, async () => {
     await page.goto(`${base}index.html`);
+    // Seen in two full runs of about eight: the page came up not cross-origin isolated (cause not found;
+    // the headers are on every response and kept in the service worker's cache). It is said, and the
+    // page loaded once more, so that what this test is about - the flag stopping the draws - is tested.
+    if (!(await page.evaluate(() => globalThis.crossOriginIsolated))) {
+      const controlled = await page.evaluate(() => Boolean(navigator.serviceWorker?.controller));
+      console.log(`# the page was not cross-origin isolated (from the service worker: ${controlled}); loading it again`);
+      await page.reload();
+    }
     await page.waitForFunction(() => document.querySelector('#verdict-body')?.dataset.state === 'done');
     const run = await page.evaluate(async () => {
       const { CoreClient } = await import('./core-client.js');
@@ -339,9 +347,10 @@ describe('the kiosk in Chromium behind nginx', () => {
       const started = client.evaluateWithProgress(doc, { onProgress: () => { calls += 1; if (calls === 3) started.cancel(); } });
       const result = await started.promise;
       client.terminate();
-      return { signalled: started.signalled, calls, cancelled: result.uncertainty?.cancelled, draws: result.uncertainty?.draws, errors: result.errors };
+      return { signalled: started.signalled, calls, cancelled: result.uncertainty?.cancelled, draws: result.uncertainty?.draws, errors: result.errors,
+        isolated: globalThis.crossOriginIsolated, controlled: Boolean(navigator.serviceWorker?.controller) };
     });
-    assert.equal(run.signalled, true);
+    assert.equal(run.signalled, true, `cross-origin isolated ${run.isolated}, page from the service worker ${run.controlled}`);
     assert.deepEqual(run.errors, []);
     assert.equal(run.cancelled, true);
     assert.ok(run.draws > 0 && run.draws < 200000, `stopped after ${run.draws} draws`);
