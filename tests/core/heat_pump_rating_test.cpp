@@ -1,6 +1,6 @@
 // Heat pumps as rated and sold: HSPF and HSPF2 worked by hand from a 47/17 degF data sheet with the
 // procedure's equations (10 CFR 430 Subpart B Appendices M and M1, from memory as stated in
-// core/include/fw/heat_pump.hpp), the frost default, a variable-speed unit's bins, the same unit
+// core/src/climate/heat_pump.hpp), the frost default, a variable-speed unit's bins, the same unit
 // entered as HSPF 8.8 and HSPF2 7.5 in one house, and the sizing outputs.
 #include <gtest/gtest.h>
 
