@@ -1145,11 +1145,15 @@ function showPanelTop(name) {
 
 /** Shows the field at workspace `path`: its tab, any closed section around it opened, scrolled into view and focused. */
 function jumpToField(path) {
-  const input = document.querySelector(`.inputs [data-path="${CSS.escape(path)}"]`)
-    ?? document.querySelector(`.inputs [data-field="${CSS.escape(path)}"] [data-path]`);
+  // the field itself, not a button that jumps to it (those carry the field's path too)
+  const find = () => document.querySelector(`.inputs [data-path="${CSS.escape(path)}"]:not([data-action])`)
+    ?? document.querySelector(`.inputs [data-field="${CSS.escape(path)}"] [data-path]:not([data-action])`);
+  const panel = find()?.closest('[data-panel]');
+  if (!panel) return;
+  setTab(panel.dataset.panel);
+  // opening a tab may paint its panel again: the field is looked up in what is on screen now
+  const input = find();
   if (!input) return;
-  const panel = input.closest('[data-panel]');
-  if (panel) setTab(panel.dataset.panel);
   for (let d = input.closest('details'); d; d = d.parentElement?.closest('details')) d.open = true;
   input.scrollIntoView({ block: 'center' });
   input.focus({ preventScroll: true });

@@ -70,6 +70,12 @@ for (const viewport of [{ width: 768, height: 1024 }, { width: 390, height: 844 
         const { setup, quote, scenario } = await walk(driver, server.url);
         console.log(`# ${size}: device set-up ${setup.taps} taps, ${setup.chars} characters; the quote ${quote.taps} taps, ${quote.chars} characters`);
         assert.ok(quote.taps <= TAP_BUDGET, `${quote.taps} taps`);
+        // the bills name their system, one tap from its card
+        await page.tap('#tab-house');
+        assert.equal(await page.textContent('#bills-system-link'), 'Show Existing furnace, Natural gas (Systems tab)');
+        await page.tap('#bills-system-link');
+        await page.waitForFunction(() => document.activeElement?.id === 'f-systems-0-label');
+        assert.equal(await page.getAttribute('#tab-systems', 'aria-selected'), 'true');
         await page.screenshot({ path: join(ARTIFACTS, `walk-${size}-verdict.png`) });
 
         // reload: the same scenario, cut-off and changeover included

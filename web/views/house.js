@@ -115,9 +115,13 @@ function billFields(ctx, ws, d) {
   const hint = billed
     ? `Billed fuel: ${billedFuel ? fuelName(billedFuel, ctx.catalog) : 'none chosen yet (Systems tab)'}.`
     : 'Mark the system in the house now on the Systems tab (3): these bills are then linked to it.';
+  const billedIndex = ws.systems.indexOf(billed);
   return [
     selectField(ctx, { label: 'These bills are for', path: '/demand/bills_option', value: d.bills_option ?? '',
       choices: [['', ws.systems.length ? 'Choose the existing system…' : 'No system yet (Systems tab)'], ...systems], hint }),
+    // the billed system is one tap away: its card on the Systems tab, scrolled into view and focused
+    billed ? h('button', { type: 'button', class: 'quiet', id: 'bills-system-link',
+      dataset: { action: 'jump-to-field', path: `/systems/${billedIndex}/label` }, text: `Show ${billed.label || billed.id} (Systems tab)` }) : null,
     radioField(ctx, { legend: 'Bill dates are', path: '/demand/bill_dates', value: d.bill_dates,
       choices: [['meter-reads', 'Meter reads (each bill starts on the day the last one ended)'],
         ['inclusive', 'Inclusive (the end date is the bill\'s last day)']] }),
