@@ -879,7 +879,7 @@ function addSystem(choice) {
       if (copy) Object.assign(sys, copy);
       sys.system.backup = backup.id;
       sys.system.changeover_mode = 'temperature';
-      sys.id = uniqueSystemId(ws, `dual-fuel-${fuelId(backup && ws.fuels.find((f) => f.key === backup.fuel_key)) || 'backup'}`);
+      sys.id = uniqueSystemId(ws, `dual-fuel-${fuelId(ws.fuels.find((f) => f.key === backup.fuel_key)) || 'backup'}`);
     }
     sys.label = autoLabel(ws, sys);
     ws.systems.push(sys);

@@ -111,9 +111,8 @@ function fuelBurningFields(ctx, ws, base, sys, entry) {
 function economicFields(ctx, ws, base, sys) {
   const currency = ws.settings.currency;
   // the life the core appraises over when none is typed: the catalog record's median service life
-  const entry = ws.fuels.find((f) => f.key === sys.fuel_key);
   const record = ctx.catalog.systemsById.get(sys.system?.catalog)
-    ?? defaultRecord({ ...sys.system, kind: sys.system?.kind }, typeof entry?.fuel === 'string' ? entry.fuel : '', ctx.catalog)
+    ?? defaultRecord(sys.system ?? {}, fuelId(ws.fuels.find((f) => f.key === sys.fuel_key)), ctx.catalog)
     ?? ctx.catalog.systems.find((m) => m.kind === sys.system?.kind);
   const life = record?.service_life;
   return h('div', { class: 'economics' },
@@ -136,6 +135,7 @@ function systemCard(ctx, ws, sys, index) {
   const model = catalog.systemsById.get(sys.system?.catalog);
   const ratings = model?.ratings ?? RATINGS;
   const typical = model?.typical;
+  const typed = typeof sys.system?.efficiency?.value === 'number';
   const nodes = [
     h('div', { class: 'card-head' },
       h('h3', { text: sys.label || sys.id }),
@@ -155,8 +155,8 @@ function systemCard(ctx, ws, sys, index) {
         placeholder: typical ? String(typical.value) : undefined,
         unit: { path: `${base}/system/efficiency/rating`, value: sys.system?.efficiency?.rating || typical?.rating || ratings[0],
           choices: ratings.map((r) => [r, RATING_NAMES[r] ?? r]) },
-        hint: typical ? `${typeof sys.system?.efficiency?.value === 'number' ? 'Typical' : 'Left empty: the typical'} ${typical.value} ${typical.rating}${
-          typeof sys.system?.efficiency?.value === 'number' ? '' : ' is used'}; minimum ${model.minimum?.value} ${model.minimum?.rating}.` : undefined }),
+        hint: typical ? `${typed ? 'Typical' : 'Left empty: the typical'} ${typical.value} ${typical.rating}${typed ? '' : ' is used'}; minimum ${
+          model.minimum?.value} ${model.minimum?.rating}.` : undefined }),
       h('div', { class: 'grid two tight' },
         numberField(ctx, { label: 'Duct or pipe loss', path: `${base}/system/distribution_loss`, value: sys.system?.distribution_loss, scale: 100, unit: '%' }),
         numberField(ctx, { label: 'Loss with age', path: `${base}/system/age_derating`, value: sys.system?.age_derating, scale: 100, unit: '%' }))),
