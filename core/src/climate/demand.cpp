@@ -5,8 +5,10 @@
 #include <cmath>
 #include <cstdio>
 #include <limits>
+#include <numeric>
 
 #include "base/error.hpp"
+#include "base/units.hpp"
 
 namespace fw {
 
@@ -206,6 +208,102 @@ prism_fit fit_prism(const std::vector<bill_period>& bills, const climate_model& 
     for (const auto& bill : bills)
         if (rank(bill.weather) > rank(fit.weather)) fit.weather = bill.weather;
     return fit;
+}
+
+double ua_from_design_heat_loss_w_per_k(double design_heat_loss_w, double indoor_c, double design_outdoor_c) {
+    return design_heat_loss_w / (indoor_c - design_outdoor_c);
+}
+
+double balance_point_from_gains_c(double indoor_c, double internal_gains_w, double ua_w_per_k) {
+    return indoor_c - internal_gains_w / ua_w_per_k;
+}
+
+degree_day_heat degree_day_space_heat(const climate_model& climate, double ua_w_per_k, double balance_point_c,
+                                      double degree_day_correction) {
+    const auto monthly = monthly_hdd(climate, balance_point_c);
+    degree_day_heat heat;
+    heat.hdd_k_day = std::accumulate(monthly.begin(), monthly.end(), 0.0);
+    heat.uncorrected_kwh = ua_w_per_k * heat.hdd_k_day * 24.0 / 1000.0;
+    heat.space_heat_kwh = heat.uncorrected_kwh * degree_day_correction;
+    return heat;
+}
+
+std::vector<std::size_t> bills_in_date_order(const std::vector<bill_period>& bills) {
+    std::vector<std::size_t> order(bills.size());
+    std::iota(order.begin(), order.end(), 0);
+    std::sort(order.begin(), order.end(), [&](auto a, auto b) { return bills[a].first_day < bills[b].first_day; });
+    return order;
+}
+
+bool bills_share_a_day(const std::vector<bill_period>& bills) {
+    const auto order = bills_in_date_order(bills);
+    for (std::size_t k = 1; k < order.size(); ++k)
+        if (bills[order[k]].first_day <= bills[order[k - 1]].last_day) return true;
+    return false;
+}
+
+std::vector<bill_seam> bill_seams(const std::vector<bill_period>& bills) {
+    const auto order = bills_in_date_order(bills);
+    std::vector<bill_seam> seams;
+    for (std::size_t k = 1; k < order.size(); ++k) {
+        const auto& earlier = bills[order[k - 1]];
+        const auto& later = bills[order[k]];
+        bill_seam seam;
+        seam.earlier = order[k - 1];
+        seam.later = order[k];
+        seam.overlap_days = std::max(0L, earlier.last_day - later.first_day + 1);
+        seam.gap_days = std::max(0L, later.first_day - earlier.last_day - 1);
+        seams.push_back(seam);
+    }
+    return seams;
+}
+
+observed_cover observed_days_of(const bill_period& bill, const std::map<long, double>& observed_c) {
+    observed_cover cover;
+    cover.period_days = bill.last_day - bill.first_day + 1;
+    for (long day = bill.first_day; day <= bill.last_day; ++day) {
+        const auto found = observed_c.find(day);
+        if (found == observed_c.end()) ++cover.missing_days;
+        else cover.daily_mean_c.push_back(found->second);
+    }
+    return cover;
+}
+
+billed_total billed_total_of(const std::vector<bill_period>& bills) {
+    billed_total total;
+    for (const auto& bill : bills) {
+        total.days += bill.last_day - bill.first_day + 1;
+        total.fuel_kwh += bill.fuel_kwh;
+    }
+    return total;
+}
+
+std::pair<double, double> prism_tau_range_c(bool fahrenheit) {
+    if (fahrenheit) return {convert(40, "degF", "degC"), convert(75, "degF", "degC")};
+    return {5.0, 24.0};
+}
+
+fit_doubts doubts_about(const prism_fit& fit, double tau_low_c, double tau_high_c) {
+    fit_doubts doubts;
+    doubts.poor_fit = fit.r2 < 0.7;
+    doubts.tau_at_edge = fit.tau_c - tau_low_c < 0.5 || tau_high_c - fit.tau_c < 0.5;
+    doubts.least_hdd_per_day = std::numeric_limits<double>::infinity();
+    for (const auto& point : fit.points) doubts.least_hdd_per_day = std::min(doubts.least_hdd_per_day, point.first);
+    doubts.every_period_heated = doubts.least_hdd_per_day > 1.0;
+    return doubts;
+}
+
+bool bills_cover_coldest_months(const std::vector<bill_period>& bills, const climate_model& climate) {
+    std::array<int, 12> by_cold{};
+    std::iota(by_cold.begin(), by_cold.end(), 0);
+    std::sort(by_cold.begin(), by_cold.end(),
+              [&](int a, int b) { return climate.monthly_mean_c[a] < climate.monthly_mean_c[b]; });
+    for (const auto& bill : bills)
+        for (long day = bill.first_day; day <= bill.last_day; ++day) {
+            const int month = month_of_day(day);
+            if (month == by_cold[0] || month == by_cold[1] || month == by_cold[2]) return true;
+        }
+    return false;
 }
 
 }  // namespace fw

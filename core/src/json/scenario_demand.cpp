@@ -2,9 +2,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
-#include <limits>
 #include <map>
-#include <numeric>
 
 #include "json/json_fields.hpp"
 #include "json/scenario_reader.hpp"
@@ -410,7 +408,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             if (*indoor_c - outdoor_c < 5)
                 throw input_error("/demand/design_outdoor", "the design outdoor temperature must be at least 5 K below indoor (" +
                                                                 temp_text(*indoor_c) + "), got " + temp_text(outdoor_c));
-            ua = watts / (*indoor_c - outdoor_c);
+            ua = ua_from_design_heat_loss_w_per_k(watts, *indoor_c, outdoor_c);
             out.demand_trace.push_back("UA = design heat loss " + format_fixed(watts, 0) + " W / (" + temp_text(*indoor_c) + " - " +
                                        temp_text(outdoor_c) + ") = " + format_fixed(ua, 1) + " W/K" +
                                        (demand.contains("design_outdoor") ? "" : " (design outdoor temperature from the climate, 99 %)"));
@@ -427,7 +425,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             if (!indoor_c) throw input_error("/demand/indoor", "is required with internal_gains");
             const double gains = quantity_in(demand.at("internal_gains"), "/demand/internal_gains", dimension::power, "W");
             if (gains < 0) throw input_error("/demand/internal_gains/value", "must be >= 0");
-            out.balance_point_c = *indoor_c - gains / ua;
+            out.balance_point_c = balance_point_from_gains_c(*indoor_c, gains, ua);
             out.demand_trace.push_back("balance point = indoor " + temp_text(*indoor_c) + " - gains " + format_fixed(gains, 0) +
                                        " W / UA = " + temp_text(*out.balance_point_c));
         } else {
@@ -436,20 +434,19 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             warnings.push_back({"/demand/balance_point", "no balance point or internal gains given; using the climate's "
                                                          "degree-day base " + temp_text(out.climate->base_c)});
         }
-        const auto monthly = monthly_hdd(out.climate->model, *out.balance_point_c);
-        const double hdd = std::accumulate(monthly.begin(), monthly.end(), 0.0);
-        double space = ua * hdd * 24.0 / 1000.0;
-        out.demand_trace.push_back("annual space heat = UA x HDD x 24 h = " + format_fixed(ua, 1) + " W/K x " + format_fixed(hdd, 0) +
-                                   " K day (base " + temp_text(*out.balance_point_c) + ") x 24 h = " + format_fixed(space, 0) + " kWh");
-        if (const auto cd = optional_number(demand, "degree_day_correction", "/demand")) {
-            if (*cd <= 0 || *cd > 1.2)
-                throw input_error("/demand/degree_day_correction", "C_D must be from above 0 to 1.2, got " + format_number(*cd));
-            space *= *cd;
+        const auto cd = optional_number(demand, "degree_day_correction", "/demand");
+        if (cd && (*cd <= 0 || *cd > 1.2))
+            throw input_error("/demand/degree_day_correction", "C_D must be from above 0 to 1.2, got " + format_number(*cd));
+        const auto heat = degree_day_space_heat(out.climate->model, ua, *out.balance_point_c, cd.value_or(1.0));
+        out.demand_trace.push_back("annual space heat = UA x HDD x 24 h = " + format_fixed(ua, 1) + " W/K x " +
+                                   format_fixed(heat.hdd_k_day, 0) + " K day (base " + temp_text(*out.balance_point_c) +
+                                   ") x 24 h = " + format_fixed(heat.uncorrected_kwh, 0) + " kWh");
+        if (cd)
             out.demand_trace.push_back("x C_D " + format_number(*cd) +
                                        " (degree-day correction factor as entered; ASHRAE Handbook—Fundamentals (1985-1993 "
-                                       "editions) gives 0.6-0.8 for a 65 degF base, from memory) = " + format_fixed(space, 0) + " kWh");
-        }
-        out.space_heat_kwh = space;
+                                       "editions) gives 0.6-0.8 for a 65 degF base, from memory) = " +
+                                       format_fixed(heat.space_heat_kwh, 0) + " kWh");
+        out.space_heat_kwh = heat.space_heat_kwh;
         warn_unknown_keys(demand, {"method", "ua", "design_heat_loss", "indoor", "design_outdoor", "balance_point",
                                    "internal_gains", "degree_day_correction", "hot_water"},
                           "/demand", warnings);
@@ -550,9 +547,6 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         }
         for (std::size_t i = 0; i < bills.size(); ++i)
             require_bill_size(bills[i], list[i], equipment, "/demand/bills/" + std::to_string(i));
-        std::vector<std::size_t> order(bills.size());
-        std::iota(order.begin(), order.end(), 0);
-        std::sort(order.begin(), order.end(), [&](auto a, auto b) { return bills[a].first_day < bills[b].first_day; });
         // The date rule: meter reads (a bill covers end - start days; the next may start on its end day)
         // or inclusive (the end date is the bill's last day). A file without the rule whose periods never
         // share a day keeps its old meaning (inclusive).
@@ -560,10 +554,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         if (rule && *rule != "meter-reads" && *rule != "inclusive")
             throw input_error("/demand/bill_dates", "must be \"meter-reads\" (each bill runs from one meter read to the next) "
                                                     "or \"inclusive\" (the end date is the bill's last day), got \"" + *rule + "\"");
-        bool shared_day = false;
-        for (std::size_t k = 1; k < order.size(); ++k)
-            shared_day = shared_day || bills[order[k]].first_day <= bills[order[k - 1]].last_day;
-        const bool meter_reads = rule ? *rule == "meter-reads" : shared_day;
+        const bool meter_reads = rule ? *rule == "meter-reads" : bills_share_a_day(bills);
         if (meter_reads) {
             for (std::size_t i = 0; i < bills.size(); ++i) {
                 if (bills[i].last_day == bills[i].first_day)
@@ -580,10 +571,9 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
                         : std::string("bill dates read as inclusive: the end date is the bill's last day") +
                               (rule ? "" : " (no bill_dates given and no two bills share a day)"));
         const auto period_text = [&](std::size_t i) { return dates[i].start + " to " + dates[i].end; };
-        for (std::size_t k = 1; k < order.size(); ++k) {
-            const auto previous = order[k - 1], current = order[k];
-            const long overlap = bills[previous].last_day - bills[current].first_day + 1;
-            const long gap = bills[current].first_day - bills[previous].last_day - 1;
+        for (const auto& seam : bill_seams(bills)) {
+            const auto previous = seam.earlier, current = seam.later;
+            const long overlap = seam.overlap_days, gap = seam.gap_days;
             const std::string at = "/demand/bills/" + std::to_string(current) + "/start";
             if (overlap > 0)
                 throw input_error(at, "the bill of " + period_text(current) + " overlaps the bill of " + period_text(previous) +
@@ -603,21 +593,15 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         if (!observed.empty()) {
             for (std::size_t i = 0; i < bills.size(); ++i) {
                 auto& bill = bills[i];
-                std::vector<double> days;
-                long missing = 0;
-                for (long day = bill.first_day; day <= bill.last_day; ++day) {
-                    const auto found = observed.find(day);
-                    if (found == observed.end()) ++missing;
-                    else days.push_back(found->second);
-                }
-                const long length = bill.last_day - bill.first_day + 1;
+                auto cover = observed_days_of(bill, observed);
+                const long missing = cover.missing_days, length = cover.period_days;
                 const std::string path = "/demand/bills/" + std::to_string(i);
-                if (missing == 0 || (missing * 10 <= length && !days.empty())) {
+                if (cover.usable()) {
                     if (missing > 0)
                         warnings.push_back({path, "the observed weather lacks " + std::to_string(missing) + " of the " +
                                                       std::to_string(length) + " days of the bill of " + period_text(i) +
                                                       "; its degree-days are scaled up from the days observed"});
-                    bill.daily_mean_c = std::move(days);
+                    bill.daily_mean_c = std::move(cover.daily_mean_c);
                     bill.weather = bill_weather::observed_daily;
                 } else if (bill.weather != bill_weather::observed_period_mean) {
                     throw input_error(path, "the observed daily temperatures (/demand/observed) lack " + std::to_string(missing) +
@@ -634,21 +618,16 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
                     throw input_error("/demand/bills/" + std::to_string(i) + "/mean_temperature",
                                       "is needed on every bill once one bill has it (the bill of " + period_text(i) +
                                           " has none): a fit mixing observed and normal weather is biased");
-        long total_days = 0;
-        double total_kwh = 0;
-        for (const auto& b : bills) {
-            total_days += b.last_day - b.first_day + 1;
-            total_kwh += b.fuel_kwh;
-        }
+        const auto total = billed_total_of(bills);
         const double eta = efficiency.hhv_basis;
         out.fit_efficiency = eta;
         out.demand_trace.push_back("current equipment: " + equipment.fuel.name + ", " + efficiency.trace.front());
         if (bills.size() < 3) {
-            if (total_days < 300)
+            if (total.days < 300)
                 throw input_error("/demand/bills", "needs at least 3 bills to fit against the weather, or bills covering a "
                                                    "whole year; got " + std::to_string(bills.size()) + " covering " +
-                                                   std::to_string(total_days) + " days");
-            const double annual = total_kwh * 365.0 / total_days;
+                                                   std::to_string(total.days) + " days");
+            const double annual = total.annual_fuel_kwh();
             out.space_heat_kwh = annual * eta;
             warnings.push_back({"/demand/bills", "an annual total alone is not weather-normalised: a mild or a cold year "
                                                  "moves it directly"});
@@ -656,8 +635,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
                                        energy_text(out.space_heat_kwh) + " useful (hot water and cooking, if any, included)");
         } else {
             const bool f = out.climate->fahrenheit;
-            const double tau_low = f ? convert(40, "degF", "degC") : 5.0;
-            const double tau_high = f ? convert(75, "degF", "degC") : 24.0;
+            const auto [tau_low, tau_high] = prism_tau_range_c(f);
             const auto fit = fit_prism(bills, out.climate->model, tau_low, tau_high);
             out.fit = fit;
             out.fit_unit = "kWh";
@@ -681,21 +659,20 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
                                        " (HHV; standard error " + energy_text(fit.nac_standard_error_kwh) + ")");
             out.demand_trace.push_back("useful space heat = heating part x " + format_fixed(eta, 3) + " = " +
                                        energy_text(out.space_heat_kwh) + "; the base part (hot water, cooking) is not counted");
-            if (fit.r2 < 0.7)
+            const auto doubts = doubts_about(fit, tau_low, tau_high);
+            if (doubts.poor_fit)
                 warnings.push_back({"/demand/bills", "poor fit (R^2 = " + format_fixed(fit.r2, 2) + " < 0.7): the bills do not follow "
                                                      "the weather well; check the readings and the climate"});
-            if (fit.tau_c - tau_low < 0.5 || tau_high - fit.tau_c < 0.5)
+            if (doubts.tau_at_edge)
                 warnings.push_back({"/demand/bills",
                                     "the reference temperature the fit found, " + temp_text(fit.tau_c) + ", lies at the edge of "
                                     "the range searched (" + temp_text(tau_low) + " to " + temp_text(tau_high) + "): the bills "
                                     "do not show where heating starts, so the split between base use and heating is uncertain; "
                                     "bills from both winter and summer help"});
-            double least_hdd_per_day = std::numeric_limits<double>::infinity();
-            for (const auto& point : fit.points) least_hdd_per_day = std::min(least_hdd_per_day, point.first);
-            if (least_hdd_per_day > 1.0)
+            if (doubts.every_period_heated)
                 warnings.push_back({"/demand/bills",
                                     "every billing period needed heat (the warmest averaged " +
-                                        format_fixed(least_hdd_per_day / degree_size(f), 1) + (f ? " degF" : " K") +
+                                        format_fixed(doubts.least_hdd_per_day / degree_size(f), 1) + (f ? " degF" : " K") +
                                         " below the reference temperature a day), so the bills cannot tell the base use (hot "
                                         "water, cooking) from heating: the split between them, and the useful space heat, "
                                         "is uncertain; add summer bills"});
@@ -706,18 +683,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         if (bills.size() < 6)
             warnings.push_back({"/demand/bills", "fewer than 6 bills (" + std::to_string(bills.size()) +
                                                  "); 12 monthly bills give the most reliable fit"});
-        // A winter bill: one whose period touches one of the climate's three coldest months.
-        std::array<int, 12> by_cold{};
-        std::iota(by_cold.begin(), by_cold.end(), 0);
-        std::sort(by_cold.begin(), by_cold.end(),
-                  [&](int a, int b) { return out.climate->model.monthly_mean_c[a] < out.climate->model.monthly_mean_c[b]; });
-        bool winter = false;
-        for (const auto& b : bills)
-            for (long day = b.first_day; day <= b.last_day && !winter; ++day) {
-                const int m = month_of_day(day);
-                winter = m == by_cold[0] || m == by_cold[1] || m == by_cold[2];
-            }
-        if (!winter) warnings.push_back({"/demand/bills", "no bill covers the coldest months; the heating slope is uncertain"});
+        if (!bills_cover_coldest_months(bills, out.climate->model)) warnings.push_back({"/demand/bills", "no bill covers the coldest months; the heating slope is uncertain"});
         warn_unknown_keys(demand, {"method", "bills", "option", "fuel", "system", "balance_point", "hot_water", "bill_dates",
                                    "observed"},
                           "/demand", warnings);
