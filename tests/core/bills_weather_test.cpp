@@ -71,7 +71,11 @@ json bills_scenario(const std::vector<std::string>& reads, const std::vector<dou
                                       {"heating_value", {{"value", 100000}, {"unit", "Btu/therm"}, {"basis", "HHV"}}}}})}};
 }
 
-json evaluate(const json& scenario) { return json::parse(fw::evaluate_json(scenario.dump())); }
+/// The scenario's answer with every detail (trace, sources, bins): these tests read how figures were worked out.
+json evaluate(json scenario) {
+    scenario["detail"] = json::array({"all"});
+    return json::parse(fw::evaluate_json(scenario.dump()));
+}
 
 /// Twelve meter reads about a month apart, on the days a utility might read, from `year`-11-12.
 std::vector<std::string> meter_reads(int year) {

@@ -140,4 +140,27 @@ TEST(cli, a_batch_of_scenarios_one_per_line_answers_every_line_in_order) {
     EXPECT_EQ(bad.err, "fuelwright: --jobs: --jobs must be a whole number from 1 to 256, got \"0\"\n");
 }
 
+TEST(cli, evaluate_lists_details_on_request_and_explain_gives_one_options_account) {
+    const char* data = std::getenv("FUELWRIGHT_DATA_DIR");
+    ASSERT_NE(data, nullptr);
+    const std::string file = std::string(data) + "/examples/maple-hollow-heat-pump-bins.json";
+    const auto lean = nlohmann::json::parse(run_cli("evaluate '" + file + "'").out);
+    EXPECT_FALSE(lean.at("options").at(0).contains("trace"));
+    const auto traced = run_cli("evaluate '" + file + "' --detail trace,sources");
+    EXPECT_EQ(traced.exit_code, 0) << traced.err;
+    const auto with = nlohmann::json::parse(traced.out);
+    EXPECT_TRUE(with.at("options").at(0).contains("trace"));
+    EXPECT_TRUE(with.at("options").at(0).contains("sources"));
+    EXPECT_FALSE(with.at("options").at(1).contains("bins"));
+    const auto bad = run_cli("evaluate '" + file + "' --detail charts");
+    EXPECT_EQ(bad.exit_code, 2);
+    EXPECT_EQ(bad.err, "fuelwright: /detail/0: unknown detail charts; accepted: trace, sources, bins, all\n");
+    const auto explained = run_cli("explain '" + file + "' --option cold-climate-hp");
+    EXPECT_EQ(explained.exit_code, 0) << explained.err;
+    const auto account = nlohmann::json::parse(explained.out);
+    EXPECT_EQ(account.at("option").at("id"), "cold-climate-hp");
+    EXPECT_GT(account.at("option").at("bins").size(), 10u);
+    EXPECT_EQ(account.at("option").at("annual_cost"), lean.at("options").at(1).at("annual_cost"));
+}
+
 }  // namespace

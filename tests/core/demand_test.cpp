@@ -31,7 +31,11 @@ json scenario_with(const json& demand, const json& options = nullptr) {
             {"options", opts}};
 }
 
-json evaluate(const json& scenario) { return json::parse(fw::evaluate_json(scenario.dump())); }
+/// The scenario's answer with every detail (trace, sources, bins): these tests read how figures were worked out.
+json evaluate(json scenario) {
+    scenario["detail"] = json::array({"all"});
+    return json::parse(fw::evaluate_json(scenario.dump()));
+}
 
 double annual_hdd_c(double base_c) {
     const auto climate = json::parse(fw::climate_json(json{{"climate", {{"monthly_mean", mixed_climate["monthly_mean"]},

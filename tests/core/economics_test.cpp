@@ -176,7 +176,8 @@ TEST(economics, replacement_and_residual_value) {
 TEST(economics, a_system_without_a_life_gets_its_catalog_median_service_life) {
     // A heat pump lasts 15 years and a gas furnace 18 (ASHRAE Handbook HVAC Applications, median service lives,
     // from memory): within a 20-year period the heat pump is bought again at year 15 and is 5/15 used at the end.
-    const auto result = json::parse(fw::evaluate_json(switching_scenario({{"economics", {{"analysis_years", 20}}}}).dump()));
+    const auto result = json::parse(
+        fw::evaluate_json(switching_scenario({{"economics", {{"analysis_years", 20}}}, {"detail", {"trace"}}}).dump()));
     ASSERT_TRUE(result.at("errors").empty()) << result.dump();
     const auto& hp = option_of(result, "hp");
     EXPECT_EQ(hp.at("life_years"), 15);

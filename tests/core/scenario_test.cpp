@@ -18,7 +18,11 @@ json base_scenario(const json& options, double mmbtu = 60) {
             {"options", options}};
 }
 
-json evaluate(const json& scenario) { return json::parse(fw::evaluate_json(scenario.dump())); }
+/// The scenario's answer with every detail (trace, sources, bins): these tests read how figures were worked out.
+json evaluate(json scenario) {
+    scenario["detail"] = json::array({"all"});
+    return json::parse(fw::evaluate_json(scenario.dump()));
+}
 
 const json& option(const json& result, const std::string& id) {
     for (const auto& item : result.at("options"))

@@ -36,7 +36,11 @@ json scenario(const json& options, const json& settings = json::object()) {
     return s;
 }
 
-json evaluate(const json& s) { return json::parse(fw::evaluate_json(s.dump())); }
+/// The scenario's answer with every detail (trace, sources, bins): these tests read how figures were worked out.
+json evaluate(json scenario) {
+    scenario["detail"] = json::array({"all"});
+    return json::parse(fw::evaluate_json(scenario.dump()));
+}
 
 const json& option(const json& result, const std::string& id) {
     for (const auto& o : result.at("options"))

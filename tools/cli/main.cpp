@@ -28,7 +28,10 @@ commands:
   heating-value --mixture "CH4:0.95,C2H6:0.03,N2:0.02" [--fractions mole|mass] [--normalise] [--reference R]
   heating-value --ultimate "C:50.2,H:6.1,O:43.2,N:0.1,S:0,ash:0.4" [--moisture PCT] [--basis dry|as-received|daf]
                 [--hhv-dry MJ_PER_KG]
-  evaluate FILE                evaluate a scenario (FILE or - for standard input)
+  evaluate FILE [--detail trace,sources,bins|all]
+                               evaluate a scenario (FILE or - for standard input); the details say how each
+                               figure was worked out, from which data, and the temperature bins
+  explain FILE [--option ID]   the full account of one option (trace, sources, bins) and of the heat need
   evaluate --ndjson [--jobs N] FILE
                                one scenario per line in, one answer per line out (with its "line"), N at once
   break-even FILE --a ID --b ID --vary price|efficiency|demand [--of ID] [--basis annual|life-cycle]
@@ -139,6 +142,42 @@ int file_command(const std::vector<std::string>& args, const char* name, std::st
     const auto text = read_input(args[0]);
     if (!text) return usage_error(args[0], "cannot read file \"" + args[0] + "\"");
     return finish(entry(*text));
+}
+
+/// `evaluate FILE [--detail trace,sources,bins|all]`: the scenario's answer, with the details listed
+/// (the flag's list replaces any "detail" in the file).
+int evaluate_command(const std::vector<std::string>& args) {
+    std::string name, detail;
+    bool detail_given = false;
+    for (std::size_t i = 0; i < args.size(); ++i) {
+        if (args[i] == "--detail" && i + 1 < args.size()) {
+            detail = args[++i];
+            detail_given = true;
+        } else if (name.empty() && (args[i] == "-" || args[i].rfind("--", 0) != 0)) {
+            name = args[i];
+        } else {
+            return usage_error(args[i], "unknown option for evaluate; accepted: --detail LIST, --ndjson, --jobs N and one FILE (or -)");
+        }
+    }
+    if (name.empty()) return usage_error("", "evaluate takes one FILE (or - for standard input)");
+    const auto text = read_input(name);
+    if (!text) return usage_error(name, "cannot read file \"" + name + "\"");
+    if (!detail_given) return finish(fw::evaluate_json(*text));
+    json scenario;
+    try {
+        scenario = json::parse(*text);
+    } catch (const json::parse_error&) {
+        return finish(fw::evaluate_json(*text));  // reports the malformed JSON with line and column
+    }
+    if (!scenario.is_object()) return finish(fw::evaluate_json(*text));
+    json list = json::array();
+    for (std::size_t start = 0; start <= detail.size();) {
+        const auto end = std::min(detail.find(',', start), detail.size());
+        if (end > start) list.push_back(detail.substr(start, end - start));
+        start = end + 1;
+    }
+    scenario["detail"] = list;
+    return finish(fw::evaluate_json(scenario.dump(-1, ' ', false, json::error_handler_t::replace)));
 }
 
 /// `evaluate --ndjson [--jobs N] FILE|-`: one scenario per line in, one answer per line out, in input
@@ -295,7 +334,8 @@ int main(int argc, char** argv) {
     if (command == "convert") return convert_command(rest);
     if (command == "units") return finish(fw::units_json());
     if (command == "evaluate" && std::find(rest.begin(), rest.end(), "--ndjson") != rest.end()) return evaluate_batch(rest);
-    if (command == "evaluate") return file_command(rest, "evaluate", fw::evaluate_json);
+    if (command == "evaluate") return evaluate_command(rest);
+    if (command == "explain") return analysis_command(rest, "explain", {{"--option", false}}, fw::explain_json);
     if (command == "climate") return file_command(rest, "climate", fw::climate_json);
     if (command == "check-prices") return check_prices_command(rest);
     if (command == "weather") return weather_command(rest);

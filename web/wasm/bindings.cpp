@@ -15,6 +15,7 @@ std::string heating_value(const std::string& request) { return fw::heating_value
 std::string convert(const std::string& request) { return fw::convert_json(request); }
 std::string units() { return fw::units_json(); }
 std::string evaluate(const std::string& scenario) { return fw::evaluate_json(scenario); }
+std::string explain(const std::string& request) { return fw::explain_json(request); }
 std::string catalog() { return fw::catalog_json(); }
 std::string climate(const std::string& request) { return fw::climate_json(request); }
 std::string break_even(const std::string& request) { return fw::break_even_json(request); }
@@ -39,6 +40,7 @@ EMSCRIPTEN_BINDINGS(fuelwright_core) {
     emscripten::function("convert", &convert);
     emscripten::function("units", &units);
     emscripten::function("evaluate", &evaluate);
+    emscripten::function("explain", &explain);
     emscripten::function("catalog", &catalog);
     emscripten::function("climate", &climate);
     emscripten::function("breakEven", &break_even);

@@ -20,8 +20,15 @@ std::string convert_json(const std::string& request_json) noexcept;
 std::string units_json() noexcept;
 
 /// Evaluates a scenario (data/schema/scenario.schema.json): per option the fuel used in its sale
-/// unit, annual cost, cost of useful heat, emissions and a trace; a ranking; errors[] and warnings[].
+/// unit, annual cost, cost of useful heat and emissions; a ranking; errors[] and warnings[]. What the
+/// scenario's "detail" list asks for comes too: "trace" (how each figure was worked out), "sources"
+/// (the data records used), "bins" (heat pumps' and the climate's temperature bins), or "all".
 std::string evaluate_json(const std::string& scenario_json) noexcept;
+
+/// The full account of one option: {"scenario": {...}, "option": id} -> {"option": the option's answer
+/// with trace, sources and bins, "demand" and "climate" with theirs, errors[], warnings[]}; without
+/// "option", the heat need's account alone. The scenario's Monte Carlo is not run.
+std::string explain_json(const std::string& request_json) noexcept;
 
 /// evaluate_json with a progress callback for the Monte Carlo: called with the fraction done
 /// (0..1) about 100 times; returning false cancels (the result then says so).

@@ -17,13 +17,39 @@ using namespace json_fields;
 
 namespace {
 
+/// What an evaluation answer carries beyond the verdict and the sheet: the request's "detail" list.
+struct answer_detail {
+    bool trace = false;    ///< how each figure was worked out (options, demand, climate)
+    bool sources = false;  ///< the data records each option used, with citations
+    bool bins = false;     ///< each heat pump's temperature bins and the climate's hourly bins
+};
+
+/// Reads `detail`: a list of "trace", "sources", "bins" or "all"; absent is none of them.
+answer_detail read_detail(const json& document) {
+    answer_detail detail;
+    if (!document.is_object() || !document.contains("detail")) return detail;
+    const auto& list = document.at("detail");
+    if (!list.is_array()) throw input_error("/detail", "must be a list of \"trace\", \"sources\", \"bins\" or \"all\"");
+    for (std::size_t i = 0; i < list.size(); ++i) {
+        const std::string text = list[i].is_string() ? list[i].get<std::string>() : list[i].dump();
+        if (text == "trace" || text == "all") detail.trace = true;
+        if (text == "sources" || text == "all") detail.sources = true;
+        if (text == "bins" || text == "all") detail.bins = true;
+        if (text != "trace" && text != "sources" && text != "bins" && text != "all")
+            throw input_error("/detail/" + std::to_string(i),
+                              "unknown detail " + text + (list[i].is_string() ? "" : " (not a text)") +
+                                  "; accepted: trace, sources, bins, all");
+    }
+    return detail;
+}
+
 json sources_json(const std::vector<source_note>& notes) {
     auto list = json::array();
     for (const auto& note : notes) list.push_back({{"record", note.record}, {"value", note.value}, {"citation", note.citation}});
     return list;
 }
 
-json option_json(const option_result& r, const scenario& input) {
+json option_json(const option_result& r, const scenario& input, const answer_detail& detail) {
     const double kwh_per_mmbtu = convert(1, "MMBtu", "kWh");
     const double kwh_per_gj = convert(1, "GJ", "kWh");
     json out = {{"id", r.id},
@@ -50,9 +76,9 @@ json option_json(const option_result& r, const scenario& input) {
             {"n2o_kg", r.n2o_kg},
             {"auxiliary_kwh", r.auxiliary_kwh},
             {"auxiliary_cost", r.auxiliary_cost},
-            {"kept_services_cost", r.kept_services_cost},
-            {"trace", r.trace},
-            {"sources", sources_json(r.sources)}};
+            {"kept_services_cost", r.kept_services_cost}};
+    if (detail.trace) out["trace"] = r.trace;
+    if (detail.sources) out["sources"] = sources_json(r.sources);
     if (r.season) {
         const bool f = input.climate->fahrenheit;
         const std::string unit = f ? "degF" : "degC";
@@ -77,6 +103,7 @@ json option_json(const option_result& r, const scenario& input) {
         }
         out["bin_cop_range"] = {r.season->lowest_bin_cop, r.season->highest_bin_cop};
         // The bins where the house needs heat (below the balance point); result.climate.bins has them all.
+        if (!detail.bins) return out;
         json bins = json::array();
         for (const auto& bin : r.season->bins)
             if (bin.load_kw > 0) bins.push_back({{"t", convert(bin.t_c, "degC", unit)},
@@ -94,12 +121,12 @@ json option_json(const option_result& r, const scenario& input) {
     return out;
 }
 
-json demand_result(const scenario& input) {
+json demand_result(const scenario& input, const answer_detail& detail) {
     json out = {{"method", input.demand_method},
                 {"annual_useful_heat_kwh", input.annual_useful_heat_kwh},
                 {"space_heat_kwh", input.space_heat_kwh},
-                {"hot_water_kwh", input.hot_water_kwh},
-                {"trace", input.demand_trace}};
+                {"hot_water_kwh", input.hot_water_kwh}};
+    if (detail.trace) out["trace"] = input.demand_trace;
     const bool f = input.climate ? input.climate->fahrenheit : input.settings.units == unit_system::us;
     const std::string unit = f ? "degF" : "degC";
     if (input.balance_point_c)
@@ -133,7 +160,7 @@ json demand_result(const scenario& input) {
 }
 
 /// Climate results in the input's temperature unit.
-json climate_result(const climate_info& info) {
+json climate_result(const climate_info& info, const answer_detail& detail) {
     const std::string unit = info.fahrenheit ? "degF" : "degC";
     const double per_k = info.fahrenheit ? 9.0 / 5.0 : 1.0;
     const auto t = [&](double c) { return convert(c, "degC", unit); };
@@ -152,20 +179,21 @@ json climate_result(const climate_info& info) {
         bins.push_back({{"t", t(bin.t_c)}, {"hours", bin.hours}});
         hours += bin.hours;
     }
-    return {{"unit", unit},
-            {"base", {{"value", t(info.base_c)}, {"unit", unit}}},
-            {"monthly_mean", means},
-            {"monthly_sd", sd},
-            {"monthly_hdd", hdd},
-            {"annual_hdd", annual},
-            {"bins", bins},
-            {"bin_width", info.bin_width_k * per_k},
-            {"bins_from", info.bins_from_data ? "data" : "model"},
-            {"bin_hours_total", hours},
-            {"design_temperature_99", t(info.design_99_c)},
-            {"design_temperature_996", t(info.design_996_c)},
-            {"daily_range", info.model.daily_range_k * per_k},
-            {"trace", info.model.trace}};
+    json out = {{"unit", unit},
+                {"base", {{"value", t(info.base_c)}, {"unit", unit}}},
+                {"monthly_mean", means},
+                {"monthly_sd", sd},
+                {"monthly_hdd", hdd},
+                {"annual_hdd", annual},
+                {"bin_width", info.bin_width_k * per_k},
+                {"bins_from", info.bins_from_data ? "data" : "model"},
+                {"bin_hours_total", hours},
+                {"design_temperature_99", t(info.design_99_c)},
+                {"design_temperature_996", t(info.design_996_c)},
+                {"daily_range", info.model.daily_range_k * per_k}};
+    if (detail.bins) out["bins"] = bins;
+    if (detail.trace) out["trace"] = info.model.trace;
+    return out;
 }
 
 json nullable(const std::optional<double>& value) { return value ? json(*value) : json(nullptr); }
@@ -190,11 +218,18 @@ void add_economics(json& out, const option_economics& x) {
     if (x.life_years) out["life_years_from"] = x.life_from_catalog ? "catalog" : "entered";
     out["co2e_saved_kg_life"] = nullable(x.co2e_saved_kg_life);
     out["cost_per_tonne_co2e_avoided"] = nullable(x.cost_per_tonne_co2e_avoided);
-    for (const auto& line : x.trace) out["trace"].push_back(line);
+    if (out.contains("trace"))
+        for (const auto& line : x.trace) out["trace"].push_back(line);
 }
 
 json evaluate(const json& document, const std::function<bool(double)>& progress) {
     std::vector<issue> errors, warnings;
+    answer_detail detail;
+    try {
+        detail = read_detail(document);
+    } catch (const input_error& error) {
+        errors.push_back({error.path(), error.message()});
+    }
     const auto input = read_scenario(document, errors, warnings);
     const auto verdict = judge(input, errors.empty(), progress);
     const auto& evaluated = verdict.evaluated;
@@ -203,7 +238,7 @@ json evaluate(const json& document, const std::function<bool(double)>& progress)
     json options = json::array();
     for (std::size_t i = 0; i < results.size(); ++i) {
         for (const auto& w : results[i].warnings) warnings.push_back({evaluated.options[i]->path, w});
-        options.push_back(option_json(results[i], input));
+        options.push_back(option_json(results[i], input, detail));
     }
     json ranking = json::array();
     for (std::size_t rank = 0; rank < verdict.by_annual_cost.size(); ++rank) {
@@ -215,9 +250,9 @@ json evaluate(const json& document, const std::function<bool(double)>& progress)
                      {"electricity_co2e_kg_per_kwh", input.settings.electricity_co2e_kg_per_kwh},
                      {"gwp", input.settings.gwp}};
     json out = {{"schema", "fuelwright.result/1"},
-                {"climate", input.climate ? climate_result(*input.climate) : json(nullptr)},
+                {"climate", input.climate ? climate_result(*input.climate, detail) : json(nullptr)},
                 {"settings", settings},
-                {"demand", demand_result(input)},
+                {"demand", demand_result(input, detail)},
                 {"options", options},
                 {"ranking", ranking}};
     if (verdict.economics) {
@@ -264,6 +299,34 @@ json evaluate(const json& document, const std::function<bool(double)>& progress)
     return out;
 }
 
+/// The full account of one option and of the heat need (or of the heat need alone, without "option"): the
+/// scenario evaluated with every detail and without its Monte Carlo, whose draws change no trace. Errors in the scenario keep its "/scenario" prefix.
+json explain(const json& request) {
+    require_object(request, "");
+    if (!request.contains("scenario")) throw input_error("/scenario", "is required (the scenario to explain)");
+    require_object(request.at("scenario"), "/scenario");
+    const auto option_id = optional_string(request, "option", "");
+    json scenario = request.at("scenario");
+    scenario.erase("uncertainty");
+    scenario["detail"] = json::array({"all"});
+    json full = evaluate(scenario, nullptr);
+    json errors = json::array();
+    for (auto error : full.at("errors")) {
+        error["path"] = "/scenario" + error.at("path").get<std::string>();
+        errors.push_back(error);
+    }
+    json out = {{"schema", "fuelwright.explanation/1"}, {"demand", full.at("demand")}, {"climate", full.at("climate")}};
+    if (option_id) {
+        const auto& options = full.at("options");
+        const auto found = std::find_if(options.begin(), options.end(), [&](const json& o) { return o.at("id") == *option_id; });
+        if (found != options.end()) out["option"] = *found;
+        else if (errors.empty()) errors.push_back({{"path", "/option"}, {"message", "no option has id \"" + *option_id + "\""}});
+    }
+    out["errors"] = errors;
+    out["warnings"] = full.at("warnings");
+    return out;
+}
+
 json fuel_json(const fuel_record& fuel) {
     json units = json::array();
     for (const auto& unit : fuel.sale_units) {
@@ -307,10 +370,15 @@ std::string evaluate_json_with_progress(const std::string& scenario_json,
     return guarded_entry(scenario_json, [&](const json& document, std::vector<issue>&) { return evaluate(document, progress); });
 }
 
+std::string explain_json(const std::string& request_json) noexcept {
+    return guarded_entry(request_json, [](const json& request, std::vector<issue>&) { return explain(request); });
+}
+
 std::string climate_json(const std::string& request_json) noexcept {
     return guarded_entry(request_json, [](const json& request, std::vector<issue>& warnings) {
         require_object(request, "");
-        return climate_result(read_climate(request.contains("climate") ? request.at("climate") : request, warnings));
+        return climate_result(read_climate(request.contains("climate") ? request.at("climate") : request, warnings),
+                              answer_detail{true, true, true});
     });
 }
 

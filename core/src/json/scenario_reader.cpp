@@ -751,7 +751,7 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
         if (document.contains("results") && !document.at("results").is_object())
             throw input_error("/results", "must be an object (the verdict as exported)");
         warn_unknown_keys(document, {"schema", "title", "description", "quote", "settings", "demand", "options", "climate",
-                                     "economics", "uncertainty", "other_fuels", "results"},
+                                     "economics", "uncertainty", "other_fuels", "results", "detail"},
                           "", warnings);
     });
     if (!errors.empty()) return out;
