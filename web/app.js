@@ -32,8 +32,7 @@ import { renderLab } from './views/lab.js';
 import { renderQuotes } from './views/quotes.js';
 import { DUAL_FUEL_CHOICE, KIND_NAMES, renderSystems } from './views/systems.js';
 import { FUEL_BURNING_KINDS, billedSystemId, dualFuelSystem, efficiencyFor } from './equipment.js';
-import { openTrace } from './views/trace.js';
-import { bindVerdict, rankedOptions, renderVerdict, resultsCsv, showDrawProgress } from './views/verdict.js';
+import { bindVerdict, openHeatNeedTrace, rankedOptions, renderVerdict, resultsCsv, showDrawProgress } from './views/verdict.js';
 
 const ANALYSIS_DEBOUNCE_MS = 350;
 /** The saved record of the demo quote (one, however often it is loaded). */
@@ -1025,7 +1024,7 @@ const ACTIONS = {
     download(`${fileStem(store.state)}.json`, 'application/json', `${JSON.stringify(exportDocument(store.state, answering), null, 2)}\n`);
   },
   print: () => { paintSheet(); window.print(); },
-  'climate-trace': () => openTrace({ title: 'Climate and heat need', trace: [...(verdict.result?.climate?.trace ?? []), ...(verdict.result?.demand?.trace ?? [])] }),
+  'climate-trace': () => openHeatNeedTrace(verdict, ctx, 'Climate and heat need'),
   'new-quote': () => {
     const ws = blankWorkspace({ units: store.state.settings.units, currency: store.state.settings.currency });
     ws.quote = freshQuote(undefined);

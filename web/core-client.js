@@ -77,6 +77,8 @@ export class CoreClient {
   convert(request) { return this.call('convert', request); }
   units() { return this.call('units'); }
   evaluate(scenario, options) { return this.call('evaluate', scenario, options); }
+  /** One option's full account (trace, sources, bins) and the heat need's: {scenario, option?} (the core's explain()). */
+  explain(request) { return this.call('explain', request); }
   catalog() { return this.call('catalog'); }
   /** Degree-days, bins and design temperatures of a climate (the core's climate()). */
   climate(request) { return this.call('climate', request); }

@@ -47,6 +47,7 @@ const EXPORTS = {
   convert: { takesRequest: true },
   units: { takesRequest: false },
   evaluate: { takesRequest: true },
+  explain: { takesRequest: true },
   catalog: { takesRequest: false },
   climate: { takesRequest: true },
   weather: { takesRequest: true },

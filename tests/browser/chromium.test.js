@@ -219,6 +219,9 @@ describe('Chromium, tablet portrait 820x1180 with touch', () => {
     const cli = cliDemo ?? await cliEvaluate(await demoScenario());
     const hp = cli.options.find((o) => Array.isArray(o.bins));
     assert.ok(hp, 'the demo has a heat pump on bins');
+    // the verdict is lean: the chart is drawn from the option's account when its disclosure opens
+    assert.equal(await page.locator(`#bins-${hp.id} svg`).count(), 0);
+    await page.tap(`#bins-chart-${hp.id} summary`);
     await page.waitForSelector(`#bins-${hp.id} svg path.capacity`);
     const backupBins = hp.bins.filter((b) => b.hours >= 1 && b.load_kw > 0 && b.backup_heat_kwh > 0).length;
     assert.equal(await page.locator(`#bins-${hp.id} svg rect.backup`).count(), backupBins);

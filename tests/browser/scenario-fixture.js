@@ -59,7 +59,7 @@ export function typedScenario({ gasPrice = 1.25, units = 'us', currency = 'USD',
 /** Runs `fuelwright evaluate -` on a scenario; resolves to the parsed result. */
 export function cliEvaluate(scenario) {
   return new Promise((resolve, reject) => {
-    const child = spawn(cliPath, ['evaluate', '-'], { stdio: ['pipe', 'pipe', 'pipe'] });
+    const child = spawn(cliPath, ['evaluate', '-', '--detail', 'all'], { stdio: ['pipe', 'pipe', 'pipe'] });
     let out = '';
     child.stdout.on('data', (chunk) => { out += chunk; });
     child.stderr.resume();

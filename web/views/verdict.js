@@ -49,14 +49,38 @@ const ECONOMIC_LABELS = {
   lcoh: 'Levelized cost of heat', co2e_saved_t: 'CO2e avoided over the period', cost_per_tonne_co2e_avoided: 'Cost per tonne of CO2e avoided',
 };
 
-function showOptionTrace(option, ctx, key) {
+/**
+ * The core's full account of one option (or, without an id, of the heat need) for the scenario the verdict
+ * shows: the evaluation is lean, so traces, sources and bins are asked for when the user opens one, once per
+ * scenario and option. Resolves to null when the core cannot give it.
+ */
+export function accountOf(state, ctx, optionId = '') {
+  if (!state.key) return Promise.resolve(null);
+  if (state.accounts?.key !== state.key) state.accounts = { key: state.key, byOption: new Map() };
+  const known = state.accounts.byOption.get(optionId);
+  if (known) return known;
+  const request = { scenario: JSON.parse(state.key), ...(optionId ? { option: optionId } : {}) };
+  const promise = ctx.core.explain(request).then((account) => (account?.errors?.length ? null : account), () => null);
+  state.accounts.byOption.set(optionId, promise);
+  return promise;
+}
+
+/** The heat need's trace lines: how the demand and the climate were worked out. */
+async function heatNeedTrace(state, ctx) {
+  const account = await accountOf(state, ctx);
+  return [...(account?.demand?.trace ?? []), ...(account?.climate?.trace ?? [])];
+}
+
+async function showOptionTrace(state, option, ctx, key) {
+  const account = await accountOf(state, ctx, option.id);
+  const full = account?.option ?? option;
   const lines = [];
   if (isNum(option.seasonal_cop)) lines.push(`seasonal COP ${ctx.format.number(option.seasonal_cop, 3)}`);
   const extra = [];
   const reason = key === 'simple_payback_years' ? option.simple_payback_reason : key === 'discounted_payback_years' ? option.discounted_payback_reason : null;
   if (reason) extra.push(h('p', { class: 'lead', id: 'trace-reason', text: `${ECONOMIC_LABELS[key]}: ${reason}.` }));
-  openTrace({ title: option.label ?? option.id, subtitle: `${option.fuel_name ?? option.fuel}`, trace: [...(option.trace ?? []), ...lines],
-    sources: option.sources ?? [], extra });
+  openTrace({ title: option.label ?? option.id, subtitle: `${option.fuel_name ?? option.fuel}`, trace: [...(full.trace ?? []), ...lines],
+    sources: full.sources ?? [], extra });
 }
 
 /** Whether the verdict shows the costs over the years: asked for on the page, and worked out by the core. */
@@ -402,20 +426,46 @@ function tornadoSection(result, ctx, analysis) {
 /** The bins worth drawing: an hour or more a year, and a load to meet. */
 const heatingBins = (bins) => bins.filter((b) => (b.hours ?? 0) >= 1 && (b.load_kw ?? 0) > 0);
 
-function binsSection(result, ws, ctx) {
-  const hp = (result.options ?? []).filter((o) => Array.isArray(o.bins) && o.bins.length);
+/** The chart of one heat pump's bins (from its account: the lean verdict carries none). */
+function binsChartOf(option, result, ws, ctx) {
+  const want = ws.settings.units === 'us' ? 'degF' : 'degC';
+  const from = result.climate?.unit ?? ws.climate.unit ?? want;
+  const bins = heatingBins(option.bins);
+  return binsChart(bins.length ? bins : option.bins, { tempLabel: unitLabel(want), toTemp: (t) => convertTemperature(t, from, want),
+    number: (v) => ctx.format.number(v, 3), title: `Heat pump ${option.label ?? option.id} over temperature bins`,
+    // a US quote's capacities are typed in Btu/h: the chart says them so (1 kW = 1000 / (1055.05585262 / 3600) Btu/h)
+    ...(ws.settings.units === 'us' ? { powerLabel: 'Btu/h', kwTo: 1000 / POWER_W['Btu/h'] } : {}) });
+}
+
+/** Draws an opened bins disclosure's chart from the option's account, once per scenario. */
+async function fillBinsChart(details, state, ctx) {
+  const slot = details.querySelector('.bins-chart-body');
+  if (!slot || slot.dataset.key === state.key) return;
+  slot.dataset.key = state.key;
+  const key = state.key;
+  const option = (await accountOf(state, ctx, details.dataset.option))?.option;
+  if (state.key !== key || !state.result) return;
+  slot.replaceChildren(Array.isArray(option?.bins) && option.bins.length
+    ? binsChartOf(option, state.result, ctx.store.state, ctx)
+    : h('p', { class: 'hint', text: 'The chart could not be worked out for these entries.' }));
+}
+
+function binsSection(result, ws, ctx, state) {
+  const hp = (result.options ?? []).filter((o) => isNum(o.seasonal_cop));
   if (!hp.length) return null;
   const want = ws.settings.units === 'us' ? 'degF' : 'degC';
   const from = result.climate?.unit ?? ws.climate.unit ?? want;
+  state.binsOpen ??= new Set();
   return hp.map((o) => {
-    const bins = heatingBins(o.bins);
     const backupName = o.backup_option ? (result.options.find((x) => x.id === o.backup_option)?.label ?? o.backup_option) : 'resistance strips';
+    const open = state.binsOpen.has(o.id);
+    const details = h('details', { class: 'bins-chart', id: `bins-chart-${o.id}`, dataset: { option: o.id }, ...(open ? { open: '' } : {}) },
+      h('summary', { text: 'Chart by outdoor temperature' }),
+      h('div', { class: 'bins-chart-body' }, h('p', { class: 'hint', text: 'Working out…' })));
+    if (open) queueMicrotask(() => fillBinsChart(details, state, ctx));
     return h('section', { class: 'chart-card bins', id: `bins-${o.id}` },
       h('h3', { text: `${o.label ?? o.id}: performance by outdoor temperature` }),
-      binsChart(bins.length ? bins : o.bins, { tempLabel: unitLabel(want), toTemp: (t) => convertTemperature(t, from, want), number: (v) => ctx.format.number(v, 3),
-        title: `Heat pump ${o.label ?? o.id} over temperature bins`,
-        // a US quote's capacities are typed in Btu/h: the chart says them so (1 kW = 1000 / (1055.05585262 / 3600) Btu/h)
-        ...(ws.settings.units === 'us' ? { powerLabel: 'Btu/h', kwTo: 1000 / POWER_W['Btu/h'] } : {}) }),
+      details,
       h('p', { class: 'hint' },
         isNum(o.seasonal_cop) ? ['Seasonal COP ', traceButton('bins', o.seasonal_cop, ctx.format.number(o.seasonal_cop, 3), 'Seasonal COP', { option: o.id }), '. '] : null,
         isNum(o.backup_share) ? `The backup (${backupName}) supplies ${ctx.format.percent(o.backup_share, 1)} of the heat. ` : '',
@@ -625,9 +675,7 @@ export function renderVerdict(container, ctx, state, { kiosk = false } = {}) {
     const shown = [ctx.format, ws.settings.currency, ws.settings.units, labels];
     if (ws.fuels.length && !kiosk) parts.push(keep('sweep', [state.analysis, fuels, ...shown], () => sweepSection(result, ws, ctx, state.analysis)));
     if (!kiosk) parts.push(keep('tornado', [state.analysis, ...shown], () => tornadoSection(result, ctx, state.analysis)));
-    const bins = (result.options ?? []).filter((o) => Array.isArray(o.bins)).map((o) => JSON.stringify([o.bins, o.seasonal_cop, o.backup_share,
-      o.changeover, o.bin_cop_range, o.hours_below_balance_point, o.backup_option])).join('\u0001');
-    parts.push(keep('bins', [bins, result.climate?.unit, ...shown], () => binsSection(result, ws, ctx)));
+    parts.push(keep('bins', [state.key, result, ...shown], () => binsSection(result, ws, ctx, state)));
     parts.push(billsSection(result, ctx, ws));
     if (!kiosk) parts.push(keep('draws', [state.mc, state.mc?.state, ws.uncertainty?.enabled, ...shown], () => uncertaintySection(result, ws, ctx, state.mc)));
   }
@@ -693,8 +741,8 @@ function tornadoTrace(state, ctx, button) {
   ] });
 }
 
-function binsTrace(state, ctx, button) {
-  const option = state.result?.options?.find((o) => o.id === button.dataset.option);
+async function binsTrace(state, ctx, button) {
+  const option = (await accountOf(state, ctx, button.dataset.option))?.option;
   if (!option) return;
   const { format } = ctx;
   const ws = ctx.store.state;
@@ -727,13 +775,29 @@ function uncertaintyTrace(state, ctx, button) {
   ] });
 }
 
-function billsTrace(state) {
-  const d = state.result?.demand;
-  openTrace({ title: 'Heat need from past bills', trace: [...(d?.trace ?? []), ...(state.result?.climate?.trace ?? [])] });
+async function billsTrace(state, ctx) {
+  openTrace({ title: 'Heat need from past bills', trace: await heatNeedTrace(state, ctx) });
 }
 
-/** Handles taps on the verdict's numbers. */
+/** Opens the heat need's trace: how the demand and the climate were worked out. */
+export async function openHeatNeedTrace(state, ctx, title = 'Heat the house needs') {
+  openTrace({ title, trace: await heatNeedTrace(state, ctx) });
+}
+
+/** Handles taps on the verdict's numbers, and draws a heat pump's chart when its disclosure opens. */
 export function bindVerdict(container, ctx, getState) {
+  container.addEventListener('toggle', (event) => {
+    const details = event.target;
+    if (!(details instanceof HTMLDetailsElement) || !details.classList.contains('bins-chart')) return;
+    const state = getState();
+    state.binsOpen ??= new Set();
+    if (details.open) {
+      state.binsOpen.add(details.dataset.option);
+      fillBinsChart(details, state, ctx);
+    } else {
+      state.binsOpen.delete(details.dataset.option);
+    }
+  }, true);
   container.addEventListener('click', (event) => {
     const traced = event.target.closest('button[data-trace]');
     if (traced) {
@@ -743,18 +807,18 @@ export function bindVerdict(container, ctx, getState) {
       else if (kind === 'tornado') tornadoTrace(state, ctx, traced);
       else if (kind === 'bins') binsTrace(state, ctx, traced);
       else if (kind === 'uncertainty') uncertaintyTrace(state, ctx, traced);
-      else if (kind === 'bills') billsTrace(state);
+      else if (kind === 'bills') billsTrace(state, ctx);
       return;
     }
     const button = event.target.closest('button.num');
     if (!button) return;
-    const { result } = getState();
+    const state = getState();
     if (button.dataset.key === 'annual_useful_heat') {
-      openTrace({ title: 'Heat the house needs', trace: [...(result?.demand?.trace ?? []), ...(result?.climate?.trace ?? [])] });
+      openHeatNeedTrace(state, ctx);
       return;
     }
-    const option = result?.options?.find((o) => o.id === button.dataset.option);
-    if (option) showOptionTrace(option, ctx, button.dataset.key);
+    const option = state.result?.options?.find((o) => o.id === button.dataset.option);
+    if (option) showOptionTrace(state, option, ctx, button.dataset.key);
   });
 }
 
