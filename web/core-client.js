@@ -88,6 +88,8 @@ export class CoreClient {
   breakEven(request, options) { return this.call('breakEven', request, options); }
   /** Every option's cost over a range of one input: {scenario, vary, of, from, to, points, basis}. */
   sweep(request, options) { return this.call('sweep', request, { timeoutMs: 60_000, ...options }); }
+  /** Every option's cost and the ranking with one input set to a value: {scenario, vary, of, value, basis} (the core's whatIf). */
+  whatIf(request, options) { return this.call('whatIf', request, options); }
   /** The winner's margin for -/+ change on each input: {scenario, basis, change}. */
   tornado(request, options) { return this.call('tornado', request, { timeoutMs: 60_000, ...options }); }
   /** Checks a supplier price file's text against today's date (YYYY-MM-DD). */

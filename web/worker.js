@@ -54,6 +54,7 @@ const EXPORTS = {
   breakEven: { takesRequest: true },
   sweep: { takesRequest: true },
   tornado: { takesRequest: true },
+  whatIf: { takesRequest: true },
   checkPrices: { run: checkPrices },
   evaluateWithProgress: { run: evaluateWithProgress },
 };

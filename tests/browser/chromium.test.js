@@ -215,6 +215,40 @@ describe('Chromium, tablet portrait 820x1180 with touch', () => {
     assert.deepEqual(consoleErrors, []);
   });
 
+  test('the what-if slider, dragged, ranks the options as the CLI\'s what-if does at that value', { timeout: TIMEOUT }, async () => {
+    const scenario = await demoScenario();
+    const file = join(ARTIFACTS, 'demo-scenario.json');
+    writeFileSync(file, JSON.stringify(scenario));
+    await page.locator('#what-if').scrollIntoViewIfNeeded();
+    await page.selectOption('#what-if-input', 'price:electricity');
+    const box = await page.locator('#what-if-range').boundingBox();
+    const before = Number(await page.getAttribute('#what-if', 'data-paints'));
+    // a finger's drag from a tenth to seven tenths of the way
+    await page.mouse.move(box.x + box.width * 0.1, box.y + box.height / 2);
+    await page.mouse.down();
+    await page.mouse.move(box.x + box.width * 0.7, box.y + box.height / 2, { steps: 12 });
+    await page.mouse.up();
+    const value = await page.evaluate(async () => {
+      const { valueAt, whatIfInputs } = await import('./what-if.js');
+      const { toScenario } = await import('./scenario.js');
+      const { demoWorkspace } = await import('./demo.js');
+      const input = whatIfInputs(toScenario(demoWorkspace())).find((i) => i.key === 'price:electricity');
+      return valueAt(input, Number(document.querySelector('#what-if-range').value));
+    });
+    const { json: cli } = await cliJson('what-if', file, '--vary', 'price', '--of', 'electricity', '--value', String(value));
+    assert.deepEqual(cli.errors, []);
+    await page.waitForFunction((want) => [...document.querySelectorAll('#what-if-ranking li')].map((li) => li.dataset.option).join() === want,
+      cli.ranking.map((r) => r.id).join());
+    assert.ok(Number(await page.getAttribute('#what-if', 'data-paints')) > before + 1, 'the card repainted during the drag');
+    const costs = await page.$$eval('#what-if-ranking li .cost', (cells) => cells.map((c) => c.textContent));
+    for (const [i, r] of cli.ranking.entries()) assert.ok(costs[i].startsWith(`${money(r.cost)} a year`), `${costs[i]} vs ${money(r.cost)}`);
+    // the quote is unchanged: the verdict's table still shows today's ranking
+    const cliToday = cliDemo ?? await cliEvaluate(scenario);
+    assert.equal(await page.textContent('#best-option'), cliToday.options.find((o) => o.id === cliToday.ranking[0].id).label);
+    await page.tap('#what-if-reset');
+    await page.locator('#what-if').screenshot({ path: join(ARTIFACTS, 'chromium-what-if.png') });
+  });
+
   test('the heat pump\'s bins show load, capacity, COP and the backup', { timeout: TIMEOUT }, async () => {
     const cli = cliDemo ?? await cliEvaluate(await demoScenario());
     const hp = cli.options.find((o) => Array.isArray(o.bins));

@@ -49,4 +49,21 @@ TEST(analysis_typed, a_price_sweep_is_a_line_and_its_crossing_is_the_break_even)
     }
 }
 
+TEST(analysis_typed, a_what_if_is_the_sweep_at_that_value_ranked_with_savings_against_the_existing_system) {
+    const auto context = context_of("data/examples/maple-hollow-heat-pump-bins.json", fw::cost_basis::annual);
+    const auto v = fw::variable_for(context, fw::variable_kind::price, std::string("electricity"), 0);
+    const auto sweep = fw::sweep(context, v, 0.5 * v.current, 1.5 * v.current, 11);
+    const auto at = fw::what_if(context, v, sweep.x[3]);
+    ASSERT_EQ(at.cost.size(), sweep.cost.size());
+    for (std::size_t k = 0; k < at.cost.size(); ++k) EXPECT_NEAR(at.cost[k], sweep.cost[k][3], 1e-9 * sweep.cost[k][3]);
+    for (std::size_t r = 1; r < at.ranking.size(); ++r) EXPECT_LE(at.cost[at.ranking[r - 1]], at.cost[at.ranking[r]]);
+    ASSERT_TRUE(at.existing.has_value());
+    EXPECT_EQ(context.input.options[*at.existing].id, "gas-furnace");
+    for (std::size_t k = 0; k < at.cost.size(); ++k) EXPECT_DOUBLE_EQ(*at.saving[k], at.cost[*at.existing] - at.cost[k]);
+    // At today's value the what-if gives today's costs.
+    const auto today = fw::what_if(context, v, v.current);
+    for (std::size_t k = 0; k < today.cost.size(); ++k)
+        EXPECT_NEAR(today.cost[k], context.today_costs[k], 1e-9 * context.today_costs[k]);
+}
+
 }  // namespace

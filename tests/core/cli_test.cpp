@@ -163,4 +163,22 @@ TEST(cli, evaluate_lists_details_on_request_and_explain_gives_one_options_accoun
     EXPECT_EQ(account.at("option").at("annual_cost"), lean.at("options").at(1).at("annual_cost"));
 }
 
+TEST(cli, what_if_ranks_the_options_with_one_input_changed_and_refuses_an_impossible_value_at_value) {
+    const char* data = std::getenv("FUELWRIGHT_DATA_DIR");
+    ASSERT_NE(data, nullptr);
+    const std::string file = std::string(data) + "/examples/maple-hollow-gas-vs-heat-pump.json";
+    const auto run = run_cli("what-if '" + file + "' --vary price --of electricity --value 0.08");
+    EXPECT_EQ(run.exit_code, 0) << run.err;
+    const auto answer = nlohmann::json::parse(run.out);
+    EXPECT_EQ(answer.at("unit"), "USD/kWh");
+    EXPECT_EQ(answer.at("value"), 0.08);
+    EXPECT_EQ(answer.at("ranking").at(0).at("id"), "heat-pump");
+    EXPECT_EQ(answer.at("existing"), nullptr);
+    const auto high = run_cli("what-if '" + file + "' --vary efficiency --of gas-furnace --value 120");
+    EXPECT_EQ(high.exit_code, 2);
+    EXPECT_EQ(high.err, "fuelwright: /value: AFUE is at most 100, got 120\n");
+    const auto none = run_cli("what-if '" + file + "' --vary price --of electricity");
+    EXPECT_EQ(none.err, "fuelwright: /value: is required (the value to try, in USD/kWh)\n");
+}
+
 }  // namespace

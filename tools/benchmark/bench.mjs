@@ -49,10 +49,40 @@ async function transferGzip(paths) {
   return total;
 }
 
+/**
+ * A live what-if: the verdict's slider dragged across its range for 2 s, one position an animation
+ * frame; {fps: the card's repaints of the ranking and the saving a second, frames: animation frames a second}.
+ */
+async function dragWhatIf(page) {
+  await page.click('#tab-verdict');
+  await page.waitForSelector('#what-if-range');
+  await page.locator('#what-if').scrollIntoViewIfNeeded();
+  await page.waitForTimeout(300);
+  return page.evaluate(async () => {
+    const range = document.getElementById('what-if-range');
+    const card = document.getElementById('what-if');
+    const paintsBefore = Number(card.dataset.paints);
+    let frames = 0;
+    const t0 = performance.now();
+    await new Promise((done) => {
+      const step = (t) => {
+        frames += 1;
+        range.value = String(Math.round(20 + 160 * Math.min(1, (t - t0) / 2000)));
+        range.dispatchEvent(new Event('input', { bubbles: true }));
+        if (t - t0 < 2000) requestAnimationFrame(step);
+        else done();
+      };
+      requestAnimationFrame(step);
+    });
+    const seconds = (performance.now() - t0) / 1000;
+    return { fps: (Number(card.dataset.paints) - paintsBefore) / seconds, frames: frames / seconds };
+  });
+}
+
 async function pageTimes() {
   const server = await serve(site);
   await writeFile(join(site, 'bench-blank.html'), '<!doctype html><title>blank</title><p>blank</p>');
-  const loads = [], blanks = [], edits = [];
+  const loads = [], blanks = [], edits = [], drags = [];
   const requested = [];
   try {
     for (let i = 0; i < Math.max(3, Math.floor(repeats / 2)); i++) {
@@ -95,6 +125,7 @@ async function pageTimes() {
         })));
         await page.waitForTimeout(400);
       }
+      if (input) drags.push(await dragWhatIf(page));
       await context.close();
       await rm(profile, { recursive: true, force: true });
     }
@@ -104,6 +135,8 @@ async function pageTimes() {
   }
   // Let the service worker finish precaching: its requests count too, once each.
   return { load_ms: median(loads), blank_ms: median(blanks), edit_repaint_ms: edits.length ? median(edits) : null,
+           drag_fps: drags.length ? median(drags.map((d) => d.fps)) : null,
+           drag_frame_rate: drags.length ? median(drags.map((d) => d.frames)) : null,
            transfer_gzip_bytes: await transferGzip(requested) };
 }
 

@@ -38,6 +38,8 @@ commands:
                                the price (or efficiency) at which two options cost the same
   sweep FILE [--vary price|efficiency|demand] [--of ID] [--from X] [--to X] [--points N] [--basis B]
                                every option's cost over a range of one input
+  what-if FILE --vary price|efficiency|demand [--of ID] --value X [--basis B]
+                               every option's cost and the ranking with one input set to X
   tornado FILE [--basis annual|life-cycle] [--change 0.2]
                                the winner's margin for -/+20 % on each input
   check-prices FILE [--today YYYY-MM-DD]
@@ -348,6 +350,9 @@ int main(int argc, char** argv) {
                                 {{"--vary", false}, {"--of", false}, {"--from", true}, {"--to", true}, {"--points", true},
                                  {"--basis", false}},
                                 fw::sweep_json);
+    if (command == "what-if")
+        return analysis_command(rest, "what-if", {{"--vary", false}, {"--of", false}, {"--value", true}, {"--basis", false}},
+                                fw::what_if_json);
     if (command == "tornado")
         return analysis_command(rest, "tornado", {{"--basis", false}, {"--change", true}}, fw::tornado_json);
     if (command == "catalog") return finish(fw::catalog_json());

@@ -12,6 +12,7 @@ import { asSentence, plainUnits } from '../format.js';
 import { ENERGY_KWH, POWER_W, UA_W_PER_K, co2In, convertTemperature, unitLabel } from '../units.js';
 import { fuelName } from './fuels.js';
 import { openTrace } from './trace.js';
+import { whatIfCard } from './what-if.js';
 
 const isNum = (v) => typeof v === 'number' && Number.isFinite(v);
 
@@ -663,6 +664,9 @@ export function renderVerdict(container, ctx, state, { kiosk = false } = {}) {
         h('button', { type: 'button', dataset: { action: 'rank-by', by: 'life' }, 'aria-pressed': String(by === 'life'), text: 'Rank by life-cycle cost' })));
     }
     parts.push(table(result, ws, ctx, by));
+    if (!kiosk && state.key) {
+      parts.push(keep('what-if', [state.key, by, ctx.format, result], () => whatIfCard(state, result, ctx, by === 'life' ? 'life-cycle' : 'annual')));
+    }
     parts.push(h('p', { class: 'hint', text: 'Tap any number to see how it was worked out and which data it used.' }));
     parts.push(equipmentSection(result, ws, ctx, by));
     parts.push(climateSummary(result, ws, ctx));

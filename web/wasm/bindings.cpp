@@ -21,6 +21,7 @@ std::string climate(const std::string& request) { return fw::climate_json(reques
 std::string break_even(const std::string& request) { return fw::break_even_json(request); }
 std::string sweep(const std::string& request) { return fw::sweep_json(request); }
 std::string tornado(const std::string& request) { return fw::tornado_json(request); }
+std::string what_if(const std::string& request) { return fw::what_if_json(request); }
 std::string check_prices(const std::string& text, const std::string& today) { return fw::check_prices_json(text, today); }
 std::string weather(const std::string& request) { return fw::weather_json(request); }
 
@@ -46,6 +47,7 @@ EMSCRIPTEN_BINDINGS(fuelwright_core) {
     emscripten::function("breakEven", &break_even);
     emscripten::function("sweep", &sweep);
     emscripten::function("tornado", &tornado);
+    emscripten::function("whatIf", &what_if);
     emscripten::function("checkPrices", &check_prices);
     emscripten::function("weather", &weather);
     emscripten::function("evaluateWithProgress", &evaluate_with_progress);

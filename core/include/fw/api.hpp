@@ -42,6 +42,11 @@ std::string break_even_json(const std::string& request_json) noexcept;
 /// Costs of every option over a range of one input: {"scenario", "vary", "of", "from", "to", "points", "basis"}.
 std::string sweep_json(const std::string& request_json) noexcept;
 
+/// One what-if, fast enough to follow a slider: {"scenario", "vary": "price"|"efficiency"|"demand", "of", "value",
+/// "basis"} -> every option's cost with the input at `value`, the ranking (cheapest first), and each option's
+/// "saving" against the existing option when the scenario marks one.
+std::string what_if_json(const std::string& request_json) noexcept;
+
 /// Change in the winner's margin for -/+ `change` (default 0.2) on each price, efficiency and the demand.
 std::string tornado_json(const std::string& request_json) noexcept;
 

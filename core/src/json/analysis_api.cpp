@@ -109,6 +109,44 @@ json sweep_answer(const json& request, std::vector<issue>& warnings) {
             {"break_even", crossings}};
 }
 
+json what_if_answer(const json& request, std::vector<issue>& warnings) {
+    const auto context = read_context(request);
+    const auto v = read_variable(context, request, 0);
+    const auto value = optional_number(request, "value", "");
+    if (!value) throw input_error("/value", "is required (the value to try, in " + v.unit + ")");
+    if (!(*value >= 0)) throw input_error("/value", "must be >= 0, got " + format_number(*value));
+    if (v.kind != variable_kind::price && !(*value > 0))
+        throw input_error("/value", std::string("must be > 0 for ") + variable_kind_name(v.kind));
+    if (v.kind == variable_kind::efficiency) {
+        const auto& option = context.input.options[v.options.front()];
+        const double limit = upper_limit(option);
+        if (*value > limit)
+            throw input_error("/value", std::string(rating_name(option.system.rating)) + " is at most " + format_number(limit) +
+                                            ", got " + format_number(*value));
+    }
+    const auto result = what_if(context, v, *value);
+    json options = json::array();
+    for (std::size_t k = 0; k < result.cost.size(); ++k) {
+        options.push_back({{"id", context.input.options[k].id}, {"label", context.input.options[k].label}, {"cost", result.cost[k]}});
+        if (result.saving[k]) options.back()["saving"] = *result.saving[k];
+    }
+    json ranking = json::array();
+    for (std::size_t rank = 0; rank < result.ranking.size(); ++rank)
+        ranking.push_back({{"rank", rank + 1}, {"id", context.input.options[result.ranking[rank]].id},
+                           {"cost", result.cost[result.ranking[rank]]}});
+    for (const auto& w : context.warnings) warnings.push_back(w);
+    return {{"vary", variable_kind_name(v.kind)},
+            {"of", v.kind == variable_kind::demand ? json(nullptr) : json(v.of)},
+            {"label", v.label},
+            {"unit", v.unit},
+            {"basis", basis_name(context.basis)},
+            {"current", v.current},
+            {"value", result.value},
+            {"existing", result.existing ? json(context.input.options[*result.existing].id) : json(nullptr)},
+            {"options", options},
+            {"ranking", ranking}};
+}
+
 json tornado_answer(const json& request, std::vector<issue>& warnings) {
     const auto context = read_context(request);
     const double step = optional_number(request, "change", "").value_or(0.2);
@@ -138,5 +176,6 @@ json tornado_answer(const json& request, std::vector<issue>& warnings) {
 std::string break_even_json(const std::string& request_json) noexcept { return guarded_entry(request_json, break_even_answer); }
 std::string sweep_json(const std::string& request_json) noexcept { return guarded_entry(request_json, sweep_answer); }
 std::string tornado_json(const std::string& request_json) noexcept { return guarded_entry(request_json, tornado_answer); }
+std::string what_if_json(const std::string& request_json) noexcept { return guarded_entry(request_json, what_if_answer); }
 
 }  // namespace fw

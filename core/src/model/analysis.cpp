@@ -5,6 +5,7 @@
 
 #include "base/roots.hpp"
 #include "base/units.hpp"
+#include "model/verdict.hpp"
 
 namespace fw {
 
@@ -313,6 +314,20 @@ tornado_result tornado(const analysis_context& context, double step) {
 
 bool input_has_bins(const scenario& input, const scenario_option& option) {
     return input.climate.has_value() && option.system.kind == system_kind::air_source_heat_pump;
+}
+
+what_if_result what_if(const analysis_context& context, const analysis_variable& v, double value) {
+    what_if_result out;
+    out.value = value;
+    const auto changed = with_value(context.input, v, value);
+    for (std::size_t k = 0; k < context.input.options.size(); ++k)
+        out.cost.push_back(depends_on(context.input, v, k) ? option_cost(context, changed, k) : context.today_costs[k]);
+    out.ranking = ranked_ascending(out.cost);
+    for (std::size_t k = 0; k < context.input.options.size(); ++k)
+        if (context.input.options[k].existing) out.existing = k;
+    for (std::size_t k = 0; k < out.cost.size(); ++k)
+        out.saving.push_back(out.existing ? std::optional<double>(out.cost[*out.existing] - out.cost[k]) : std::nullopt);
+    return out;
 }
 
 }  // namespace fw

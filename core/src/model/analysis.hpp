@@ -90,6 +90,18 @@ struct sweep_result {
 /// Every option's cost at n values from `from` to `to` (exact lines where the cost is linear in the variable).
 sweep_result sweep(const analysis_context& context, const analysis_variable& v, double from, double to, int n);
 
+/// One what-if: every option's cost with the variable set to one value, ranked, and each option's
+/// saving against the existing system (when the scenario marks one).
+struct what_if_result {
+    double value = 0;                         ///< in the variable's unit
+    std::vector<double> cost;                 ///< per option [currency a year, or over the life cycle]
+    std::vector<std::size_t> ranking;         ///< option indexes, cheapest first (ties keep the scenario's order)
+    std::optional<std::size_t> existing;      ///< the option marked existing
+    std::vector<std::optional<double>> saving; ///< per option: the existing option's cost less its own [currency]
+};
+/// Every option's cost with the variable at `value` (options it cannot reach keep today's cost).
+what_if_result what_if(const analysis_context& context, const analysis_variable& v, double value);
+
 struct tornado_row {
     analysis_variable variable;
     double margin_low = 0, margin_high = 0;  ///< [currency] the runner-up's cost less the winner's
