@@ -1,6 +1,8 @@
 // WASM-in-Node and page measurements for tools/bench: the heavy scenario in the WASM module,
 // cold page load to the first verdict against a blank page, the gzip size of what the page
 // transfers, and a price edit to the repainted verdict (headless Chromium, playwright-core).
+import { spawn } from 'node:child_process';
+import { createInterface } from 'node:readline';
 import { readFile, stat, mkdtemp, rm, writeFile } from 'node:fs/promises';
 import { gzipSync } from 'node:zlib';
 import { join, dirname } from 'node:path';
@@ -15,22 +17,53 @@ const site = join(root, 'build/site');
 const repeats = Number(process.env.FW_BENCH_REPEATS ?? 9);
 const median = (xs) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 
-async function wasmHeavy() {
+/** {median, min, max} of a list. */
+const spread = (xs) => ({ median: median(xs), min: Math.min(...xs), max: Math.max(...xs) });
+
+/**
+ * The heavy scenario natively and in WASM, interleaved run by run so that both sides of the ratio see
+ * the same machine: each run is one native run (build/native/fuelwright_bench SCENARIO --serve, a process
+ * kept for all runs, timing one run a line it reads) and then one WASM run in this process; both sides
+ * make two untimed runs first (the engine compiles the module in tiers). Each timed run is the two calls
+ * returning their JSON text; the ratio is taken run by run.
+ */
+async function heavyInterleaved() {
   const { default: create } = await import(join(site, 'fuelwright_core.mjs'));
   const core = await create({ wasmBinary: await readFile(join(site, 'fuelwright_core.wasm')) });
-  const text = await readFile(join(root, 'tools/benchmark/heavy-scenario.json'), 'utf8');
+  const file = join(root, 'tools/benchmark/heavy-scenario.json');
+  const text = await readFile(file, 'utf8');
   const sweep = JSON.stringify({ scenario: JSON.parse(text), vary: 'price', of: 'gas', from: 0.5, to: 2.0, points: 100 });
-  // Timed as the native benchmark is: the two calls returning their JSON text, after two untimed
-  // runs (the engine compiles the module in tiers; the first calls run on the baseline tier).
-  const runs = [];
-  for (let i = 0; i < repeats + 2; i++) {
+  const wasmRun = () => {
     const t0 = performance.now();
     const a = core.evaluate(text);
     const b = core.sweep(sweep);
-    if (i >= 2) runs.push(performance.now() - t0);
+    const ms = performance.now() - t0;
     if (JSON.parse(a).errors.length || JSON.parse(b).errors.length) throw new Error('the heavy scenario did not evaluate cleanly');
+    return ms;
+  };
+  wasmRun();
+  wasmRun();
+  const bench = spawn(join(root, 'build/native/fuelwright_bench'), [file, '--serve'], { stdio: ['pipe', 'pipe', 'inherit'] });
+  const lines = createInterface({ input: bench.stdout })[Symbol.asyncIterator]();
+  const nativeRun = async () => {
+    bench.stdin.write('\n');
+    const { value, done } = await lines.next();
+    const ms = Number(value);
+    if (done || !(ms >= 0)) throw new Error('fuelwright_bench: the heavy scenario did not evaluate cleanly');
+    return ms;
+  };
+  const native = [], wasm = [], ratios = [];
+  for (let i = 0; i < repeats; i++) {
+    const n = await nativeRun();
+    const w = wasmRun();
+    native.push(n);
+    wasm.push(w);
+    ratios.push(w / n);
   }
-  return median(runs);
+  bench.stdin.end();
+  const [n, w, r] = [spread(native), spread(wasm), spread(ratios)];
+  return { native_heavy_ms: n.median, native_heavy_range_ms: [n.min, n.max], wasm_heavy_ms: w.median, wasm_heavy_range_ms: [w.min, w.max],
+    wasm_native_ratio: r.median, wasm_native_ratio_range: [r.min, r.max], heavy_runs: repeats };
 }
 
 /** Sum of the gzip sizes of the files a first visit requested (paths under the site). */
@@ -140,5 +173,5 @@ async function pageTimes() {
            transfer_gzip_bytes: await transferGzip(requested) };
 }
 
-const out = { wasm_heavy_ms: await wasmHeavy(), ...(await pageTimes()) };
+const out = { ...(await heavyInterleaved()), ...(await pageTimes()) };
 process.stdout.write(JSON.stringify(out) + '\n');
