@@ -25,14 +25,15 @@ import {
   workspaceOf,
 } from './storage.js';
 import { Store, setAt } from './store.js';
-import { DISPLAY, convert, convertQuantity, unitLabel } from './units.js';
+import { DISPLAY, convertQuantity, unitLabel } from './units.js';
 import { renderFuels, saleUnitsOf, fuelName } from './views/fuels.js';
 import { renderHouse } from './views/house.js';
 import { renderLab } from './views/lab.js';
 import { renderQuotes } from './views/quotes.js';
 import { DUAL_FUEL_CHOICE, KIND_NAMES, renderSystems } from './views/systems.js';
 import { FUEL_BURNING_KINDS, billedSystemId, dualFuelSystem, efficiencyFor } from './equipment.js';
-import { bindVerdict, openHeatNeedTrace, rankedOptions, renderVerdict, resultsCsv, showDrawProgress } from './views/verdict.js';
+import { rankedOptions, resultsCsv } from './results.js';
+import { bindVerdict, openHeatNeedTrace, renderVerdict, showDrawProgress } from './views/verdict.js';
 
 const ANALYSIS_DEBOUNCE_MS = 350;
 /** The saved record of the demo quote (one, however often it is loaded). */

@@ -7,7 +7,7 @@ import { costBars } from './charts.js';
 import { asSentence } from './format.js';
 import { fuelName } from './views/fuels.js';
 import { KIND_NAMES } from './views/systems.js';
-import { equipmentNotes, displayValues, fuelUsedText, lifeOf, paybackWords, rankedOptions } from './views/verdict.js';
+import { equipmentNotes, displayValues, fuelUsedText, lifeOf, paybackWords, rankedOptions } from './results.js';
 import { FUEL_BURNING_KINDS, STAGES, auxiliaryDefault, equipmentElectricityPrice, powerText } from './equipment.js';
 import { HEAT_PUMP_KINDS } from './scenario.js';
 import { optionPrice } from './profile.js';

@@ -1,4 +1,4 @@
-// What the page exports (web/scenario.js exportDocument, web/views/verdict.js resultsCsv), in Node
+// What the page exports (web/scenario.js exportDocument, web/results.js resultsCsv), in Node
 // against the module: every fuel entered travels with the quote file (one no option uses as
 // other_fuels) and comes back on import; the verdict rides along as a summary the core ignores; the
 // CSV carries the quote's rows and numbers as the verdict shows them, negative ones unquoted.
@@ -20,7 +20,7 @@ before(async () => {
   core = await loadCore();
   scenario = await web('scenario.js');
   demo = await web('demo.js');
-  verdict = await web('views/verdict.js');
+  verdict = await web('results.js');
 });
 
 /** The fields of one CSV line (RFC 4180 quoting). */
