@@ -1,7 +1,6 @@
 // Controller: creates the core client, the store and the views, and wires
 // them: typing -> store -> (debounced) evaluate in the worker -> verdict,
 // quote sheet and autosave. One role per module; this one only connects them.
-import { climateInUnit } from './climate-library.js';
 import { createClimateTools } from './climates.js';
 import { createTemplateTools } from './template-shelf.js';
 import { CoreClient } from './core-client.js';
@@ -16,22 +15,21 @@ import { slipFor } from './slips.js';
 import { parseBillLines } from './bills.js';
 import { MAX_LOGO_BYTES, companyOf, normalizeProfile, takeQuoteNumber, validUntil } from './profile.js';
 import { renderProfile } from './views/profile.js';
-import {
-  HEAT_PUMP_KINDS, blankWorkspace, exportDocument, fuelId, newFuelKey, toScenario, today, uniqueSystemId, withoutUncertainty,
-} from './scenario.js';
+import { blankWorkspace, exportDocument, fuelId, newFuelKey, toScenario, today, uniqueSystemId, withoutUncertainty } from './scenario.js';
 import {
   FORKED_MESSAGE, currentQuoteId, forgetUnsaved, keepUnsaved, loadPreferences, loadProfile, makeRecord, migrateRecord, newId, notDeletedMessage, notMigratedMessage, notRestoredMessage,
   notSavedMessage, openQuotes, recordProblem, savePreferences, saveProfile, setCurrentQuoteId, unsavedNewerThan, verdictSummary, workspaceFromFile,
   workspaceOf,
 } from './storage.js';
 import { Store, setAt } from './store.js';
-import { DISPLAY, convertQuantity, unitLabel } from './units.js';
-import { renderFuels, saleUnitsOf, fuelName } from './views/fuels.js';
+import { DISPLAY, unitLabel } from './units.js';
+import { renderFuels, fuelName } from './views/fuels.js';
 import { renderHouse } from './views/house.js';
 import { renderLab } from './views/lab.js';
 import { renderQuotes } from './views/quotes.js';
-import { DUAL_FUEL_CHOICE, KIND_NAMES, renderSystems } from './views/systems.js';
-import { FUEL_BURNING_KINDS, billedSystemId, dualFuelSystem, efficiencyFor } from './equipment.js';
+import { renderSystems } from './views/systems.js';
+import { billedSystemId, efficiencyFor } from './equipment.js';
+import { autoLabel, fitSystemToCatalog, newFuelEntry, newSystem, setFuel, switchUnits } from './editing.js';
 import { rankedOptions, resultsCsv } from './results.js';
 import { bindVerdict, openHeatNeedTrace, renderVerdict, showDrawProgress } from './views/verdict.js';
 
@@ -692,35 +690,6 @@ async function flushSave() {
 // ---------------------------------------------------------------------------
 // Editing
 
-function autoLabel(ws, sys) {
-  const entry = ws.fuels.find((f) => f.key === sys.fuel_key);
-  const backup = sys.system?.backup && ws.systems.find((s) => s.id === sys.system.backup);
-  if (backup) {
-    // a dual-fuel option says so and names its backup, so it is never read as the heat pump alone
-    const backupFuel = ws.fuels.find((f) => f.key === backup.fuel_key);
-    return `Dual fuel: ${(KIND_NAMES[sys.system.kind] ?? 'heat pump').toLowerCase()} + ${(KIND_NAMES[backup.system?.kind] ?? 'system').toLowerCase()}${
-      backupFuel ? ` (${fuelName(backupFuel, ctx.catalog)})` : ''}`;
-  }
-  // the system in the house now is named so, never confused with a new one of the same kind and fuel
-  const kind = KIND_NAMES[sys.system?.kind] ?? 'System';
-  return `${sys.existing ? `Existing ${kind.toLowerCase()}` : kind}${entry ? `, ${fuelName(entry, ctx.catalog)}` : ''}`;
-}
-
-function fitSystemToCatalog(ws, sys) {
-  const entry = ws.fuels.find((f) => f.key === sys.fuel_key);
-  const fid = fuelId(entry);
-  const kind = sys.system.kind;
-  const model = ctx.catalog.systemsById.get(sys.system.catalog);
-  const fits = (m) => m && m.kind === kind && (!fid || typeof entry?.fuel === 'object' || m.fuels.includes(fid));
-  if (!fits(model)) {
-    const next = ctx.catalog.systems.find(fits);
-    sys.system.catalog = next?.id ?? '';
-  }
-  const current = ctx.catalog.systemsById.get(sys.system.catalog);
-  if (current) sys.system.efficiency = efficiencyFor(sys.system.efficiency, current);
-  if (sys.label_auto) sys.label = autoLabel(ws, sys);
-}
-
 /**
  * A value typed beside a unit menu takes the unit the menu shows when the workspace has none yet (the
  * menu was not touched), so what was typed is sent in the unit it was typed in.
@@ -750,12 +719,7 @@ function onField(path, value, { structural }) {
   }
   if ((m = /^\/fuels\/(\d+)\/fuel$/.exec(path))) {
     const entry = ws.fuels[Number(m[1])];
-    store.mutate(() => {
-      entry.fuel = value === 'custom' ? { kind: 'formula', id: 'custom-fuel', name: 'Custom fuel', formula: '', sale_unit: 'kg' } : value;
-      const units = saleUnitsOf(entry, ctx.catalog);
-      if (!units.includes(entry.price?.per)) entry.price = { ...entry.price, per: units[0] };
-      for (const sys of ws.systems) if (sys.fuel_key === entry.key) fitSystemToCatalog(ws, sys);
-    });
+    store.mutate(() => setFuel(ws, entry, value, ctx.catalog));
     return;
   }
   if ((m = /^\/fuels\/(\d+)\/fuel\/sale_unit$/.exec(path))) {
@@ -788,8 +752,8 @@ function onField(path, value, { structural }) {
         const model = ctx.catalog.systemsById.get(value);
         if (model) sys.system.efficiency = efficiencyFor(sys.system.efficiency, model);
       }
-      if (m[2] !== 'system/catalog') fitSystemToCatalog(ws, sys);
-      if (sys.label_auto) sys.label = autoLabel(ws, sys);
+      if (m[2] !== 'system/catalog') fitSystemToCatalog(ws, sys, ctx.catalog);
+      if (sys.label_auto) sys.label = autoLabel(ws, sys, ctx.catalog);
     });
     return;
   }
@@ -811,7 +775,7 @@ function onField(path, value, { structural }) {
     store.mutate(() => {
       if (value) ws.systems.forEach((s, i) => { s.existing = i === Number(m[1]); });
       else ws.systems[Number(m[1])].existing = false;
-      for (const s of ws.systems) if (s.label_auto) s.label = autoLabel(ws, s);
+      for (const s of ws.systems) if (s.label_auto) s.label = autoLabel(ws, s, ctx.catalog);
       // bills are the existing system's: marking it links them (shown on the House tab)
       ws.demand.bills_option = billedSystemId(ws);
     });
@@ -821,7 +785,7 @@ function onField(path, value, { structural }) {
     const sys = ws.systems[Number(m[1])];
     store.mutate(() => {
       setAt(ws, path, value);
-      if (sys.label_auto) sys.label = autoLabel(ws, sys);
+      if (sys.label_auto) sys.label = autoLabel(ws, sys, ctx.catalog);
     });
     return;
   }
@@ -853,77 +817,15 @@ function addCustomFuel(fuel) {
 }
 
 function addFuel(id) {
-  store.mutate((ws) => {
-    const entry = { key: newFuelKey(ws), fuel: id === 'custom' ? { kind: 'formula', id: 'custom-fuel', name: 'Custom fuel', formula: '', sale_unit: 'kg' } : id, price: {}, fixed_charges: [] };
-    entry.price.per = saleUnitsOf(entry, ctx.catalog)[0];
-    ws.fuels.push(entry);
-  });
+  store.mutate((ws) => { ws.fuels.push(newFuelEntry(ws, id, ctx.catalog)); });
   const cards = panels.fuels.querySelectorAll('.fuel-card');
   cards[cards.length - 1]?.querySelector('[data-path$="/price/amount"]')?.focus();
 }
 
 function addSystem(choice) {
-  const dual = choice === DUAL_FUEL_CHOICE;
-  const kind = dual ? 'air-source-heat-pump' : choice;
-  store.mutate((ws) => {
-    const electric = kind === 'electric-resistance' || HEAT_PUMP_KINDS.includes(kind);
-    const fuel = ws.fuels.find((f) => (fuelId(f) === 'electricity') === electric) ?? ws.fuels[0];
-    const sys = { id: '', label: '', label_auto: true, fuel_key: fuel?.key ?? '', system: { kind, catalog: '', efficiency: { rating: '' }, ratings: [] } };
-    fitSystemToCatalog(ws, sys);
-    if (!sys.system.efficiency?.rating) sys.system.efficiency = { rating: electric ? 'COP' : 'thermal' };
-    sys.id = uniqueSystemId(ws, `${kind}-${fuelId(fuel) || 'fuel'}`);
-    const backup = dual ? ws.systems.find((other) => other.existing && FUEL_BURNING_KINDS.includes(other.system?.kind)) : null;
-    if (backup) {
-      // the heat pump already on the quote, from its data sheet, is the one paired with the backup
-      const copy = dualFuelSystem(ws, backup.id);
-      if (copy) Object.assign(sys, copy);
-      sys.system.backup = backup.id;
-      sys.system.changeover_mode = 'temperature';
-      sys.id = uniqueSystemId(ws, `dual-fuel-${fuelId(ws.fuels.find((f) => f.key === backup.fuel_key)) || 'backup'}`);
-    }
-    sys.label = autoLabel(ws, sys);
-    ws.systems.push(sys);
-  });
+  store.mutate((ws) => { ws.systems.push(newSystem(ws, choice, ctx.catalog)); });
   const cards = panels.systems.querySelectorAll('.system-card');
   cards[cards.length - 1]?.querySelector('[data-path$="/label"]')?.focus();
-}
-
-/** Switches the unit system, converting every entered quantity with a known factor. */
-function switchUnits(system) {
-  store.mutate((ws) => {
-    if (ws.settings.units === system) return;
-    ws.settings.units = system;
-    ws.settings.energy_unit = DISPLAY[system].energyChoices[0];
-    const d = ws.demand;
-    for (const key of ['annual_useful_heat', 'balance_point', 'ua', 'design_heat_loss', 'indoor', 'design_outdoor', 'internal_gains', 'hot_water']) {
-      d[key] = convertUnitOnly(convertQuantity(d[key], system), system);
-    }
-    ws.climate = climateInUnit(ws.climate, DISPLAY[system].temperature);
-    const c = ws.climate;
-    c.base = convertUnitOnly(convertQuantity(c.base, system), system);
-    c.design_temperature = convertUnitOnly(convertQuantity(c.design_temperature, system), system);
-    for (const sys of ws.systems) {
-      const s = sys.system;
-      for (const point of s.ratings ?? []) {
-        point.outdoor = convertUnitOnly(convertQuantity(point.outdoor, system), system);
-        point.capacity = convertUnitOnly(convertQuantity(point.capacity, system), system);
-        if (point.min_capacity) point.min_capacity = convertUnitOnly(convertQuantity(point.min_capacity, system), system);
-      }
-      for (const key of ['cutoff', 'changeover', 'capacity']) if (s[key]) s[key] = convertUnitOnly(convertQuantity(s[key], system), system);
-    }
-    for (const entry of ws.fuels) if (entry.bag_mass) entry.bag_mass = convertQuantity(entry.bag_mass, system);
-  }, { reason: 'load' });
-}
-
-/** A quantity with a unit but no value yet takes the new system's unit. */
-function convertUnitOnly(q, system) {
-  if (!q || typeof q.value === 'number' || !q.unit) return q;
-  try {
-    const probe = convertQuantity({ value: 1, unit: q.unit }, system);
-    return { ...q, unit: probe.unit };
-  } catch {
-    return q;
-  }
 }
 
 // ---------------------------------------------------------------------------
@@ -1236,7 +1138,7 @@ function applyPaper() {
 
 function wireHeader() {
   for (const id of ['#units-us', '#units-metric']) {
-    $(id).addEventListener('change', (event) => { if (event.target.checked) switchUnits(event.target.value); });
+    $(id).addEventListener('change', (event) => { if (event.target.checked) store.mutate((ws) => switchUnits(ws, event.target.value), { reason: 'load' }); });
   }
   $('#energy-unit').addEventListener('change', (event) => store.mutate((ws) => { ws.settings.energy_unit = event.target.value; }, { reason: 'display' }));
   const currency = $('#currency');
