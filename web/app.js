@@ -17,10 +17,10 @@ import { MAX_LOGO_BYTES, companyOf, normalizeProfile, takeQuoteNumber, validUnti
 import { renderProfile } from './views/profile.js';
 import { blankWorkspace, exportDocument, fuelId, newFuelKey, toScenario, today, uniqueSystemId, withoutUncertainty } from './scenario.js';
 import {
-  FORKED_MESSAGE, currentQuoteId, forgetUnsaved, keepUnsaved, loadPreferences, loadProfile, makeRecord, migrateRecord, newId, notDeletedMessage, notMigratedMessage, notRestoredMessage,
-  notSavedMessage, openQuotes, recordProblem, savePreferences, saveProfile, setCurrentQuoteId, unsavedNewerThan, verdictSummary, workspaceFromFile,
-  workspaceOf,
+  currentQuoteId, loadPreferences, loadProfile, migrateRecord, newId, notDeletedMessage, notMigratedMessage, notRestoredMessage, openQuotes,
+  recordProblem, savePreferences, saveProfile, setCurrentQuoteId, verdictSummary, workspaceFromFile, workspaceOf,
 } from './storage.js';
+import { createQuoteKeeper } from './quote-keeper.js';
 import { Store, setAt } from './store.js';
 import { DISPLAY, unitLabel } from './units.js';
 import { renderFuels, fuelName } from './views/fuels.js';
@@ -68,7 +68,6 @@ let storage = null;
 let storageAlert = null;
 let analysisTimer = 0;
 let drawsTimer = 0;
-let saveTimer = 0;
 let generation = 0;
 let evaluationRunning = false;
 let evaluateQueued = false;
@@ -355,7 +354,7 @@ async function evaluateNow() {
     setProgress(null);
     if (!result.errors?.length) scheduleAnalyses();
     scheduleDraws();
-    if (summaryOutdated()) scheduleSave();
+    if (summaryOutdated()) keeper.schedule();
   } catch (failure) {
     if (gen !== generation) return;
     verdict.result = null;
@@ -530,12 +529,6 @@ function showSaveState(state, at) {
     : state === 'failed' ? 'Not saved' : state === 'saving' ? 'Saving…' : 'Changes not saved yet';
 }
 
-function scheduleSave() {
-  showSaveState('waiting');
-  clearTimeout(saveTimer);
-  saveTimer = setTimeout(saveNow, SAVE_DEBOUNCE_MS);
-}
-
 /** The summary of the verdict for a scenario: the one on screen if it answers this scenario, else null. */
 function summaryFor(scenario) {
   return verdict.key === JSON.stringify(withoutUncertainty(scenario)) ? verdictSummary(verdict.result) : null;
@@ -569,101 +562,22 @@ function clearStorageAlert(...kinds) {
   if (storageAlert && kinds.includes(storageAlert.kind)) setStorageAlert(null, null);
 }
 
-/** The open workspace as the current quote's record (its first-saved time kept); it becomes the current quote. */
-function currentRecord() {
-  const ws = store.state;
-  const scenario = toScenario(ws);
-  const existing = quotes.records.find((r) => r.id === quotes.currentId);
-  const record = makeRecord({ id: quotes.currentId ?? newId(), createdAt: existing?.created_at, workspace: structuredClone(ws), scenario, summary: summaryFor(scenario) });
-  quotes.currentId = record.id;
-  setCurrentQuoteId(record.id);
-  return record;
-}
-
-/** Puts `record` in the saved list kept in memory, in place of the one with its id. */
-function listRecord(record) {
-  const i = quotes.records.findIndex((r) => r.id === record.id);
-  if (i >= 0) quotes.records[i] = record;
-  else quotes.records.push(record);
-}
-
-/**
- * Writes `record` unless another window or tab has saved its quote since `knownAt`; then the record is
- * written as a new quote instead, so that neither version is lost. Resolves to the record written.
- */
-async function writeRecord(record, knownAt) {
-  const blocked = await storage.putUnlessChanged(record, knownAt);
-  if (!blocked) return record;
-  listRecord(blocked);
-  const copy = { ...record, id: newId(), created_at: record.updated_at };
-  await storage.put(copy);
-  setStorageAlert('forked', FORKED_MESSAGE);
-  return copy;
-}
-
-let saving = Promise.resolve();
-
-/** Saves the open quote; saves run one after another, so each knows what the one before it wrote. */
-function saveNow() {
-  clearTimeout(saveTimer);
-  saveTimer = 0;
-  const run = saving.then(saveOnce);
-  saving = run.catch(() => {});
-  return run;
-}
-
-async function saveOnce() {
-  if (!storage) return;
-  const record = currentRecord();
-  let written;
-  showSaveState('saving');
-  try {
-    written = await writeRecord(record, quotes.knownAt);
-  } catch (failure) {
-    // the work stays in the store (memory); the message stays until a save succeeds
-    setStorageAlert('not-saved', notSavedMessage(failure));
-    showSaveState('failed');
-    return;
-  }
-  showSaveState('saved', written.updated_at);
-  if (quotes.currentId === record.id) {
-    quotes.currentId = written.id;
-    quotes.knownAt = written.updated_at;
-    setCurrentQuoteId(written.id);
-  }
-  forgetUnsaved(record.id);
-  clearStorageAlert('not-saved', 'not-migrated', 'not-deleted', 'not-restored');
-  listRecord(written);
-  document.body.dataset.saved = written.updated_at;
-  if (prefs.tab === 'saved') paintQuotes();
-}
-
-/** The page is hidden or left with its autosave waiting: the record is kept at once, then written as usual. */
-function saveBeforeLeaving() {
-  if (!saveTimer || !storage) return;
-  keepUnsaved(currentRecord(), quotes.knownAt);
-  flushSave();
-}
-
-/** A record kept by saveBeforeLeaving that did not reach the storage: written now (or when a save next succeeds), and listed. */
-async function restoreUnsaved() {
-  const kept = unsavedNewerThan(quotes.records);
-  if (!kept) return;
-  const { record, basedOn } = kept;
-  try {
-    const written = await writeRecord(record, basedOn);
-    listRecord(written);
-    if (written.id !== record.id && currentQuoteId() === record.id) setCurrentQuoteId(written.id);
-    forgetUnsaved(record.id);
-  } catch (failure) {
-    listRecord(record);
-    setStorageAlert('not-saved', notSavedMessage(failure));
-  }
-}
+const keeper = createQuoteKeeper({
+  quotes,
+  workspace: () => store.state,
+  summaryFor,
+  delayMs: SAVE_DEBOUNCE_MS,
+  onState: showSaveState,
+  alerts: { set: setStorageAlert, clear: clearStorageAlert },
+  onSaved: (written) => {
+    document.body.dataset.saved = written.updated_at;
+    if (prefs.tab === 'saved') paintQuotes();
+  },
+});
 
 /** Opens a workspace as the current quote `id`; `knownAt` is the updated_at of its stored record (null for a new quote). */
 async function openWorkspace(ws, { id = newId(), save = true, knownAt = null } = {}) {
-  await flushSave();
+  await keeper.flush();
   clearStorageAlert('forked');
   quotes.currentId = id;
   quotes.knownAt = knownAt;
@@ -675,16 +589,8 @@ async function openWorkspace(ws, { id = newId(), save = true, knownAt = null } =
   if (verdict.mc.run) stopDraws();
   verdict.mc = { state: 'off' };
   store.replace(ws);
-  if (save) await saveNow();
+  if (save) await keeper.saveNow();
   paintQuotes();
-}
-
-async function flushSave() {
-  if (saveTimer) {
-    clearTimeout(saveTimer);
-    saveTimer = 0;
-    await saveNow();
-  }
 }
 
 // ---------------------------------------------------------------------------
@@ -948,7 +854,7 @@ const ACTIONS = {
   // the demo is one saved quote: loading it again starts it afresh in the same record, never a copy
   'load-demo': () => openWorkspace(demoWorkspace(), { id: DEMO_ID, knownAt: quotes.records.find((r) => r.id === DEMO_ID)?.updated_at ?? null })
     .then(() => setTab('verdict')),
-  'save-now': () => saveNow(),
+  'save-now': () => keeper.saveNow(),
   'open-quote': async (d) => {
     const record = await storage.get(d.id);
     if (!record || recordProblem(record)) return;
@@ -967,15 +873,12 @@ const ACTIONS = {
   'delete-quote': async (d) => {
     const record = await storage.get(d.id);
     if (!record) return;
-    if (d.id === quotes.currentId) {
-      clearTimeout(saveTimer);
-      saveTimer = 0;
-    }
+    if (d.id === quotes.currentId) keeper.cancel();
     try {
       await storage.delete(d.id);
     } catch (failure) {
       setStorageAlert('not-deleted', notDeletedMessage(record.customer, failure));
-      if (d.id === quotes.currentId) scheduleSave();
+      if (d.id === quotes.currentId) keeper.schedule();
       return;
     }
     clearStorageAlert('not-deleted');
@@ -1008,7 +911,7 @@ const ACTIONS = {
     quotes.records.push(record);
     paintQuotes();
   },
-  'retry-save': () => saveNow(),
+  'retry-save': () => keeper.saveNow(),
   'jump-to-field': ({ path }) => jumpToField(path),
   'apply-fix': ({ path, value }) => {
     const input = document.querySelector(`[data-path="${CSS.escape(path)}"]`);
@@ -1102,7 +1005,7 @@ function onChange(event) {
   } else if (t.id === 'paper') {
     store.state.settings.paper = t.value === 'a4' ? 'a4' : 'letter';
     applyPaper();
-    scheduleSave();
+    keeper.schedule();
   } else if (t.id === 'logo-file' && t.files?.[0]) {
     onLogoFile(t.files[0]);
     t.value = '';
@@ -1174,7 +1077,7 @@ function onStoreChange(change) {
   }
   // a workspace opened as it was stored is not saved again (openWorkspace saves a new one itself): a
   // quote's updated_at is when it last changed, and a second window opening it overtakes no one
-  if (change.reason !== 'load') scheduleSave();
+  if (change.reason !== 'load') keeper.schedule();
 }
 
 // ---------------------------------------------------------------------------
@@ -1222,8 +1125,8 @@ async function start() {
   document.addEventListener('change', onChange);
   $('.tabs').addEventListener('keydown', onTabKeys);
   // a tablet may discard a page once it is hidden or left: the waiting autosave is written then
-  document.addEventListener('visibilitychange', () => { if (document.visibilityState === 'hidden') saveBeforeLeaving(); });
-  window.addEventListener('pagehide', saveBeforeLeaving);
+  document.addEventListener('visibilitychange', () => { if (document.visibilityState === 'hidden') keeper.saveBeforeLeaving(); });
+  window.addEventListener('pagehide', () => keeper.saveBeforeLeaving());
   for (const name of ['house', 'fuels', 'systems']) bindFields(panels[name], ctx, localErrors);
   panels.saved.addEventListener('input', onProfileInput);
   document.addEventListener('focusin', keepFocusClear);
@@ -1238,11 +1141,12 @@ async function start() {
     return;
   }
   storage = await opening;
+  keeper.attach(storage);
   ctx.climateTools.start();
   ctx.templateTools.paint();
   quotes.storageKind = storage.kind;
   quotes.records = await loadRecords();
-  await restoreUnsaved();
+  await keeper.restoreUnsaved();
   const id = currentQuoteId();
   const record = id ? quotes.records.find((r) => r.id === id) : null;
   let ws;
