@@ -31,6 +31,7 @@ import { renderSystems } from './views/systems.js';
 import { billedSystemId, efficiencyFor } from './equipment.js';
 import { autoLabel, fitSystemToCatalog, newFuelEntry, newSystem, setFuel, switchUnits } from './editing.js';
 import { rankedOptions, resultsCsv } from './results.js';
+import { latestWins } from './runner.js';
 import { bindVerdict, openHeatNeedTrace, renderVerdict, showDrawProgress } from './views/verdict.js';
 
 const ANALYSIS_DEBOUNCE_MS = 350;
@@ -69,9 +70,6 @@ let storageAlert = null;
 let analysisTimer = 0;
 let drawsTimer = 0;
 let generation = 0;
-let evaluationRunning = false;
-let evaluateQueued = false;
-let analysisGeneration = 0;
 let undoTimer = 0;
 let verdictBody = null;
 
@@ -284,32 +282,66 @@ function setProgress(state) {
 }
 
 /**
- * Evaluates after an edit: at once when the core is idle, so a single edit repaints within a few
- * frames. An edit made while a run is under way drops that run's (now stale) answer and queues one
- * more run, started as soon as the current one ends: a burst of keystrokes costs at most two runs,
- * and the verdict reads 'loading' from the first keystroke to the answer for the last.
+ * Evaluates after an edit, through runner.js: at once when the core is idle, so a single edit repaints
+ * within a few frames; an edit made while a run is under way makes that run's answer stale (not painted)
+ * and its entries go next, so a burst of keystrokes costs at most two runs, and the verdict reads
+ * 'loading' from the first keystroke to the answer for the last. The charts' runs under way go stale too.
  */
 function scheduleEvaluate() {
   if (verdictBody) verdictBody.dataset.state = 'loading';
-  if (evaluationRunning) {
-    generation += 1;  // the running answer is for an older state: not painted
-    evaluateQueued = true;
+  const gen = ++generation;
+  analyses.drop();
+  const ws = store.state;
+  if (!ws.systems.length) {
+    evaluations.drop();
+    showEvaluation(null, { gen });
     return;
   }
-  evaluate();  // posts to the worker before this task goes on painting, so the two overlap
+  // The verdict never waits for the Monte Carlo: it runs in its own worker (scheduleDraws).
+  setProgress({ label: 'Working out…' });
+  evaluations.submit({ scenario: withoutUncertainty(toScenario(ws)), gen });
 }
 
-async function evaluate() {
-  evaluationRunning = true;
-  evaluateQueued = false;
-  try {
-    await evaluateNow();
-  } finally {
-    evaluationRunning = false;
-    warmSideWorkers();
+/** Paints the verdict's answer for entries `scenario` (none: no system entered yet). */
+function showEvaluation(result, { scenario, gen }) {
+  warmSideWorkers();
+  if (!result) {
+    verdict.result = null;
+    verdict.key = null;
+    verdict.analysis = null;
+    showErrors();
+    paintVerdict();
+    paintSheet();
+    verdictBody.dataset.state = 'empty';
+    scheduleDraws();
+    return;
   }
-  if (evaluateQueued) evaluate();
+  verdict.result = result;
+  verdict.key = JSON.stringify(scenario);
+  showErrors();
+  paintVerdict();
+  paintSheet();
+  verdictBody.dataset.state = result.errors?.length ? 'errors' : 'done';
+  verdictBody.dataset.generation = String(gen);
+  setProgress(null);
+  if (!result.errors?.length) scheduleAnalyses();
+  scheduleDraws();
+  if (summaryOutdated()) keeper.schedule();
 }
+
+/** The core did not answer (its worker failed or timed out): said in the verdict. */
+function showEvaluationFailure(failure) {
+  warmSideWorkers();
+  verdict.result = null;
+  verdict.key = null;
+  verdict.errors = [{ path: '', message: failure.message }];
+  paintVerdict();
+  verdictBody.dataset.state = 'failed';
+  setProgress(null);
+}
+
+const evaluations = latestWins((request) => core.evaluate(request.scenario), showEvaluation,
+  { dropStale: true, onError: showEvaluationFailure });
 
 let sideWorkersWarm = false;
 /**
@@ -321,49 +353,6 @@ function warmSideWorkers() {
   sideWorkersWarm = true;
   charts.warm();
   draws.warm();
-}
-
-async function evaluateNow() {
-  const ws = store.state;
-  const gen = ++generation;
-  verdictBody.dataset.state = 'loading';
-  if (!ws.systems.length) {
-    verdict.result = null;
-    verdict.key = null;
-    verdict.analysis = null;
-    showErrors();
-    paintVerdict();
-    paintSheet();
-    verdictBody.dataset.state = 'empty';
-    scheduleDraws();
-    return;
-  }
-  // The verdict never waits for the Monte Carlo: it runs in its own worker (scheduleDraws).
-  const scenario = withoutUncertainty(toScenario(ws));
-  setProgress({ label: 'Working out…' });
-  try {
-    const result = await core.evaluate(scenario);
-    if (gen !== generation) return;
-    verdict.result = result;
-    verdict.key = JSON.stringify(scenario);
-    showErrors();
-    paintVerdict();
-    paintSheet();
-    verdictBody.dataset.state = result.errors?.length ? 'errors' : 'done';
-    verdictBody.dataset.generation = String(gen);
-    setProgress(null);
-    if (!result.errors?.length) scheduleAnalyses();
-    scheduleDraws();
-    if (summaryOutdated()) keeper.schedule();
-  } catch (failure) {
-    if (gen !== generation) return;
-    verdict.result = null;
-    verdict.key = null;
-    verdict.errors = [{ path: '', message: failure.message }];
-    paintVerdict();
-    verdictBody.dataset.state = 'failed';
-    setProgress(null);
-  }
 }
 
 // ---------------------------------------------------------------------------
@@ -384,18 +373,19 @@ function defaultSweepFuel(ws, result) {
   return index >= 0 ? index : 0;
 }
 
-async function runAnalyses() {
+/** Asks for the charts of the verdict on screen: what to vary (the chosen fuel's price) and the two options to compare. */
+function runAnalyses() {
   const ws = store.state;
   const result = verdict.result;
   if (!result?.options?.length || result.errors?.length || !ws.fuels.length) return;
   const gen = generation;
-  const run = ++analysisGeneration;
   const fuelIndex = defaultSweepFuel(ws, result);
   const entry = ws.fuels[fuelIndex];
   const name = fuelName(entry, ctx.catalog);
   const now = entry?.price?.amount;
   const users = ws.systems.filter((s) => s.fuel_key === entry?.key).map((s) => s.id);
   const none = (message) => {
+    analyses.drop();
     verdict.analysis = { state: 'none', fuelIndex, message };
     paintVerdict();
     verdictBody.dataset.analysis = String(gen);
@@ -410,30 +400,37 @@ async function runAnalyses() {
   // a fuel id varies every option burning it; an option id only that option (two entries of one fuel)
   const fid = fuelId(entry);
   const of = fid && ws.fuels.filter((f) => fuelId(f) === fid).length === 1 ? fid : a;
-  const scenario = withoutUncertainty(toScenario(ws));
   setProgress({ label: 'Working out the charts…' });
-  try {
-    const [sweep, breakEven, tornado] = await Promise.all([
-      charts.sweep({ scenario, vary: 'price', of, from: 0, to: 2 * now, points: SWEEP_POINTS, basis }),
-      b ? charts.breakEven({ scenario, a, b, vary: 'price', of, basis }) : null,
-      result.options.length >= 2 ? charts.tornado({ scenario, basis, change: TORNADO_CHANGE }) : null,
-    ]);
-    if (gen !== generation || run !== analysisGeneration) return;
-    verdict.analysis = sweep.errors?.length
-      ? { state: 'error', fuelIndex, message: sweep.errors.map((e) => e.message).join('; ') }
-      : { state: 'done', gen, fuelIndex, fuelName: name, of, basis, sweep, breakEven, pair: { a, b }, tornado };
-    paintVerdict();
-    paintSheet();
-    verdictBody.dataset.analysis = String(gen);
-    verdictBody.dataset.sweep = String(gen);
-  } catch (failure) {
-    if (run !== analysisGeneration) return;
-    verdict.analysis = { state: 'error', fuelIndex, message: failure.message };
-    paintVerdict();
-  } finally {
-    if (run === analysisGeneration) setProgress(null);
-  }
+  analyses.submit({ scenario: withoutUncertainty(toScenario(ws)), gen, fuelIndex, name, now, of, basis, a, b, count: result.options.length });
 }
+
+/** The charts' three requests to their worker, side by side. */
+function askForCharts({ scenario, now, of, basis, a, b, count }) {
+  return Promise.all([
+    charts.sweep({ scenario, vary: 'price', of, from: 0, to: 2 * now, points: SWEEP_POINTS, basis }),
+    b ? charts.breakEven({ scenario, a, b, vary: 'price', of, basis }) : null,
+    count >= 2 ? charts.tornado({ scenario, basis, change: TORNADO_CHANGE }) : null,
+  ]);
+}
+
+function showCharts([sweep, breakEven, tornado], { gen, fuelIndex, name, of, basis, a, b }) {
+  verdict.analysis = sweep.errors?.length
+    ? { state: 'error', fuelIndex, message: sweep.errors.map((e) => e.message).join('; ') }
+    : { state: 'done', gen, fuelIndex, fuelName: name, of, basis, sweep, breakEven, pair: { a, b }, tornado };
+  paintVerdict();
+  paintSheet();
+  verdictBody.dataset.analysis = String(gen);
+  verdictBody.dataset.sweep = String(gen);
+  setProgress(null);
+}
+
+function showChartsFailure(failure, { fuelIndex }) {
+  verdict.analysis = { state: 'error', fuelIndex, message: failure.message };
+  paintVerdict();
+  setProgress(null);
+}
+
+const analyses = latestWins(askForCharts, showCharts, { dropStale: true, onError: showChartsFailure });
 
 // ---------------------------------------------------------------------------
 // The price Monte Carlo: evaluateWithProgress in a worker of its own, started

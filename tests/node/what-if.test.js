@@ -66,7 +66,7 @@ describe('web/runner.js: latest wins', () => {
     const answers = [];
     const pending = [];
     const send = (request) => new Promise((resolveAnswer) => { sent.push(request); pending.push(() => resolveAnswer(request * 10)); });
-    const submit = runner.latestWins(send, (answer, request) => answers.push([request, answer]));
+    const { submit } = runner.latestWins(send, (answer, request) => answers.push([request, answer]));
     submit(1);
     submit(2);
     submit(3);
@@ -81,11 +81,30 @@ describe('web/runner.js: latest wins', () => {
     assert.deepEqual(sent, [1, 3, 4]);
   });
 
+  test('with dropStale only the newest request\'s answer is handed on, and drop makes everything stale', async () => {
+    const pending = [];
+    const answers = [];
+    const send = (request) => new Promise((resolveAnswer) => { pending.push(() => resolveAnswer(request)); });
+    const { submit, drop } = runner.latestWins(send, (answer) => answers.push(answer), { dropStale: true });
+    submit('a');
+    submit('b');
+    pending.shift()();  // 'a' answers after 'b' was submitted: stale
+    await new Promise((r) => setTimeout(r, 0));
+    pending.shift()();  // 'b' is the newest
+    await new Promise((r) => setTimeout(r, 0));
+    assert.deepEqual(answers, ['b']);
+    submit('c');
+    drop();
+    pending.shift()();
+    await new Promise((r) => setTimeout(r, 0));
+    assert.deepEqual(answers, ['b'], 'dropped: not handed on');
+  });
+
   test('a failed request is reported and the next still goes', async () => {
     const errors = [];
     const answers = [];
-    const submit = runner.latestWins(async (request) => { if (request === 'bad') throw new Error('no'); return request; },
-      (answer) => answers.push(answer), (error, request) => errors.push([request, error.message]));
+    const { submit } = runner.latestWins(async (request) => { if (request === 'bad') throw new Error('no'); return request; },
+      (answer) => answers.push(answer), { onError: (error, request) => errors.push([request, error.message]) });
     submit('bad');
     await new Promise((r) => setTimeout(r, 0));
     submit('good');

@@ -70,10 +70,10 @@ export function whatIfCard(state, result, ctx, basis) {
     }
     card.dataset.paints = String(++paints);
   };
-  const submit = latestWins((request) => ctx.core.whatIf(request), paint, (error) => { sentence.textContent = error.message; });
+  const positions = latestWins((request) => ctx.core.whatIf(request), paint, { onError: (error) => { sentence.textContent = error.message; } });
   const tryValue = (value) => {
     shown.textContent = valueText(input, value, format);
-    submit(whatIfRequest(scenario, input, value, basis));
+    positions.submit(whatIfRequest(scenario, input, value, basis));
   };
   range.addEventListener('input', () => tryValue(valueAt(input, Number(range.value))));
   select.addEventListener('change', () => {
