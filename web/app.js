@@ -32,7 +32,9 @@ import { billedSystemId, efficiencyFor } from './equipment.js';
 import { autoLabel, fitSystemToCatalog, newFuelEntry, newSystem, setFuel, switchUnits } from './editing.js';
 import { rankedOptions, resultsCsv } from './results.js';
 import { latestWins } from './runner.js';
-import { bindVerdict, openHeatNeedTrace, renderVerdict, showDrawProgress } from './views/verdict.js';
+import { bindVerdict, renderVerdict } from './views/verdict.js';
+import { showDrawProgress } from './views/verdict-draws.js';
+import { openHeatNeedTrace } from './views/verdict-traces.js';
 
 const ANALYSIS_DEBOUNCE_MS = 350;
 /** The saved record of the demo quote (one, however often it is loaded). */

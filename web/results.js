@@ -165,3 +165,6 @@ export function billsUnitOf(fit, bills) {
   if (units.size === 1 && ENERGY_KWH[only] && fitKwh) return { factor: fitKwh / ENERGY_KWH[only], unit: only };
   return { factor: 1, unit: fit.unit ?? 'kWh' };
 }
+
+/** The bins worth drawing: an hour or more a year, and a load to meet. */
+export const heatingBins = (bins) => bins.filter((b) => (b.hours ?? 0) >= 1 && (b.load_kw ?? 0) > 0);
