@@ -29,7 +29,9 @@ import { renderLab } from './views/lab.js';
 import { renderQuotes } from './views/quotes.js';
 import { renderSystems } from './views/systems.js';
 import { billedSystemId, efficiencyFor } from './equipment.js';
-import { autoLabel, fitSystemToCatalog, newFuelEntry, newSystem, setFuel, switchUnits } from './editing.js';
+import {
+  addBill, addRating, appendBills, autoLabel, duplicateSystem, fitSystemToCatalog, newFuelEntry, newSystem, setFuel, switchUnits,
+} from './editing.js';
 import { rankedOptions, resultsCsv } from './results.js';
 import { latestWins } from './runner.js';
 import { bindVerdict, renderVerdict } from './views/verdict.js';
@@ -767,27 +769,10 @@ const ACTIONS = {
   'remove-charge': (d) => store.mutate(() => store.get(d.fuel).fixed_charges.splice(Number(d.index), 1)),
   'add-system': () => addSystem($('#add-system-kind').value),
   'remove-system': (d) => store.mutate((ws) => ws.systems.splice(Number(d.index), 1)),
-  'duplicate-system': (d) => store.mutate((ws) => {
-    const copy = structuredClone(ws.systems[Number(d.index)]);
-    copy.id = uniqueSystemId(ws, copy.id);
-    copy.label = `${copy.label || copy.id} (copy)`;
-    copy.existing = false;
-    ws.systems.splice(Number(d.index) + 1, 0, copy);
-  }),
-  'add-rating': (d) => store.mutate((ws) => {
-    const s = ws.systems[Number(d.system)].system;
-    const us = ws.settings.units === 'us';
-    s.ratings = [...(s.ratings ?? []), { outdoor: { unit: us ? 'degF' : 'degC' }, capacity: { unit: us ? 'Btu/h' : 'kW' } }];
-  }),
+  'duplicate-system': (d) => store.mutate((ws) => duplicateSystem(ws, Number(d.index))),
+  'add-rating': (d) => store.mutate((ws) => addRating(ws, Number(d.system))),
   'remove-rating': (d) => store.mutate((ws) => ws.systems[Number(d.system)].system.ratings.splice(Number(d.index), 1)),
-  'add-bill': () => store.mutate((ws) => {
-    const last = ws.demand.bills.at(-1);
-    const us = ws.settings.units === 'us';
-    // a new bill starts where the last one ended when its dates are meter reads
-    const start = ws.demand.bill_dates !== 'inclusive' && last?.end ? last.end : '';
-    ws.demand.bills.push({ start, end: '', unit: last?.unit ?? (us ? 'therm' : 'kWh'),
-      mean_temperature: { unit: last?.mean_temperature?.unit ?? (us ? 'degF' : 'degC') } });
-  }),
+  'add-bill': () => store.mutate((ws) => addBill(ws)),
   'paste-bills': () => {
     const text = $('#bills-paste')?.value ?? '';
     const { bills, problems } = parseBillLines(text, prefs.locale);
@@ -797,14 +782,7 @@ const ACTIONS = {
     if (!bills.length && !problems.length) lines.push('Nothing to add: paste one bill a line.');
     // the lines not read stay in the box to be corrected
     ctx.billPaste = { text: problems.map((p) => p.text).join('\n'), message: { ok: !problems.length && bills.length > 0, text: lines.join('\n') } };
-    store.mutate((ws) => {
-      const us = ws.settings.units === 'us';
-      for (const bill of bills) {
-        const last = ws.demand.bills.at(-1);
-        ws.demand.bills.push({ start: bill.start, end: bill.end, quantity: bill.quantity, unit: bill.unit ?? last?.unit ?? (us ? 'therm' : 'kWh'),
-          mean_temperature: { unit: last?.mean_temperature?.unit ?? (us ? 'degF' : 'degC') } });
-      }
-    });
+    store.mutate((ws) => appendBills(ws, bills));
   },
   'observed-clear': () => store.mutate((ws) => { delete ws.demand.observed; delete ws.demand.observed_label; }),
   'climate-drop': (d) => store.mutate((ws) => {

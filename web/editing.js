@@ -86,6 +86,45 @@ export function newSystem(ws, choice, catalog) {
   return sys;
 }
 
+/** A copy of system `index` right after it: an id of its own, "(copy)" in its label, not the system in the house now. */
+export function duplicateSystem(ws, index) {
+  const copy = structuredClone(ws.systems[index]);
+  copy.id = uniqueSystemId(ws, copy.id);
+  copy.label = `${copy.label || copy.id} (copy)`;
+  copy.existing = false;
+  ws.systems.splice(index + 1, 0, copy);
+}
+
+/** A new data-sheet point on system `index`, its temperature and capacity units the quote's. */
+export function addRating(ws, index) {
+  const s = ws.systems[index].system;
+  const us = ws.settings.units === 'us';
+  s.ratings = [...(s.ratings ?? []), { outdoor: { unit: us ? 'degF' : 'degC' }, capacity: { unit: us ? 'Btu/h' : 'kW' } }];
+}
+
+/** The unit of a new bill and of its average temperature: the last bill's, else the quote's (therm, degF in US units). */
+function billUnits(ws) {
+  const last = ws.demand.bills.at(-1);
+  const us = ws.settings.units === 'us';
+  return { unit: last?.unit ?? (us ? 'therm' : 'kWh'), temperature: last?.mean_temperature?.unit ?? (us ? 'degF' : 'degC') };
+}
+
+/** A new empty bill, starting where the last one ended when the dates are meter reads. */
+export function addBill(ws) {
+  const last = ws.demand.bills.at(-1);
+  const start = ws.demand.bill_dates !== 'inclusive' && last?.end ? last.end : '';
+  const { unit, temperature } = billUnits(ws);
+  ws.demand.bills.push({ start, end: '', unit, mean_temperature: { unit: temperature } });
+}
+
+/** Bills read from pasted lines ({start, end, quantity, unit?}), each in the unit it gives or the last bill's. */
+export function appendBills(ws, bills) {
+  for (const bill of bills) {
+    const { unit, temperature } = billUnits(ws);
+    ws.demand.bills.push({ start: bill.start, end: bill.end, quantity: bill.quantity, unit: bill.unit ?? unit, mean_temperature: { unit: temperature } });
+  }
+}
+
 /** A quantity with a unit but no value yet takes the new system's unit. */
 function convertUnitOnly(q, system) {
   if (!q || typeof q.value === 'number' || !q.unit) return q;

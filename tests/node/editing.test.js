@@ -88,4 +88,25 @@ describe('web/editing.js', () => {
       assert.equal(switched.options[i].useful_heat_kwh.toFixed(6), option.useful_heat_kwh.toFixed(6));
     }
   });
+  test('a duplicated system, a data-sheet point and bills added as typed or pasted', () => {
+    const ws = demo.demoWorkspace();
+    const first = ws.systems[0];
+    editing.duplicateSystem(ws, 0);
+    const copy = ws.systems[1];
+    assert.notEqual(copy.id, first.id);
+    assert.equal(copy.label, `${first.label || first.id} (copy)`);
+    assert.equal(copy.existing, false);
+    editing.addRating(ws, 1);
+    assert.deepEqual(copy.system.ratings.at(-1), ws.settings.units === 'us'
+      ? { outdoor: { unit: 'degF' }, capacity: { unit: 'Btu/h' } } : { outdoor: { unit: 'degC' }, capacity: { unit: 'kW' } });
+    ws.demand.bills = [{ start: '2025-01-14', end: '2025-02-12', quantity: 120, unit: 'ccf', mean_temperature: { unit: 'degF' } }];
+    ws.demand.bill_dates = 'meter-reads';
+    editing.addBill(ws);
+    assert.deepEqual(ws.demand.bills[1], { start: '2025-02-12', end: '', unit: 'ccf', mean_temperature: { unit: 'degF' } });
+    ws.demand.bill_dates = 'inclusive';
+    editing.addBill(ws);
+    assert.equal(ws.demand.bills[2].start, '');
+    editing.appendBills(ws, [{ start: '2025-03-14', end: '2025-04-11', quantity: 80 }, { start: '2025-04-11', end: '2025-05-12', quantity: 41, unit: 'therm' }]);
+    assert.deepEqual(ws.demand.bills.slice(3).map((b) => [b.quantity, b.unit]), [[80, 'ccf'], [41, 'therm']]);
+  });
 });
