@@ -446,9 +446,11 @@ function drawsKey(ws) {
   return JSON.stringify(toScenario(ws));
 }
 
+/** Cancels the run under way (its answer is stale: not shown). */
 function stopDraws() {
   const run = verdict.mc.run;
   verdict.mc.run = null;
+  drawRuns.drop();
   run?.cancel();
 }
 
@@ -474,7 +476,8 @@ function updateDrawsPanel() {
   paintVerdict();
 }
 
-async function runDraws() {
+/** Starts the price draws for the entries now, through runner.js (a run the entries have left behind is cancelled and not shown). */
+function runDraws() {
   const ws = store.state;
   if (!ws.uncertainty?.enabled || !ws.systems.length) return;
   const scenario = toScenario(ws);
@@ -484,6 +487,11 @@ async function runDraws() {
     updateDrawsPanel();
     return;
   }
+  drawRuns.submit({ scenario, key });
+}
+
+/** The draws' run in their own worker, its progress shown in place while it is the run on screen. */
+function startDrawRun({ scenario, key }) {
   const run = draws.evaluateWithProgress(scenario, {
     onProgress: ({ done }) => {
       if (verdict.mc.run !== run) return;
@@ -496,27 +504,34 @@ async function runDraws() {
   verdictBody.dataset.draws = 'running';
   verdictBody.dataset.drawProgress = '0';
   paintVerdict();
-  try {
-    const reply = await run.promise;
-    if (verdict.mc.run !== run) return;
-    if (reply.errors?.length) {
-      // shown in the panel and, where they point at a field (draws, seed, a spread), next to it
-      verdict.mc = { state: 'error', key, errors: reply.errors, message: reply.errors.map((e) => (e.path ? `${e.path}: ${e.message}` : e.message)).join('; ') };
-      showErrors();
-    } else {
-      const u = reply.uncertainty;
-      verdict.mc = { state: u?.cancelled ? 'cancelled' : 'done', key, uncertainty: u, analysisYears: reply.economics?.analysis_years,
-        options: (reply.options ?? []).map((o) => ({ id: o.id, label: o.label })) };
-    }
-  } catch (failure) {
-    if (verdict.mc.run !== run) return;
-    verdict.mc = failure.cancelled ? { state: 'cancelled', key } : { state: 'error', key, message: failure.message };
+  return run.promise;
+}
+
+function showDraws(reply, { key }) {
+  if (reply.errors?.length) {
+    // shown in the panel and, where they point at a field (draws, seed, a spread), next to it
+    verdict.mc = { state: 'error', key, errors: reply.errors, message: reply.errors.map((e) => (e.path ? `${e.path}: ${e.message}` : e.message)).join('; ') };
+  } else {
+    const u = reply.uncertainty;
+    verdict.mc = { state: u?.cancelled ? 'cancelled' : 'done', key, uncertainty: u, analysisYears: reply.economics?.analysis_years,
+      options: (reply.options ?? []).map((o) => ({ id: o.id, label: o.label })) };
   }
+  drawsShown();
+}
+
+function showDrawsFailure(failure, { key }) {
+  verdict.mc = failure.cancelled ? { state: 'cancelled', key } : { state: 'error', key, message: failure.message };
+  drawsShown();
+}
+
+function drawsShown() {
   verdictBody.dataset.draws = verdict.mc.state;
   showErrors();
   paintVerdict();
   paintSheet();
 }
+
+const drawRuns = latestWins(startDrawRun, showDraws, { dropStale: true, onError: showDrawsFailure });
 
 // ---------------------------------------------------------------------------
 // Saving
