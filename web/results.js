@@ -168,3 +168,11 @@ export function billsUnitOf(fit, bills) {
 
 /** The bins worth drawing: an hour or more a year, and a load to meet. */
 export const heatingBins = (bins) => bins.filter((b) => (b.hours ?? 0) >= 1 && (b.load_kw ?? 0) > 0);
+
+/**
+ * The system in the house now as a sentence names it: "the existing oil boiler, 86 AFUE" for a label that
+ * says so already, else "Gas furnace, the system in the house now".
+ */
+export function systemNowWords(label) {
+  return /^existing\s/i.test(label) ? `the e${label.slice(1)}` : `${label}, the system in the house now`;
+}

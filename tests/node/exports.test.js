@@ -125,6 +125,12 @@ describe('payback in plain words', () => {
 });
 
 describe('charts in the customer\'s units', () => {
+  test('the system in the house now, named in a sentence', () => {
+    assert.equal(verdict.systemNowWords('Existing oil boiler, 86 AFUE'), 'the existing oil boiler, 86 AFUE');
+    assert.equal(verdict.systemNowWords('Gas furnace, 80 AFUE'), 'Gas furnace, 80 AFUE, the system in the house now');
+    assert.equal(verdict.systemNowWords('Existingly odd'), 'Existingly odd, the system in the house now');
+  });
+
   test('the bills chart speaks the bills\' energy unit; a volume stays in the core\'s kWh', () => {
     const fit = { unit: 'kWh' };
     const therms = [{ unit: 'therm' }, { unit: 'therm' }];

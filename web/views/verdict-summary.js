@@ -1,7 +1,7 @@
 // The verdict's summary sections: the headline with the saving against the system in the house now, the
 // ranked table, the costs over the years, the equipment and charges beside the fuel, the climate in brief.
 import { h } from '../dom.js';
-import { displayValues, equipmentNotes, fuelUsedText, hasLifeCycle, lifeOf, paybackWords, rankedOptions, years } from '../results.js';
+import { displayValues, equipmentNotes, fuelUsedText, hasLifeCycle, lifeOf, paybackWords, rankedOptions, systemNowWords, years } from '../results.js';
 import { co2In, convertTemperature, ENERGY_KWH, UA_W_PER_K, unitLabel } from '../units.js';
 import { ECONOMIC_LABELS, isNum, numButton } from './verdict-numbers.js';
 
@@ -77,7 +77,7 @@ export function economicsSection(result, ws, ctx) {
     `Life-cycle cost${isNum(n) ? ` (${n} years)` : ''}`, `Cost of heat per ${energyUnit} over the years`, 'CO2e avoided (t)', 'Cost per tonne CO2e avoided'];
   const basis = e.basis === 'nominal' ? 'future (nominal) money' : 'today\'s (real) money';
   const intro = baseline
-    ? `Against ${baseline.label ?? baseline.id} (the system in the house now), over ${n ?? '—'} years at ${isNum(e.discount_rate) ? format.percent(e.discount_rate, 1) : '—'} a year, in ${basis}.`
+    ? `Against ${systemNowWords(baseline.label ?? baseline.id)}, over ${n ?? '—'} years at ${isNum(e.discount_rate) ? format.percent(e.discount_rate, 1) : '—'} a year, in ${basis}.`
     : `Over ${n ?? '—'} years at ${isNum(e.discount_rate) ? format.percent(e.discount_rate, 1) : '—'} a year, in ${basis}. Mark the system in the house now as existing to see savings and payback.`;
   return h('section', { class: 'chart-card', id: 'economics' }, h('h3', { text: 'Costs over the years' }),
     h('p', { class: 'hint', text: intro }),
@@ -106,7 +106,7 @@ export function headline(result, ws, ctx, by) {
     const pay = !words ? '' : isNum(best.simple_payback_years) && words === years(best.simple_payback_years, format)
       ? `, paying back in ${words}` : `, but it ${words}`;
     const baseName = base?.label ?? baseline;
-    const now = /^existing\b/i.test(baseName) ? baseName : `${baseName}, the system in the house now`;
+    const now = systemNowWords(baseName);
     lines.push(h('p', { id: 'switch-line' }, best.annual_saving >= 0
       ? `Against ${now}, it saves ${format.money(best.annual_saving)} a year${pay}.`
       : `It costs ${format.money(-best.annual_saving)} a year more to run than ${now}.`));

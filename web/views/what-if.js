@@ -2,6 +2,7 @@
 // At each position the core's whatIf ranks the options again (one request in flight, the newest
 // next) and the card repaints its ranking and the saving, nothing else. The quote is not changed.
 import { h } from '../dom.js';
+import { systemNowWords } from '../results.js';
 import { latestWins } from '../runner.js';
 import { positionOf, valueAt, whatIfInputs, whatIfRequest } from '../what-if.js';
 
@@ -21,9 +22,8 @@ function savingSentence(answer, labels, format, basis) {
   if (!existing) return `${lead}.`;
   if (existing === top.id) return `${lead}: the system in the house now stays the cheapest.`;
   const saving = answer.options.find((o) => o.id === top.id)?.saving;
-  const now = labels.get(existing) ?? existing;
-  const against = /^existing\s/i.test(now) ? `the e${now.slice(1)}` : `${now}, the system in the house now`;
-  return typeof saving === 'number' ? `${lead}, saving ${format.money(saving)}${period} against ${against}.` : `${lead}.`;
+  return typeof saving === 'number'
+    ? `${lead}, saving ${format.money(saving)}${period} against ${systemNowWords(labels.get(existing) ?? existing)}.` : `${lead}.`;
 }
 
 /**
@@ -37,7 +37,9 @@ export function whatIfCard(state, result, ctx, basis) {
   const inputs = whatIfInputs(scenario, names);
   if (!inputs.length) return null;
   const memo = (state.whatIf ??= {});
-  let input = inputs.find((i) => i.key === memo.key) ?? inputs[0];
+  // first the price of the cheapest option's fuel, as the cost-against-price chart starts
+  const leaderFuel = (result.options ?? []).find((o) => o.id === result.ranking?.[0]?.id)?.fuel;
+  let input = inputs.find((i) => i.key === memo.key) ?? inputs.find((i) => i.key === `price:${leaderFuel}`) ?? inputs[0];
   const { format } = ctx;
   const select = h('select', { id: 'what-if-input', 'aria-label': 'The input to try' },
     inputs.map((i) => h('option', { value: i.key, text: i.label, selected: i.key === input.key })));
