@@ -1,6 +1,8 @@
 // Bad input: every message is part of the interface, so the tests pin the text.
 #include <gtest/gtest.h>
 
+#include <fstream>
+
 #include <cmath>
 #include <cstdio>
 #include <nlohmann/json.hpp>
@@ -179,6 +181,35 @@ TEST(errors, numbers_in_messages_are_printed_as_printf_would) {
     }
     EXPECT_EQ(fw::format_number(std::nan("")), "NaN");
     EXPECT_EQ(fw::format_number(-INFINITY), "-Infinity");
+}
+
+TEST(errors, one_reader_for_mixtures_and_ultimate_analyses_in_requests_and_scenarios) {
+    // The heating-value request and a scenario's custom fuel read "name:number" lists with the same words,
+    // and a scenario takes the object and array forms the request takes.
+    std::ifstream file("data/examples/custom-fuels.json");
+    const auto scenario = json::parse(file);
+    const auto evaluate = [](const json& s) { return json::parse(fw::evaluate_json(s.dump())); };
+    const auto as_given = evaluate(scenario);
+    ASSERT_TRUE(as_given.at("errors").empty()) << as_given.dump();
+    auto objects = scenario;
+    objects["options"][0]["fuel"]["mixture"] = json::array({{{"species", "CH4"}, {"fraction", 0.60}},
+                                                            {{"species", "CO2"}, {"fraction", 0.39}},
+                                                            {{"species", "N2"}, {"fraction", 0.01}}});
+    objects["options"][1]["fuel"]["ultimate"] = {{"C", 50.2}, {"H", 6.1}, {"O", 43.2}, {"N", 0.1}, {"S", 0}, {"ash", 0.4}};
+    const auto from_objects = evaluate(objects);
+    ASSERT_TRUE(from_objects.at("errors").empty()) << from_objects.dump();
+    for (std::size_t i = 0; i < 2; ++i)
+        EXPECT_DOUBLE_EQ(from_objects.at("options").at(i).at("annual_cost").get<double>(),
+                         as_given.at("options").at(i).at("annual_cost").get<double>());
+    auto bad = scenario;
+    bad["options"][0]["fuel"]["mixture"] = "CH4=1";
+    bad["options"][1]["fuel"]["ultimate"] = "C:50.2,Cl:0.5";
+    const auto errors = evaluate(bad).at("errors");
+    ASSERT_EQ(errors.size(), 2u) << errors.dump();
+    EXPECT_EQ(errors.at(0).at("path"), "/options/0/fuel/mixture/0");
+    EXPECT_EQ(errors.at(0).at("message"), "component \"CH4=1\" is not of the form species:fraction (e.g. CH4:0.95)");
+    EXPECT_EQ(errors.at(1).at("path"), "/options/1/fuel/ultimate/Cl");
+    EXPECT_EQ(errors.at(1).at("message"), "unknown item \"Cl\"; accepted: C, H, O, N, S, ash");
 }
 
 }  // namespace

@@ -15,92 +15,11 @@ using namespace json_fields;
 
 namespace {
 
-std::vector<mixture_component> parse_mixture_text(const std::string& text) {
-    std::vector<mixture_component> components;
-    std::size_t start = 0;
-    std::size_t index = 0;
-    while (start <= text.size()) {
-        const auto comma = text.find(',', start);
-        const auto item = text.substr(start, comma == std::string::npos ? std::string::npos : comma - start);
-        const std::string path = "/mixture/" + std::to_string(index);
-        const auto colon = item.find(':');
-        if (colon == std::string::npos || colon == 0 || colon + 1 == item.size())
-            throw input_error(path, "component \"" + item + "\" is not of the form species:fraction (e.g. CH4:0.95)");
-        components.push_back({item.substr(0, colon),
-                              parse_number_text(item.substr(colon + 1), path, "fraction of " + item.substr(0, colon))});
-        ++index;
-        if (comma == std::string::npos) break;
-        start = comma + 1;
-    }
-    return components;
-}
-
-std::vector<mixture_component> parse_mixture_value(const json& value) {
-    if (value.is_string()) return parse_mixture_text(value.get<std::string>());
-    std::vector<mixture_component> components;
-    if (value.is_array()) {
-        for (std::size_t i = 0; i < value.size(); ++i) {
-            const std::string path = "/mixture/" + std::to_string(i);
-            require_object(value[i], path);
-            const auto species = optional_string(value[i], "species", path);
-            const auto fraction = optional_number(value[i], "fraction", path);
-            if (!species || !fraction) throw input_error(path, "needs \"species\" and \"fraction\"");
-            components.push_back({*species, *fraction});
-        }
-        return components;
-    }
-    throw input_error("/mixture", "must be a string \"CH4:0.95,C2H6:0.03,N2:0.02\" or an array of {species, fraction}");
-}
-
 ultimate_request parse_ultimate(const json& request, std::vector<issue>& warnings) {
-    ultimate_request out;
-    const auto& value = request.at("ultimate");
-    std::vector<std::pair<std::string, double>> items;
-    if (value.is_string()) {
-        const auto text = value.get<std::string>();
-        std::size_t start = 0;
-        while (start <= text.size()) {
-            const auto comma = text.find(',', start);
-            const auto item = text.substr(start, comma == std::string::npos ? std::string::npos : comma - start);
-            const auto colon = item.find(':');
-            if (colon == std::string::npos || colon == 0)
-                throw input_error("/ultimate", "item \"" + item + "\" is not of the form element:wt% (e.g. C:50.2)");
-            const auto key = item.substr(0, colon);
-            items.push_back({key, parse_number_text(item.substr(colon + 1), "/ultimate/" + key, key)});
-            if (comma == std::string::npos) break;
-            start = comma + 1;
-        }
-    } else if (value.is_object()) {
-        for (const auto& item : value.items()) {
-            if (!item.value().is_number()) throw input_error("/ultimate/" + item.key(), "must be a number (wt %)");
-            items.push_back({item.key(), item.value().get<double>()});
-        }
-    } else {
-        throw input_error("/ultimate", "must be a string \"C:50.2,H:6.1,O:43.2,N:0.1,S:0,ash:0.4\" or an object");
-    }
-    for (const auto& [key, number] : items) {
-        double* target = key == "C" ? &out.carbon_pct : key == "H" ? &out.hydrogen_pct : key == "O" ? &out.oxygen_pct
-                       : key == "N" ? &out.nitrogen_pct : key == "S" ? &out.sulfur_pct : key == "ash" ? &out.ash_pct
-                                                                                                      : nullptr;
-        if (!target) throw input_error("/ultimate/" + key, "unknown item \"" + key + "\"; accepted: C, H, O, N, S, ash");
-        *target = number;
-    }
-    out.moisture_pct = optional_number(request, "moisture", "").value_or(0.0);
-    const auto basis = optional_string(request, "basis", "").value_or("dry");
-    if (basis == "dry") out.basis = analysis_basis::dry;
-    else if (basis == "as-received") out.basis = analysis_basis::as_received;
-    else if (basis == "daf") out.basis = analysis_basis::daf;
-    else throw input_error("/basis", "unknown basis \"" + basis + "\"; accepted: dry, as-received, daf");
+    auto out = read_ultimate_analysis(request, "");
     out.measured_hhv_dry_mj_per_kg = optional_number(request, "hhv_dry_mj_per_kg", "");
     warn_unknown_keys(request, {"ultimate", "moisture", "basis", "hhv_dry_mj_per_kg"}, "", warnings);
     return out;
-}
-
-json sources_json(const std::vector<source_note>& notes) {
-    auto list = json::array();
-    for (const auto& note : notes)
-        list.push_back({{"record", note.record}, {"value", note.value}, {"citation", note.citation}});
-    return list;
 }
 
 /// [kg CO2 / MMBtu HHV] from kg CO2 / kg and MJ/kg; 1 MMBtu = 1055.05585262 MJ.
@@ -168,7 +87,7 @@ json heating_value(const json& request, std::vector<issue>& warnings) {
     }
     if (request.contains("mixture")) {
         mixture_request mixture;
-        mixture.components = parse_mixture_value(request.at("mixture"));
+        mixture.components = read_mixture_components(request.at("mixture"), "/mixture");
         const auto basis = optional_string(request, "fractions", "").value_or("mole");
         if (basis == "mole") mixture.basis = fraction_basis::mole;
         else if (basis == "mass") mixture.basis = fraction_basis::mass;

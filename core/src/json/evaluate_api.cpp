@@ -43,12 +43,6 @@ answer_detail read_detail(const json& document) {
     return detail;
 }
 
-json sources_json(const std::vector<source_note>& notes) {
-    auto list = json::array();
-    for (const auto& note : notes) list.push_back({{"record", note.record}, {"value", note.value}, {"citation", note.citation}});
-    return list;
-}
-
 json option_json(const option_result& r, const scenario& input, const answer_detail& detail) {
     const double kwh_per_mmbtu = convert(1, "MMBtu", "kWh");
     const double kwh_per_gj = convert(1, "GJ", "kWh");

@@ -123,4 +123,83 @@ std::string error_response(const std::vector<issue>& errors) {
     return dump_text(nlohmann::json{{"errors", issues_json(errors)}, {"warnings", nlohmann::json::array()}});
 }
 
+std::vector<std::pair<std::string, double>> read_name_number_list(const std::string& text, const std::string& path,
+                                                                  const std::string& noun, const std::string& form,
+                                                                  const std::string& number_prefix) {
+    std::vector<std::pair<std::string, double>> out;
+    std::size_t start = 0, index = 0;
+    while (start <= text.size()) {
+        auto comma = text.find(',', start);
+        if (comma == std::string::npos) comma = text.size();
+        const auto item = text.substr(start, comma - start);
+        const auto colon = item.find(':');
+        const std::string item_path = path + "/" + std::to_string(index);
+        if (colon == std::string::npos || colon == 0 || colon + 1 == item.size())
+            throw input_error(item_path, noun + " \"" + item + "\" is not of the form " + form);
+        const auto name = item.substr(0, colon);
+        out.push_back({name, parse_number_text(item.substr(colon + 1), item_path, number_prefix + name)});
+        start = comma + 1;
+        ++index;
+    }
+    return out;
+}
+
+std::vector<mixture_component> read_mixture_components(const nlohmann::json& value, const std::string& path) {
+    std::vector<mixture_component> components;
+    if (value.is_string()) {
+        for (const auto& [name, fraction] :
+             read_name_number_list(value.get<std::string>(), path, "component", "species:fraction (e.g. CH4:0.95)", "fraction of "))
+            components.push_back({name, fraction});
+        return components;
+    }
+    if (!value.is_array())
+        throw input_error(path, "must be a string \"CH4:0.95,C2H6:0.03,N2:0.02\" or an array of {species, fraction}");
+    for (std::size_t i = 0; i < value.size(); ++i) {
+        const std::string item_path = path + "/" + std::to_string(i);
+        require_object(value[i], item_path);
+        const auto species = optional_string(value[i], "species", item_path);
+        const auto fraction = optional_number(value[i], "fraction", item_path);
+        if (!species || !fraction) throw input_error(item_path, "needs \"species\" and \"fraction\"");
+        components.push_back({*species, *fraction});
+    }
+    return components;
+}
+
+ultimate_request read_ultimate_analysis(const nlohmann::json& holder, const std::string& path) {
+    const std::string at = path + "/ultimate";
+    const auto& value = holder.at("ultimate");
+    std::vector<std::pair<std::string, double>> items;
+    if (value.is_string()) {
+        items = read_name_number_list(value.get<std::string>(), at, "item", "element:wt% (e.g. C:50.2)", "");
+    } else if (value.is_object()) {
+        for (const auto& item : value.items()) {
+            if (!item.value().is_number()) throw input_error(at + "/" + item.key(), "must be a number (wt %)");
+            items.push_back({item.key(), item.value().get<double>()});
+        }
+    } else {
+        throw input_error(at, "must be a string \"C:50.2,H:6.1,O:43.2,N:0.1,S:0,ash:0.4\" or an object");
+    }
+    ultimate_request out;
+    for (const auto& [key, number] : items) {
+        double* target = key == "C" ? &out.carbon_pct : key == "H" ? &out.hydrogen_pct : key == "O" ? &out.oxygen_pct
+                       : key == "N" ? &out.nitrogen_pct : key == "S" ? &out.sulfur_pct : key == "ash" ? &out.ash_pct
+                                                                                                      : nullptr;
+        if (!target) throw input_error(at + "/" + key, "unknown item \"" + key + "\"; accepted: C, H, O, N, S, ash");
+        *target = number;
+    }
+    out.moisture_pct = optional_number(holder, "moisture", path).value_or(0.0);
+    const auto basis = optional_string(holder, "basis", path).value_or("dry");
+    if (basis == "dry") out.basis = analysis_basis::dry;
+    else if (basis == "as-received") out.basis = analysis_basis::as_received;
+    else if (basis == "daf") out.basis = analysis_basis::daf;
+    else throw input_error(path + "/basis", "unknown basis \"" + basis + "\"; accepted: dry, as-received, daf");
+    return out;
+}
+
+nlohmann::json sources_json(const std::vector<source_note>& notes) {
+    auto list = nlohmann::json::array();
+    for (const auto& note : notes) list.push_back({{"record", note.record}, {"value", note.value}, {"citation", note.citation}});
+    return list;
+}
+
 }  // namespace fw::json_fields

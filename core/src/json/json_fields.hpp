@@ -8,6 +8,7 @@
 
 #include "base/error.hpp"
 #include "base/units.hpp"
+#include "thermo/combustion.hpp"
 
 namespace fw::json_fields {
 
@@ -71,5 +72,22 @@ std::string guarded_entry(const std::string& request_text, Body body) noexcept {
         return error_response({{"", "internal error"}});
     }
 }
+
+/// A "name:number,name:number" list as pairs: an item not of that form is refused at `path`/index as
+/// `noun` "item" is not of the form `form`; a number that does not read, at `path`/index, as
+/// `number_prefix` + name.
+std::vector<std::pair<std::string, double>> read_name_number_list(const std::string& text, const std::string& path,
+                                                                  const std::string& noun, const std::string& form,
+                                                                  const std::string& number_prefix);
+
+/// A gas mixture's components at `path`: "CH4:0.95,C2H6:0.03,N2:0.02" or [{species, fraction}].
+std::vector<mixture_component> read_mixture_components(const nlohmann::json& value, const std::string& path);
+
+/// The ultimate analysis `holder` carries at `path`: its "ultimate" ("C:50.2,H:6.1,…" or {"C": 50.2, …} in wt %),
+/// "moisture" (wt %, default 0) and "basis" (dry, as-received or daf; default dry).
+ultimate_request read_ultimate_analysis(const nlohmann::json& holder, const std::string& path);
+
+/// The data records a result used, as answers list them: [{record, value, citation}].
+nlohmann::json sources_json(const std::vector<source_note>& notes);
 
 }  // namespace fw::json_fields

@@ -343,9 +343,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
     out.demand_method = optional_string(demand, "method", "/demand").value_or("direct");
     const auto& method = out.demand_method;
     const bool us = out.settings.units == unit_system::us;
-    const auto energy_text = [&](double kwh) {
-        return us ? format_fixed(convert(kwh, "kWh", "MMBtu"), 2) + " MMBtu" : format_fixed(kwh, 0) + " kWh";
-    };
+    const auto energy_text = [&](double kwh) { return fw::energy_text(kwh, out.settings.units); };
     const auto temp_text = [&](double c) {
         const bool f = out.climate ? out.climate->fahrenheit : us;
         return f ? format_fixed(convert(c, "degC", "degF"), 1) + " degF" : format_fixed(c, 1) + " degC";

@@ -74,26 +74,6 @@ std::string required_string(const json& obj, const std::string& key, const std::
     return *value;
 }
 
-/// Parses "a:1,b:2" into name/number pairs.
-std::vector<std::pair<std::string, double>> parse_pairs(const std::string& text, const std::string& path,
-                                                        const std::string& form) {
-    std::vector<std::pair<std::string, double>> out;
-    std::size_t start = 0, index = 0;
-    while (start <= text.size()) {
-        auto comma = text.find(',', start);
-        if (comma == std::string::npos) comma = text.size();
-        const auto item = text.substr(start, comma - start);
-        const auto colon = item.find(':');
-        const std::string item_path = path + "/" + std::to_string(index);
-        if (colon == std::string::npos || colon == 0 || colon + 1 == item.size())
-            throw input_error(item_path, "\"" + item + "\" is not of the form " + form);
-        out.push_back({item.substr(0, colon), parse_number_text(item.substr(colon + 1), item_path, item.substr(0, colon))});
-        start = comma + 1;
-        ++index;
-    }
-    return out;
-}
-
 fuel_record read_custom_fuel(const json& fuel, const std::string& path, std::vector<issue>& warnings) {
     require_object(fuel, path);
     custom_fuel_request request;
@@ -127,9 +107,7 @@ fuel_record read_custom_fuel(const json& fuel, const std::string& path, std::vec
         request.compound = compound;
     } else if (fuel.contains("mixture")) {
         mixture_request mixture;
-        for (const auto& [name, fraction] :
-             parse_pairs(required_string(fuel, "mixture", path), path + "/mixture", "species:fraction (e.g. CH4:0.95)"))
-            mixture.components.push_back({name, fraction});
+        mixture.components = read_mixture_components(fuel.at("mixture"), path + "/mixture");
         const auto basis = optional_string(fuel, "fractions", path).value_or("mole");
         if (basis != "mole" && basis != "mass")
             throw input_error(path + "/fractions", "unknown fraction basis \"" + basis + "\"; accepted: mole, mass");
@@ -138,22 +116,7 @@ fuel_record read_custom_fuel(const json& fuel, const std::string& path, std::vec
         mixture.reference = reference;
         request.mixture = mixture;
     } else {
-        ultimate_request ultimate;
-        for (const auto& [key, value] :
-             parse_pairs(required_string(fuel, "ultimate", path), path + "/ultimate", "element:wt% (e.g. C:50.2)")) {
-            double* target = key == "C" ? &ultimate.carbon_pct : key == "H" ? &ultimate.hydrogen_pct
-                           : key == "O" ? &ultimate.oxygen_pct : key == "N" ? &ultimate.nitrogen_pct
-                           : key == "S" ? &ultimate.sulfur_pct : key == "ash" ? &ultimate.ash_pct : nullptr;
-            if (!target) throw input_error(path + "/ultimate", "unknown item \"" + key + "\"; accepted: C, H, O, N, S, ash");
-            *target = value;
-        }
-        ultimate.moisture_pct = optional_number(fuel, "moisture", path).value_or(0.0);
-        const auto basis = optional_string(fuel, "basis", path).value_or("dry");
-        if (basis == "dry") ultimate.basis = analysis_basis::dry;
-        else if (basis == "as-received") ultimate.basis = analysis_basis::as_received;
-        else if (basis == "daf") ultimate.basis = analysis_basis::daf;
-        else throw input_error(path + "/basis", "unknown basis \"" + basis + "\"; accepted: dry, as-received, daf");
-        request.ultimate = ultimate;
+        request.ultimate = read_ultimate_analysis(fuel, path);
     }
     if (!request.ultimate)
         for (const char* key : {"moisture", "basis"})

@@ -10,15 +10,10 @@
 
 namespace fw {
 
-namespace {
-
-/// Energy as the trace says it: MMBtu for a US scenario, kWh otherwise.
 std::string energy_text(double kwh, unit_system units) {
     if (units == unit_system::us) return format_fixed(convert(kwh, "kWh", "MMBtu"), 2) + " MMBtu";
     return format_fixed(kwh, 0) + " kWh";
 }
-
-}  // namespace
 
 emissions emissions_of(const fuel_record& fuel, double fuel_kwh_hhv, const scenario_settings& settings) {
     emissions out;

@@ -307,10 +307,7 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
     }
 
     // Trace.
-    const bool us = input.settings.units == unit_system::us;
-    const auto energy_text = [&](double kwh) {
-        return us ? format_fixed(convert(kwh, "kWh", "MMBtu"), 2) + " MMBtu" : format_fixed(kwh, 0) + " kWh";
-    };
+    const auto energy_text = [&](double kwh) { return fw::energy_text(kwh, input.settings.units); };
     r.trace.push_back("useful heat " + energy_text(r.useful_heat_kwh) + " (" + input.demand_method + " demand)" +
                       (input.hot_water_kwh > 0 ? ", of which hot water " + energy_text(input.hot_water_kwh) : ""));
     for (const auto& line : sheet_trace) r.trace.push_back(line);

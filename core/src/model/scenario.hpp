@@ -198,6 +198,9 @@ double priced_cost(const scenario_option& option, double quantity);
 /// nullopt without a climate.
 std::optional<double> house_design_load_kw(const scenario& input);
 
+/// Energy as traces and messages say it: MMBtu to 2 decimals in a US scenario, whole kWh otherwise.
+std::string energy_text(double kwh, unit_system units);
+
 /// Evaluates one option of a scenario; throws input_error for an impossible combination.
 option_result evaluate_option(const scenario& input, const scenario_option& option);
 
