@@ -1,10 +1,9 @@
 // Bad input: every message is part of the interface, so the tests pin the text.
 #include <gtest/gtest.h>
 
-#include <fstream>
-
 #include <cmath>
 #include <cstdio>
+#include <fstream>
 #include <nlohmann/json.hpp>
 
 #include "fw/api.hpp"

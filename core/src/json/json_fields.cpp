@@ -123,6 +123,18 @@ std::string error_response(const std::vector<issue>& errors) {
     return dump_text(nlohmann::json{{"errors", issues_json(errors)}, {"warnings", nlohmann::json::array()}});
 }
 
+double required_number(const nlohmann::json& obj, const std::string& key, const std::string& path) {
+    const auto value = optional_number(obj, key, path);
+    if (!value) throw input_error(path + "/" + key, "is required (a number)");
+    return *value;
+}
+
+std::string required_string(const nlohmann::json& obj, const std::string& key, const std::string& path) {
+    const auto value = optional_string(obj, key, path);
+    if (!value || value->empty()) throw input_error(path + "/" + key, "is required (text)");
+    return *value;
+}
+
 std::vector<std::pair<std::string, double>> read_name_number_list(const std::string& text, const std::string& path,
                                                                   const std::string& noun, const std::string& form,
                                                                   const std::string& number_prefix) {

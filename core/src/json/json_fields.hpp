@@ -73,6 +73,22 @@ std::string guarded_entry(const std::string& request_text, Body body) noexcept {
     }
 }
 
+/// A number `key` of `obj` that must be there: refused at path/key as "is required (a number)".
+double required_number(const nlohmann::json& obj, const std::string& key, const std::string& path);
+
+/// A text `key` of `obj` that must be there and not be empty: refused at path/key as "is required (text)".
+std::string required_string(const nlohmann::json& obj, const std::string& key, const std::string& path);
+
+/// Runs `body`, and an input_error it throws becomes one of `errors` (at its path) instead of ending the reading.
+template <typename Body>
+void collect_errors(std::vector<issue>& errors, Body&& body) {
+    try {
+        body();
+    } catch (const input_error& error) {
+        errors.push_back({error.path(), error.message()});
+    }
+}
+
 /// A "name:number,name:number" list as pairs: an item not of that form is refused at `path`/index as
 /// `noun` "item" is not of the form `form`; a number that does not read, at `path`/index, as
 /// `number_prefix` + name.

@@ -26,11 +26,7 @@ struct checker {
     void error(const std::string& path, const std::string& message) { errors.push_back({path, message}); }
     template <typename Body>
     void attempt(Body body) {
-        try {
-            body();
-        } catch (const input_error& e) {
-            error(e.path(), e.message());
-        }
+        collect_errors(errors, body);
     }
 };
 
@@ -48,12 +44,6 @@ double positive_amount(const json& obj, const std::string& key, const std::strin
     if (!value) throw input_error(path + "/" + key, "is required (a number)");
     if (allow_zero ? *value < 0 : *value <= 0)
         throw input_error(path + "/" + key, std::string("must be ") + (allow_zero ? ">= 0" : "> 0") + ", got " + format_number(*value));
-    return *value;
-}
-
-std::string required_text(const json& obj, const std::string& key, const std::string& path) {
-    const auto value = optional_string(obj, key, path);
-    if (!value || value->empty()) throw input_error(path + "/" + key, "is required (text)");
     return *value;
 }
 
@@ -82,9 +72,9 @@ bool is_site_image(const std::string& logo) {
 void check_price(const json& item, const std::string& path, const std::string& currency, checker& c, json& summary) {
     require_object(item, path);
     only_keys(item, {"fuel", "unit", "amount", "tiers", "fixed_charges", "delivery_minimum", "note"}, path, c);
-    const auto fuel_id = required_text(item, "fuel", path);
+    const auto fuel_id = required_string(item, "fuel", path);
     const auto& fuel = find_fuel(fuel_id, path + "/fuel");
-    const auto unit = required_text(item, "unit", path);
+    const auto unit = required_string(item, "unit", path);
     heating_value_per_sale_unit(fuel, unit, {}, path + "/unit");
     const bool tiered = item.contains("tiers");
     double amount = 0;
@@ -121,7 +111,7 @@ void check_price(const json& item, const std::string& path, const std::string& c
             const std::string charge_path = path + "/fixed_charges/" + std::to_string(i);
             require_object(charges[i], charge_path);
             only_keys(charges[i], {"label", "amount_per_month", "amount_per_year"}, charge_path, c);
-            required_text(charges[i], "label", charge_path);
+            required_string(charges[i], "label", charge_path);
             const bool monthly = charges[i].contains("amount_per_month"), yearly = charges[i].contains("amount_per_year");
             if (monthly == yearly) throw input_error(charge_path, "give either amount_per_month or amount_per_year");
             positive_amount(charges[i], monthly ? "amount_per_month" : "amount_per_year", charge_path, true);
@@ -132,7 +122,7 @@ void check_price(const json& item, const std::string& path, const std::string& c
         require_object(minimum, path + "/delivery_minimum");
         only_keys(minimum, {"value", "unit"}, path + "/delivery_minimum", c);
         positive_amount(minimum, "value", path + "/delivery_minimum");
-        const auto minimum_unit = required_text(minimum, "unit", path + "/delivery_minimum");
+        const auto minimum_unit = required_string(minimum, "unit", path + "/delivery_minimum");
         heating_value_per_sale_unit(fuel, minimum_unit, {}, path + "/delivery_minimum/unit");
     }
     if (amount > 0 && fuel.category == fuel_category::electricity && amount > 5)
@@ -162,7 +152,7 @@ std::string check_prices_json(const std::string& text, const std::string& today)
             const auto& supplier = doc.at("supplier");
             require_object(supplier, "/supplier");
             only_keys(supplier, {"name", "contact", "quote_text", "phone", "help_text", "logo"}, "/supplier", c);
-            out["supplier"] = required_text(supplier, "name", "/supplier");
+            out["supplier"] = required_string(supplier, "name", "/supplier");
             optional_string(supplier, "contact", "/supplier");
             optional_string(supplier, "quote_text", "/supplier");
             optional_string(supplier, "phone", "/supplier");
@@ -174,7 +164,7 @@ std::string check_prices_json(const std::string& text, const std::string& today)
         });
         std::string currency = "USD";
         c.attempt([&] {
-            currency = required_text(doc, "currency", "");
+            currency = required_string(doc, "currency", "");
             const bool code = currency.size() == 3 &&
                               std::all_of(currency.begin(), currency.end(), [](char ch) { return ch >= 'A' && ch <= 'Z'; });
             if (!code) throw input_error("/currency", "must be an ISO 4217 code of three capital letters, got \"" + currency + "\"");
@@ -184,7 +174,7 @@ std::string check_prices_json(const std::string& text, const std::string& today)
         bool dates = true;
         c.attempt([&] {
             try {
-                const auto text_effective = required_text(doc, "effective", "");
+                const auto text_effective = required_string(doc, "effective", "");
                 effective = parse_day_number(text_effective, "/effective");
                 out["effective"] = text_effective;
             } catch (...) {
@@ -194,7 +184,7 @@ std::string check_prices_json(const std::string& text, const std::string& today)
         });
         c.attempt([&] {
             try {
-                const auto text_expires = required_text(doc, "expires", "");
+                const auto text_expires = required_string(doc, "expires", "");
                 expires = parse_day_number(text_expires, "/expires");
                 out["expires"] = text_expires;
             } catch (...) {

@@ -62,18 +62,6 @@ std::pair<std::string, std::string> energy_per_unit(const std::string& text, con
     return {energy, text.substr(slash + 1)};
 }
 
-double required_number(const json& obj, const std::string& key, const std::string& path) {
-    const auto value = optional_number(obj, key, path);
-    if (!value) throw input_error(path + "/" + key, "is required (a number)");
-    return *value;
-}
-
-std::string required_string(const json& obj, const std::string& key, const std::string& path) {
-    const auto value = optional_string(obj, key, path);
-    if (!value || value->empty()) throw input_error(path + "/" + key, "is required (a non-empty string)");
-    return *value;
-}
-
 fuel_record read_custom_fuel(const json& fuel, const std::string& path, std::vector<issue>& warnings) {
     require_object(fuel, path);
     custom_fuel_request request;
@@ -676,13 +664,7 @@ void read_quote_extras(const json& quote, std::vector<issue>& warnings) {
 
 scenario read_scenario(const json& document, std::vector<issue>& errors, std::vector<issue>& warnings) {
     scenario out;
-    auto attempt = [&](auto&& body) {
-        try {
-            body();
-        } catch (const input_error& error) {
-            errors.push_back({error.path(), error.message()});
-        }
-    };
+    const auto attempt = [&](auto&& body) { collect_errors(errors, body); };
     attempt([&] {
         require_object(document, "");
         const auto schema = optional_string(document, "schema", "");
