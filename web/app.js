@@ -15,7 +15,7 @@ import { slipFor } from './slips.js';
 import { parseBillLines } from './bills.js';
 import { MAX_LOGO_BYTES, companyOf, normalizeProfile, takeQuoteNumber, validUntil } from './profile.js';
 import { renderProfile } from './views/profile.js';
-import { blankWorkspace, exportDocument, fuelId, newFuelKey, toScenario, today, uniqueSystemId, withoutUncertainty } from './scenario.js';
+import { blankWorkspace, exportDocument, fuelId, newFuelKey, toScenario, today, withoutUncertainty } from './scenario.js';
 import {
   currentQuoteId, loadPreferences, loadProfile, migrateRecord, newId, notDeletedMessage, notMigratedMessage, notRestoredMessage, openQuotes,
   recordProblem, savePreferences, saveProfile, setCurrentQuoteId, verdictSummary, workspaceFromFile, workspaceOf,
@@ -298,6 +298,7 @@ function scheduleEvaluate() {
   const ws = store.state;
   if (!ws.systems.length) {
     evaluations.drop();
+    setProgress(null);
     showEvaluation(null, { gen });
     return;
   }
@@ -390,6 +391,7 @@ function runAnalyses() {
   const users = ws.systems.filter((s) => s.fuel_key === entry?.key).map((s) => s.id);
   const none = (message) => {
     analyses.drop();
+    setProgress(null);
     verdict.analysis = { state: 'none', fuelIndex, message };
     paintVerdict();
     verdictBody.dataset.analysis = String(gen);
@@ -459,13 +461,13 @@ function scheduleDraws({ now = false } = {}) {
   const ws = store.state;
   const mc = verdict.mc;
   if (!ws.uncertainty?.enabled || !ws.systems.length) {
-    if (mc.run) stopDraws();
+    stopDraws();
     verdict.mc = { state: 'off' };
     return;
   }
   const key = drawsKey(ws);
   if (!now && key === mc.key && ['running', 'done', 'cancelled', 'error'].includes(mc.state)) return;
-  if (mc.run) stopDraws();
+  stopDraws();
   verdict.mc = { ...mc, state: 'waiting', run: null, key: mc.key, stale: Boolean(mc.uncertainty) };
   updateDrawsPanel();
   drawsTimer = setTimeout(runDraws, now ? 0 : DRAWS_DEBOUNCE_MS);
@@ -602,7 +604,7 @@ async function openWorkspace(ws, { id = newId(), save = true, knownAt = null } =
   ctx.billPaste = null;
   verdict.sweepFuel = null;
   verdict.analysis = null;
-  if (verdict.mc.run) stopDraws();
+  stopDraws();
   verdict.mc = { state: 'off' };
   store.replace(ws);
   if (save) await keeper.saveNow();
@@ -812,6 +814,7 @@ const ACTIONS = {
     if (!run) return;
     run.cancel();
     if (!run.signalled) {
+      drawRuns.drop();  // the worker is stopped: its rejection is not shown over this state
       verdict.mc = { state: 'cancelled', key: verdict.mc.key };
       verdictBody.dataset.draws = 'cancelled';
       paintVerdict();
@@ -825,7 +828,7 @@ const ACTIONS = {
     download(`${fileStem(store.state)}.json`, 'application/json', `${JSON.stringify(exportDocument(store.state, answering), null, 2)}\n`);
   },
   print: () => { paintSheet(); window.print(); },
-  'climate-trace': () => openHeatNeedTrace(verdict, ctx, 'Climate and heat need'),
+  'climate-trace': () => openHeatNeedTrace(verdict, ctx, 'Climate and heat need', { climateFirst: true }),
   'new-quote': () => {
     const ws = blankWorkspace({ units: store.state.settings.units, currency: store.state.settings.currency });
     ws.quote = freshQuote(undefined);

@@ -14,19 +14,30 @@ export function latestWins(send, onAnswer, { onError = () => {}, dropStale = fal
   let waiting = null;
   let submitted = 0;
   const current = (n) => !dropStale || n === submitted;
+  // One request at a time; a handler that throws is reported on the console and never stops the runner.
   const pump = async () => {
     running = true;
-    while (waiting) {
-      const { request, n } = waiting;
-      waiting = null;
-      try {
-        const answer = await send(request);
-        if (current(n)) onAnswer(answer, request);
-      } catch (error) {
-        if (current(n)) onError(error, request);
+    try {
+      while (waiting) {
+        const { request, n } = waiting;
+        waiting = null;
+        let outcome;
+        try {
+          outcome = { answer: await send(request) };
+        } catch (error) {
+          outcome = { error };
+        }
+        if (!current(n)) continue;
+        try {
+          if ('answer' in outcome) onAnswer(outcome.answer, request);
+          else onError(outcome.error, request);
+        } catch (failure) {
+          console.error(failure);
+        }
       }
+    } finally {
+      running = false;
     }
-    running = false;
   };
   return {
     submit(request) {

@@ -2,8 +2,12 @@
 // option's rated efficiency), over what range, and the request the core's whatIf answers. The core
 // works out the costs, the ranking and the savings; nothing here ranks or prices.
 
-/** Ratings given in percent, and the most each allows (the core refuses more: 100 % of the fuel's HHV). */
-const PERCENT_LIMITS = { AFUE: 100, thermal: 100, 'seasonal-gcv': 100 };
+/**
+ * Ratings given in percent, and the most the slider offers: 100 % of the fuel's HHV for the gross ratings
+ * (the core refuses more); a net (LHV-basis) seasonal efficiency may pass 100 % by the fuel's LHV/HHV
+ * ratio, which the page does not know here, so its slider stops at 100 % as well.
+ */
+const PERCENT_LIMITS = { AFUE: 100, thermal: 100, 'seasonal-gcv': 100, 'seasonal-ncv': 100 };
 
 const isNum = (v) => typeof v === 'number' && Number.isFinite(v);
 
@@ -39,7 +43,7 @@ export function whatIfInputs(scenario, names = new Map()) {
 function withRange({ limit, ...input }) {
   const { vary, current } = input;
   const min = vary === 'price' ? 0 : current / 2;
-  const max = vary === 'price' ? current * 2 : Math.min(current * 1.5, limit ?? Infinity);
+  const max = vary === 'price' ? current * 2 : Math.max(current, Math.min(current * 1.5, limit ?? Infinity));
   return { ...input, min, max };
 }
 

@@ -41,6 +41,16 @@ describe('web/what-if.js: the inputs a slider moves', () => {
     assert.deepEqual([heatPump.min, heatPump.max], [4.25, 12.75]);
   });
 
+  test('a net (LHV-basis) seasonal efficiency above 100 % keeps today\'s value in range', () => {
+    const boiler = structuredClone(gasVsHeatPump);
+    boiler.options[0].system = { kind: 'boiler', efficiency: { value: 104, rating: 'seasonal-ncv' } };
+    const input = whatIf.whatIfInputs(boiler).find((i) => i.key === 'efficiency:gas-furnace');
+    assert.deepEqual([input.min, input.max], [52, 104]);
+    const condensing = structuredClone(gasVsHeatPump);
+    condensing.options[0].system = { kind: 'boiler', efficiency: { value: 90, rating: 'seasonal-ncv' } };
+    assert.equal(whatIf.whatIfInputs(condensing).find((i) => i.key === 'efficiency:gas-furnace').max, 100);
+  });
+
   test('a slider position maps to a value and back, and today\'s position gives today\'s value exactly', () => {
     const [gas] = whatIf.whatIfInputs(gasVsHeatPump);
     assert.equal(whatIf.positionOf(gas, gas.current), 100);
@@ -98,6 +108,27 @@ describe('web/runner.js: latest wins', () => {
     pending.shift()();
     await new Promise((r) => setTimeout(r, 0));
     assert.deepEqual(answers, ['b'], 'dropped: not handed on');
+  });
+
+  test('a handler that throws is logged and never stops the runner', async () => {
+    const answers = [];
+    const logged = [];
+    const original = console.error;
+    console.error = (failure) => logged.push(String(failure));
+    try {
+      const { submit } = runner.latestWins(async (request) => request, (answer) => {
+        if (answer === 'boom') throw new Error('paint failed');
+        answers.push(answer);
+      }, { dropStale: true });
+      submit('boom');
+      await new Promise((r) => setTimeout(r, 0));
+      submit('next');
+      await new Promise((r) => setTimeout(r, 0));
+      assert.deepEqual(answers, ['next']);
+      assert.deepEqual(logged, ['Error: paint failed']);
+    } finally {
+      console.error = original;
+    }
   });
 
   test('a failed request is reported and the next still goes', async () => {

@@ -1,7 +1,6 @@
 // The verdict's price Monte Carlo: its progress, Cancel and results (chance of being cheapest, P10-P90).
 import { probabilityBars, rangeChart } from '../charts.js';
 import { h } from '../dom.js';
-import { years } from '../results.js';
 import { isNum, traceButton } from './verdict-numbers.js';
 
 /** The price Monte Carlo: inputs live on the Fuels panel; here its progress, Cancel, and results. */

@@ -4,14 +4,13 @@
 import { h } from '../dom.js';
 import { heatingBins } from '../results.js';
 import { convertTemperature, unitLabel } from '../units.js';
-import { fuelName } from './fuels.js';
 import { openTrace } from './trace.js';
 import { ECONOMIC_LABELS, isNum } from './verdict-numbers.js';
 
 /**
  * The core's full account of one option (or, without an id, of the heat need) for the scenario the verdict
  * shows: the evaluation is lean, so traces, sources and bins are asked for when the user opens one, once per
- * scenario and option. Resolves to null when the core cannot give it.
+ * scenario and option. Resolves to null when the core cannot give it (not kept: the next tap asks again).
  */
 export function accountOf(state, ctx, optionId = '') {
   if (!state.key) return Promise.resolve(null);
@@ -19,21 +18,32 @@ export function accountOf(state, ctx, optionId = '') {
   const known = state.accounts.byOption.get(optionId);
   if (known) return known;
   const request = { scenario: JSON.parse(state.key), ...(optionId ? { option: optionId } : {}) };
-  const promise = ctx.core.explain(request).then((account) => (account?.errors?.length ? null : account), () => null);
-  state.accounts.byOption.set(optionId, promise);
+  const accounts = state.accounts.byOption;
+  const promise = ctx.core.explain(request).then((account) => (account?.errors?.length ? null : account), () => null)
+    .then((account) => {
+      if (!account && accounts.get(optionId) === promise) accounts.delete(optionId);
+      return account;
+    });
+  accounts.set(optionId, promise);
   return promise;
 }
 
-/** The heat need's trace lines: how the demand and the climate were worked out. */
-async function heatNeedTrace(state, ctx) {
+/** The line a trace shows when the core's account could not be had. */
+const NO_ACCOUNT = 'How this was worked out could not be fetched just now: tap the number again.';
+
+/** The heat need's trace lines: how the demand and the climate were worked out (the climate's first with `climateFirst`). */
+async function heatNeedTrace(state, ctx, { climateFirst = false } = {}) {
   const account = await accountOf(state, ctx);
-  return [...(account?.demand?.trace ?? []), ...(account?.climate?.trace ?? [])];
+  if (!account) return [NO_ACCOUNT];
+  const demand = account.demand?.trace ?? [];
+  const climate = account.climate?.trace ?? [];
+  return climateFirst ? [...climate, ...demand] : [...demand, ...climate];
 }
 
 export async function showOptionTrace(state, option, ctx, key) {
   const account = await accountOf(state, ctx, option.id);
   const full = account?.option ?? option;
-  const lines = [];
+  const lines = account ? [] : [NO_ACCOUNT];
   if (isNum(option.seasonal_cop)) lines.push(`seasonal COP ${ctx.format.number(option.seasonal_cop, 3)}`);
   const extra = [];
   const reason = key === 'simple_payback_years' ? option.simple_payback_reason : key === 'discounted_payback_years' ? option.discounted_payback_reason : null;
@@ -87,7 +97,7 @@ export async function binsTrace(state, ctx, button) {
   const { format } = ctx;
   const ws = ctx.store.state;
   const want = ws.settings.units === 'us' ? 'degF' : 'degC';
-  const from = state.result.climate?.unit ?? ws.climate.unit ?? want;
+  const from = state.result?.climate?.unit ?? ws.climate.unit ?? want;
   const bins = heatingBins(option.bins ?? []);
   const rows = bins.map((b) => h('tr', {}, [convertTemperature(b.t, from, want), b.hours, b.load_kw, b.off ? null : b.capacity_kw, b.off ? null : b.cop,
     b.heat_pump_heat_kwh, b.backup_heat_kwh, b.heat_pump_kwh].map((v) => h('td', { text: isNum(v) ? format.number(v, 3) : '—' })),
@@ -120,6 +130,6 @@ export async function billsTrace(state, ctx) {
 }
 
 /** Opens the heat need's trace: how the demand and the climate were worked out. */
-export async function openHeatNeedTrace(state, ctx, title = 'Heat the house needs') {
-  openTrace({ title, trace: await heatNeedTrace(state, ctx) });
+export async function openHeatNeedTrace(state, ctx, title = 'Heat the house needs', { climateFirst = false } = {}) {
+  openTrace({ title, trace: await heatNeedTrace(state, ctx, { climateFirst }) });
 }
