@@ -9,7 +9,7 @@ import { h } from './dom.js';
 import { createFormat, isCurrency, isLocale, parseNumber } from './format.js';
 import { kioskOffer, kioskScenario, kioskSettings, priceFileVerdict, sameOriginUrl, unitsOf } from './kiosk-scenario.js';
 import { today } from './scenario.js';
-import { openTrace } from './views/trace.js';
+import { showOptionTrace } from './views/verdict-traces.js';
 import { brandKioskHeader, renderKiosk, renderRefusal } from './views/kiosk.js';
 
 const EVALUATE_DEBOUNCE_MS = 150;
@@ -119,7 +119,7 @@ export async function startKiosk(core) {
     try {
       const result = await core.evaluate(scenario);
       if (gen !== generation) return;
-      state = { ...state, result, scenario, errors: result.errors ?? [], pending: false };
+      state = { ...state, result, key: JSON.stringify(scenario), errors: result.errors ?? [], pending: false };
     } catch (failure) {
       if (gen !== generation) return;
       state = { ...state, result: null, errors: [{ message: failure.message }], pending: false };
@@ -158,17 +158,12 @@ export async function startKiosk(core) {
   };
   for (const type of ['pointerdown', 'keydown', 'input', 'touchstart', 'wheel']) document.addEventListener(type, touched, { capture: true, passive: true });
 
-  // the answer is lean: an option's trace and sources are asked of the core when the visitor opens them
-  const openOptionTrace = async (option, scenario) => {
-    const account = scenario ? await core.explain({ scenario, option: option.id }).catch(() => null) : null;
-    const full = account && !account.errors?.length ? account.option : option;
-    openTrace({ title: option.label ?? option.id, subtitle: option.fuel_name, trace: full.trace ?? [], sources: full.sources ?? [] });
-  };
   container.addEventListener('click', (event) => {
     const num = event.target.closest('button.num');
     if (num) {
       const option = state.result?.options?.find((o) => o.id === num.dataset.option);
-      if (option) openOptionTrace(option, state.scenario);
+      // the answer is lean: the option's trace and sources are asked of the core as the verdict does
+      if (option) showOptionTrace(state, option, { core, format });
       return;
     }
     const button = event.target.closest('button[data-action]');

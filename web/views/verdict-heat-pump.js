@@ -26,6 +26,7 @@ export async function fillBinsChart(details, state, ctx) {
   const key = state.key;
   const option = (await accountOf(state, ctx, details.dataset.option))?.option;
   if (state.key !== key || !state.result) return;
+  if (!option) delete slot.dataset.key;  // asked again when the disclosure next opens
   slot.replaceChildren(Array.isArray(option?.bins) && option.bins.length
     ? binsChartOf(option, state.result, ctx.store.state, ctx)
     : h('p', { class: 'hint', text: 'The chart could not be worked out for these entries.' }));

@@ -32,13 +32,14 @@ answer_detail read_detail(const json& document) {
     if (!list.is_array()) throw input_error("/detail", "must be a list of \"trace\", \"sources\", \"bins\" or \"all\"");
     for (std::size_t i = 0; i < list.size(); ++i) {
         const std::string text = list[i].is_string() ? list[i].get<std::string>() : list[i].dump();
-        if (text == "trace" || text == "all") detail.trace = true;
-        if (text == "sources" || text == "all") detail.sources = true;
-        if (text == "bins" || text == "all") detail.bins = true;
-        if (text != "trace" && text != "sources" && text != "bins" && text != "all")
+        const bool all = text == "all";
+        if (!all && text != "trace" && text != "sources" && text != "bins")
             throw input_error("/detail/" + std::to_string(i),
                               "unknown detail " + text + (list[i].is_string() ? "" : " (not a text)") +
                                   "; accepted: trace, sources, bins, all");
+        detail.trace = detail.trace || all || text == "trace";
+        detail.sources = detail.sources || all || text == "sources";
+        detail.bins = detail.bins || all || text == "bins";
     }
     return detail;
 }
@@ -167,12 +168,8 @@ json climate_result(const climate_info& info, const answer_detail& detail) {
         means.push_back(t(info.model.monthly_mean_c[m]));
         sd.push_back(info.model.daily_sd_k[m] * per_k);
     }
-    json bins = json::array();
     double hours = 0;
-    for (const auto& bin : info.bins) {
-        bins.push_back({{"t", t(bin.t_c)}, {"hours", bin.hours}});
-        hours += bin.hours;
-    }
+    for (const auto& bin : info.bins) hours += bin.hours;
     json out = {{"unit", unit},
                 {"base", {{"value", t(info.base_c)}, {"unit", unit}}},
                 {"monthly_mean", means},
@@ -185,7 +182,11 @@ json climate_result(const climate_info& info, const answer_detail& detail) {
                 {"design_temperature_99", t(info.design_99_c)},
                 {"design_temperature_996", t(info.design_996_c)},
                 {"daily_range", info.model.daily_range_k * per_k}};
-    if (detail.bins) out["bins"] = bins;
+    if (detail.bins) {
+        json bins = json::array();
+        for (const auto& bin : info.bins) bins.push_back({{"t", t(bin.t_c)}, {"hours", bin.hours}});
+        out["bins"] = bins;
+    }
     if (detail.trace) out["trace"] = info.model.trace;
     return out;
 }
@@ -219,11 +220,7 @@ void add_economics(json& out, const option_economics& x) {
 json evaluate(const json& document, const std::function<bool(double)>& progress) {
     std::vector<issue> errors, warnings;
     answer_detail detail;
-    try {
-        detail = read_detail(document);
-    } catch (const input_error& error) {
-        errors.push_back({error.path(), error.message()});
-    }
+    collect_errors(errors, [&] { detail = read_detail(document); });
     const auto input = read_scenario(document, errors, warnings);
     const auto verdict = judge(input, errors.empty(), progress);
     const auto& evaluated = verdict.evaluated;
