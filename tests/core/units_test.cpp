@@ -75,7 +75,8 @@ TEST(units, unknown_unit_lists_accepted_spellings) {
         EXPECT_EQ(error.message(),
                   "unknown unit \"Therm\"; accepted units (case-sensitive) are energy: J, kJ, MJ, GJ, kWh, Btu, "
                   "MMBtu, therm, kcal, cal, kcal_th, cal_th; volume: m3, L, gal, imp_gal, ft3, ccf, Mcf, cord; "
-                  "mass: kg, g, lb, short_ton, tonne; power: W, kW, Btu/h; temperature: degC, degF, K");
+                  "mass: kg, g, lb, short_ton, tonne; power: W, kW, Btu/h; temperature: degC, degF, K; length: m, ft; "
+                  "pressure: Pa, kPa, mbar, psia, inHg");
     }
 }
 

@@ -1,4 +1,5 @@
 // The verdict's ranking and its choice of economics, typed (model/verdict.hpp), without JSON.
+#include <memory>
 #include <gtest/gtest.h>
 
 #include "model/verdict.hpp"
@@ -20,14 +21,14 @@ TEST(verdict, economics_apply_when_asked_for_or_when_a_cost_or_the_existing_syst
     input.options[0].existing = true;
     EXPECT_TRUE(fw::economics_wanted(input)) << "the system in the house now is the baseline";
     input.options[0].existing = false;
-    input.economics = fw::economics_settings{};
+    input.economics.emplace();
     EXPECT_TRUE(fw::economics_wanted(input)) << "economics asked for";
 }
 
 TEST(verdict, a_scenario_read_with_errors_is_ranked_but_not_appraised) {
-    fw::scenario input;
-    input.economics = fw::economics_settings{};
-    const auto verdict = fw::judge(input, false, [](double) { return true; });
+    const auto input = std::make_unique<fw::scenario>();
+    input->economics.emplace();
+    const auto verdict = fw::judge(*input, false, [](double) { return true; });
     EXPECT_FALSE(verdict.economics.has_value());
     EXPECT_TRUE(verdict.appraised.empty());
     EXPECT_TRUE(verdict.warnings.empty());

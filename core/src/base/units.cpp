@@ -38,6 +38,13 @@ const std::vector<unit_definition>& unit_table() {
         {"W", dimension::power, 1.0, 0.0, "watt (SI)"},
         {"kW", dimension::power, 1e3, 0.0, "1000 W"},
         {"Btu/h", dimension::power, joule_per_btu / 3600.0, 0.0, "Btu (IT) per hour"},
+        {"m", dimension::length, 1.0, 0.0, "metre (SI)"},
+        {"ft", dimension::length, metre_per_foot, 0.0, "international foot, 0.3048 m"},
+        {"Pa", dimension::pressure, 1.0, 0.0, "pascal (SI)"},
+        {"kPa", dimension::pressure, 1e3, 0.0, "1000 Pa"},
+        {"mbar", dimension::pressure, 100.0, 0.0, "millibar, 100 Pa"},
+        {"psia", dimension::pressure, pascal_per_psi, 0.0, "pound-force per square inch, absolute"},
+        {"inHg", dimension::pressure, inch_of_mercury_pa, 0.0, "inch of mercury (conventional, 0 degC), 3386.389 Pa"},
         {"degC", dimension::temperature, 1.0, kelvin_at_zero_celsius, "degree Celsius, K - 273.15"},
         {"degF", dimension::temperature, 5.0 / 9.0, kelvin_at_zero_celsius - 32.0 * 5.0 / 9.0,
          "degree Fahrenheit, (K x 9/5) - 459.67"},
@@ -53,6 +60,8 @@ std::string_view dimension_name(dimension kind) {
         case dimension::mass: return "mass";
         case dimension::power: return "power";
         case dimension::temperature: return "temperature";
+        case dimension::length: return "length";
+        case dimension::pressure: return "pressure";
     }
     return "unknown";
 }
@@ -70,7 +79,7 @@ std::string accepted_units(dimension kind) {
 static std::string all_accepted_units() {
     std::string list;
     for (auto kind : {dimension::energy, dimension::volume, dimension::mass, dimension::power,
-                      dimension::temperature}) {
+                      dimension::temperature, dimension::length, dimension::pressure}) {
         if (!list.empty()) list += "; ";
         list += std::string(dimension_name(kind)) + ": " + accepted_units(kind);
     }

@@ -1,4 +1,4 @@
-// Units of energy, volume, mass, power and temperature from their exact definitions
+// Units of energy, volume, mass, power, temperature, length and pressure from their exact definitions
 // (NIST SP 811, 2008, Appendix B). No rounded constants.
 //
 // Conventions (stated once, used everywhere):
@@ -16,9 +16,9 @@
 
 namespace fw {
 
-enum class dimension { energy, volume, mass, power, temperature };
+enum class dimension { energy, volume, mass, power, temperature, length, pressure };
 
-/// A unit: value_si = value * si_factor + si_offset, SI base J, m^3, kg, W or K.
+/// A unit: value_si = value * si_factor + si_offset, SI base J, m^3, kg, W, K, m or Pa.
 struct unit_definition {
     std::string_view name;
     dimension kind;
@@ -43,6 +43,7 @@ inline constexpr double kg_per_pound = 0.45359237;             ///< [kg/lb] exac
 inline constexpr double gas_constant = 8.314462618;            ///< [J/(mol K)] CODATA 2018, exact since 2019 SI
 inline constexpr double pascal_per_psi = 6894.757293168361;    ///< [Pa/psi] lbf/in^2 from lb, g_n = 9.80665 and inch
 inline constexpr double kelvin_at_zero_celsius = 273.15;       ///< [K]
+inline constexpr double inch_of_mercury_pa = 3386.389;         ///< [Pa/inHg] conventional, NIST SP 811 B.8
 }  // namespace constants
 
 /// Every accepted unit, in a stable order (the order error messages list them in).

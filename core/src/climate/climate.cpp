@@ -230,6 +230,32 @@ std::vector<temperature_bin> hourly_bins(const climate_model& climate, double wi
     return bins;
 }
 
+std::vector<month_hour_hours> bin_calendar(const climate_model& climate, const std::vector<temperature_bin>& bins,
+                                           double width_k) {
+    const auto days = days_in_months(climate.leap_year);
+    const double year_hours = 24.0 * std::accumulate(days.begin(), days.end(), 0);
+    const auto offset_k = diurnal_offsets_k(climate.daily_range_k);
+    std::vector<month_hour_hours> out(bins.size());
+    for (std::size_t k = 0; k < bins.size(); ++k) {
+        const double lower = k == 0 ? -INFINITY : bins[k].t_c - width_k / 2;
+        const double upper = k + 1 == bins.size() ? INFINITY : bins[k].t_c + width_k / 2;
+        double total = 0;
+        for (std::size_t m = 0; m < 12; ++m)
+            for (std::size_t h = 1; h <= 24; ++h) {
+                const double mean = climate.monthly_mean_c[m] + offset_k[h - 1];
+                const double below_upper = std::isinf(upper) ? 1.0 : logistic_cdf(upper, mean, climate.daily_sd_k[m]);
+                const double below_lower = std::isinf(lower) ? 0.0 : logistic_cdf(lower, mean, climate.daily_sd_k[m]);
+                const double hours = days[m] * std::max(0.0, below_upper - below_lower);
+                out[k][m][h % 24] = hours;
+                total += hours;
+            }
+        for (std::size_t m = 0; m < 12; ++m)
+            for (auto& hours : out[k][m])
+                hours = total > 0 ? hours * bins[k].hours / total : bins[k].hours * days[m] / year_hours;
+    }
+    return out;
+}
+
 double design_temperature(const climate_model& climate, double fraction) {
     const double daily_range_k = climate.daily_range_k;
     const auto days = days_in_months(climate.leap_year);

@@ -78,6 +78,16 @@ std::array<double, 12> monthly_hdd(const climate_model& climate, double base_c);
 /// Hours sum to 8760 (8784 in a leap year).
 std::vector<temperature_bin> hourly_bins(const climate_model& climate, double width_k);
 
+/// [h] Hours by month (January first) and hour of the day (0 = 0:00-1:00).
+using month_hour_hours = std::array<std::array<double, 24>, 12>;
+
+/// Each bin's hours by month and hour of the day: the model's hours in the bin (each month's daily means
+/// logistic, each hour offset by Erbs's diurnal profile, Erbs hour h read as clock hour h:00, hour 24 as
+/// 0:00), scaled to the bin's own hours (so observed bins keep theirs); the outermost bins take the tails.
+/// A bin the model puts no hours in is spread evenly over the year. Bins in ascending order, `width_k` wide.
+std::vector<month_hour_hours> bin_calendar(const climate_model& climate, const std::vector<temperature_bin>& bins,
+                                           double width_k);
+
 /// [degC] Temperature below which `fraction` of the year's hours lie (0.01 -> the 99 % design value).
 double design_temperature(const climate_model& climate, double fraction);
 

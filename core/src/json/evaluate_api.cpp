@@ -72,6 +72,31 @@ json option_json(const option_result& r, const scenario& input, const answer_det
             {"auxiliary_kwh", r.auxiliary_kwh},
             {"auxiliary_cost", r.auxiliary_cost},
             {"kept_services_cost", r.kept_services_cost}};
+    const auto service = [&](const service_result& part) {
+        json item = {{"useful_heat_kwh", part.useful_heat_kwh},
+                     {"fuel", part.fuel_id},
+                     {"fuel_quantity", {{"value", part.fuel_quantity}, {"unit", part.fuel_unit}}},
+                     {"annual_cost", part.annual_cost},
+                     {"co2e_kg", part.co2e_kg},
+                     {"made_by", part.made_by},
+                     {"efficiency", part.efficiency}};
+        if (part.extra_space_heat_kwh > 0) item["heat_taken_from_space_kwh"] = part.extra_space_heat_kwh;
+        return item;
+    };
+    out["space_heating"] = service(r.space_heating);
+    out["water_heating"] = service(r.water_heating);
+    out["electricity_kwh"] = r.electricity_kwh;
+    if (!r.electricity_periods.empty()) {
+        json periods = json::array();
+        for (const auto& period : r.electricity_periods)
+            periods.push_back({{"name", period.name}, {"kwh", period.kwh}, {"cost", period.cost}});
+        out["electricity_periods"] = periods;
+    }
+    if (r.derated_output_kw) {
+        const bool us = input.settings.units == unit_system::us;
+        out["output_at_elevation"] = us ? json{{"value", convert(*r.derated_output_kw, "kW", "Btu/h")}, {"unit", "Btu/h"}}
+                                        : json{{"value", *r.derated_output_kw}, {"unit", "kW"}};
+    }
     if (detail.trace) out["trace"] = r.trace;
     if (detail.sources) out["sources"] = sources_json(r.sources);
     if (r.season) {
@@ -120,7 +145,8 @@ json demand_result(const scenario& input, const answer_detail& detail) {
     json out = {{"method", input.demand_method},
                 {"annual_useful_heat_kwh", input.annual_useful_heat_kwh},
                 {"space_heat_kwh", input.space_heat_kwh},
-                {"hot_water_kwh", input.hot_water_kwh}};
+                {"hot_water_kwh", input.hot_water_kwh},
+                {"water_heating_kwh", input.hot_water_kwh}};
     if (detail.trace) out["trace"] = input.demand_trace;
     const bool f = input.climate ? input.climate->fahrenheit : input.settings.units == unit_system::us;
     const std::string unit = f ? "degF" : "degC";

@@ -338,6 +338,75 @@ void require_bill_size(const bill_period& bill, const json& item, const scenario
 
 }  // namespace
 
+namespace {
+
+/// [K] A temperature rise {value, unit: K | degC | degF} (a difference, not a temperature).
+double temperature_rise_k(const json& rise, const std::string& path) {
+    require_object(rise, path);
+    const double value = required_number(rise, "value", path);
+    const auto unit = required_string(rise, "unit", path);
+    double k = 0;
+    if (unit == "K" || unit == "degC") k = value;
+    else if (unit == "degF") k = value * 5.0 / 9.0;
+    else throw input_error(path + "/unit", "must be K or degF (a temperature rise), got \"" + unit + "\"");
+    if (!(k >= 5 && k <= 90))
+        throw input_error(path + "/value", "must be a rise from cold inlet to hot outlet of 5 to 90 K (9 to 162 degF), got " +
+                                               format_number(value) + " " + unit);
+    return k;
+}
+
+/// `demand.water_heating`: the useful heat (given, or from people, litres and rise) and the house's water heater.
+void read_water_heating(const json& water, scenario& out, std::vector<issue>& warnings) {
+    const std::string path = "/demand/water_heating";
+    require_object(water, path);
+    const bool us = out.settings.units == unit_system::us;
+    const double days = out.climate && out.climate->model.leap_year ? 366 : 365;
+    if (water.contains("annual_heat") && water.contains("people"))
+        throw input_error(path + "/people", "give annual_heat or people, not both");
+    if (water.contains("annual_heat")) {
+        const double kwh = quantity_in(water.at("annual_heat"), path + "/annual_heat", dimension::energy, "kWh");
+        require_annual_heat(kwh, water.at("annual_heat"), path + "/annual_heat", false);
+        out.hot_water_kwh = kwh;
+        out.demand_trace.push_back("water heating " + energy_text(kwh, out.settings.units) + " useful a year, as given");
+    } else if (water.contains("people")) {
+        const auto people = optional_number(water, "people", path);
+        if (!people || !(*people > 0 && *people <= 30))
+            throw input_error(path + "/people", "must be the number of people in the house, above 0 and at most 30");
+        double litres = default_litres_per_person_day;
+        std::string litres_text = us ? "13.2 gal (50 L) per person a day (assumed, common practice; give volume_per_person_day)"
+                                     : "50 L per person a day (assumed, common practice; give volume_per_person_day)";
+        if (water.contains("volume_per_person_day")) {
+            const auto& volume = water.at("volume_per_person_day");
+            litres = quantity_in(volume, path + "/volume_per_person_day", dimension::volume, "L");
+            if (!(litres >= 5 && litres <= 400))
+                throw input_error(path + "/volume_per_person_day/value",
+                                  "must be 5 to 400 L (1.3 to 106 gal) of hot water per person a day, got " +
+                                      format_number(volume.at("value").get<double>()) + " " + volume.at("unit").get<std::string>());
+            litres_text = format_number(volume.at("value").get<double>()) + " " + volume.at("unit").get<std::string>() + " per person a day";
+        }
+        double rise_k = default_temperature_rise_k;
+        std::string rise_text = "rise 67 degF (37.2 K), the UEF test's 58 to 125 degF (10 CFR 430 App. E, from memory; give temperature_rise)";
+        if (water.contains("temperature_rise")) {
+            rise_k = temperature_rise_k(water.at("temperature_rise"), path + "/temperature_rise");
+            rise_text = "rise " + format_number(water.at("temperature_rise").at("value").get<double>()) + " " +
+                        water.at("temperature_rise").at("unit").get<std::string>();
+        }
+        out.hot_water_kwh = hot_water_heat_kwh(*people, litres, rise_k, days);
+        out.demand_trace.push_back("water heating: " + format_number(*people) + " people x " + litres_text + " x " +
+                                   format_fixed(days, 0) + " days x 4.186 kJ/(L K) x " + rise_text + " = " +
+                                   energy_text(out.hot_water_kwh, out.settings.units) + " useful a year");
+    } else {
+        throw input_error(path + "/annual_heat", "give annual_heat {value, unit}, or people (with volume_per_person_day and temperature_rise)");
+    }
+    if (water.contains("heater")) out.water_heater = read_water_heater(water.at("heater"), path + "/heater", warnings);
+    else
+        warnings.push_back({path + "/heater", "no water heater given: each option's heating system is taken to make the hot water; "
+                                              "give the house's water heater"});
+    warn_unknown_keys(water, {"annual_heat", "people", "volume_per_person_day", "temperature_rise", "heater"}, path, warnings);
+}
+
+}  // namespace
+
 void read_demand(const json& demand, scenario& out, const json& options_json, std::vector<issue>& warnings) {
     require_object(demand, "/demand");
     out.demand_method = optional_string(demand, "method", "/demand").value_or("direct");
@@ -372,7 +441,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
         out.space_heat_kwh = kwh;
         out.demand_trace.push_back("annual useful heat given directly: " + format_number(heat.at("value").get<double>()) +
                                    " " + heat.at("unit").get<std::string>() + " = " + format_fixed(kwh, 1) + " kWh");
-        warn_unknown_keys(demand, {"method", "annual_useful_heat", "balance_point", "hot_water"}, "/demand", warnings);
+        warn_unknown_keys(demand, {"method", "annual_useful_heat", "balance_point", "hot_water", "water_heating"}, "/demand", warnings);
     } else if (method == "heat-loss") {
         need_climate("the heat-loss method (degree-days come from it)");
         double ua = 0;
@@ -446,7 +515,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
                                        format_fixed(heat.space_heat_kwh, 0) + " kWh");
         out.space_heat_kwh = heat.space_heat_kwh;
         warn_unknown_keys(demand, {"method", "ua", "design_heat_loss", "indoor", "design_outdoor", "balance_point",
-                                   "internal_gains", "degree_day_correction", "hot_water"},
+                                   "internal_gains", "degree_day_correction", "hot_water", "water_heating"},
                           "/demand", warnings);
     } else if (method == "bills") {
         need_climate("the bills method (the fit is against its degree-days)");
@@ -479,6 +548,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
                 throw input_error(path, error.message());
             }
         }
+        equipment.sale.gas_pressure_pa = out.settings.gas_pressure_base_pa;
         const auto efficiency = seasonal_efficiency_hhv(equipment.system, equipment.fuel, "/demand/system");
         if (!demand.contains("bills") || !demand.at("bills").is_array() || demand.at("bills").empty())
             throw input_error("/demand/bills", "needs at least one bill {start, end, quantity, unit}");
@@ -682,19 +752,23 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             warnings.push_back({"/demand/bills", "fewer than 6 bills (" + std::to_string(bills.size()) +
                                                  "); 12 monthly bills give the most reliable fit"});
         if (!bills_cover_coldest_months(bills, out.climate->model)) warnings.push_back({"/demand/bills", "no bill covers the coldest months; the heating slope is uncertain"});
-        warn_unknown_keys(demand, {"method", "bills", "option", "fuel", "system", "balance_point", "hot_water", "bill_dates",
+        warn_unknown_keys(demand, {"method", "bills", "option", "fuel", "system", "balance_point", "hot_water", "water_heating", "bill_dates",
                                    "observed"},
                           "/demand", warnings);
     } else {
         throw input_error("/demand/method", "unknown demand method \"" + method + "\"; accepted: direct, heat-loss, bills");
     }
+    if (demand.contains("hot_water") && demand.contains("water_heating"))
+        throw input_error("/demand/hot_water", "give the hot water once: demand.water_heating replaces demand.hot_water");
     if (demand.contains("hot_water")) {
         const double hot_water_kwh = quantity_in(demand.at("hot_water"), "/demand/hot_water", dimension::energy, "kWh");
         if (hot_water_kwh < 0) throw input_error("/demand/hot_water/value", "must be >= 0");
         require_annual_heat(hot_water_kwh, demand.at("hot_water"), "/demand/hot_water", true);
         out.hot_water_kwh = hot_water_kwh;
-        out.demand_trace.push_back("plus domestic hot water " + energy_text(out.hot_water_kwh) + " useful per year");
+        out.demand_trace.push_back("plus domestic hot water " + energy_text(out.hot_water_kwh) +
+                                   " useful per year, made by each option's heating system (demand.hot_water)");
     }
+    if (demand.contains("water_heating")) read_water_heating(demand.at("water_heating"), out, warnings);
     out.annual_useful_heat_kwh = out.space_heat_kwh + out.hot_water_kwh;
     if (method == "direct")
         require_annual_heat(out.space_heat_kwh, demand.at("annual_useful_heat"), "/demand/annual_useful_heat", false);

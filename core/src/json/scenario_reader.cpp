@@ -302,6 +302,183 @@ given_heating_value read_given_heating_value(const json& hv, const std::string& 
     return out;
 }
 
+namespace {
+
+/// One [from, to] pair of whole local hours into the period's hours (to < from runs past midnight).
+void read_hour_span(const json& pair, const std::string& path, std::array<bool, 24>& hours) {
+    if (!pair.is_array() || pair.size() != 2 || !pair[0].is_number() || !pair[1].is_number())
+        throw input_error(path, "must be a pair of hours [from, to], e.g. [16, 21] for 16:00 to 21:00");
+    int ends[2] = {0, 0};
+    for (std::size_t e = 0; e < 2; ++e) {
+        const double value = pair[e].get<double>();
+        if (!(value >= 0 && value <= 24) || value != std::floor(value))
+            throw input_error(path + "/" + std::to_string(e), "must be a whole hour from 0 to 24 (a period boundary inside an hour is "
+                                                              "not supported), got " + format_number(value));
+        ends[e] = static_cast<int>(value);
+    }
+    if (ends[0] == ends[1] || (ends[0] == 24 && ends[1] == 0))
+        throw input_error(path, "from and to are the same hour: give [0, 24] for the whole day");
+    // [from, to) in local hours; to < from runs past midnight ([22, 6] is 22:00 to 6:00).
+    for (int h = ends[0]; h < (ends[0] < ends[1] ? ends[1] : 24); ++h) hours[static_cast<std::size_t>(h)] = true;
+    if (ends[0] > ends[1])
+        for (int h = 0; h < ends[1]; ++h) hours[static_cast<std::size_t>(h)] = true;
+}
+
+}  // namespace
+
+price_schedule read_price_schedule(const json& list, const std::string& path, std::vector<issue>& warnings) {
+    if (!list.is_array() || list.empty())
+        throw input_error(path, "must be a list of periods [{name, amount, hours: [[from, to]], days, months}]");
+    if (list.size() > 24) throw input_error(path, "at most 24 periods, got " + std::to_string(list.size()));
+    price_schedule schedule;
+    for (std::size_t i = 0; i < list.size(); ++i) {
+        const std::string item = path + "/" + std::to_string(i);
+        const auto& period_json = list[i];
+        require_object(period_json, item);
+        schedule_period period;
+        period.name = required_string(period_json, "name", item);
+        if (period.name.empty() || period.name.size() > 40) throw input_error(item + "/name", "must be 1 to 40 characters");
+        for (const auto& earlier : schedule)
+            if (earlier.name == period.name) throw input_error(item + "/name", "another period is named \"" + period.name + "\"");
+        period.amount_per_kwh = required_number(period_json, "amount", item);
+        if (period.amount_per_kwh < 0) throw input_error(item + "/amount", "must be >= 0, got " + format_number(period.amount_per_kwh));
+        if (period.amount_per_kwh >= 10)
+            throw input_error(item + "/amount", "must be a price per kWh below 10, got " + format_number(period.amount_per_kwh) +
+                                                    (period.amount_per_kwh < 100 ? " (cents? " + format_number(period.amount_per_kwh) + " cents is " +
+                                                                                       format_number(period.amount_per_kwh / 100) + ")"
+                                                                                 : ""));
+        if (!period_json.contains("hours")) throw input_error(item + "/hours", "is required: [[from, to], ...] in whole local hours, e.g. [[16, 21]]");
+        const auto& hours = period_json.at("hours");
+        if (hours.is_array() && hours.size() == 2 && hours[0].is_number() && hours[1].is_number()) {
+            read_hour_span(hours, item + "/hours", period.hours);  // one pair, written without the outer brackets
+        } else {
+            if (!hours.is_array() || hours.empty())
+                throw input_error(item + "/hours", "must be a list of [from, to] pairs in whole local hours, e.g. [[7, 11], [17, 21]]");
+            for (std::size_t k = 0; k < hours.size(); ++k) read_hour_span(hours[k], item + "/hours/" + std::to_string(k), period.hours);
+        }
+        const auto days = optional_string(period_json, "days", item).value_or("all");
+        if (days == "all") period.days = day_set::all;
+        else if (days == "weekdays") period.days = day_set::weekdays;
+        else if (days == "weekends") period.days = day_set::weekends;
+        else throw input_error(item + "/days", "must be all, weekdays or weekends, got \"" + days + "\"");
+        if (const auto months = period_json.find("months"); months != period_json.end()) {
+            if (!months->is_array() || months->empty())
+                throw input_error(item + "/months", "must be a list of month numbers 1-12, e.g. [6, 7, 8, 9]");
+            for (std::size_t k = 0; k < months->size(); ++k) {
+                const auto& month = (*months)[k];
+                const double value = month.is_number() ? month.get<double>() : 0.0;
+                if (!month.is_number() || value < 1 || value > 12 || value != std::floor(value))
+                    throw input_error(item + "/months/" + std::to_string(k), "must be a month number from 1 (January) to 12");
+                period.months[static_cast<std::size_t>(value) - 1] = true;
+            }
+        } else {
+            period.months.fill(true);
+        }
+        warn_unknown_keys(period_json, {"name", "amount", "hours", "days", "months"}, item, warnings);
+        schedule.push_back(period);
+    }
+    if (const auto clash = schedule_coverage_problem(schedule)) {
+        if (clash->second < 0)
+            throw input_error(path, "every hour must fall in one period: " + clash_text(*clash) + " is in none");
+        throw input_error(path + "/" + std::to_string(clash->second),
+                          "every hour must fall in one period: " + clash_text(*clash) + " is in both \"" +
+                              schedule[static_cast<std::size_t>(clash->first)].name + "\" and \"" +
+                              schedule[static_cast<std::size_t>(clash->second)].name + "\"");
+    }
+    return schedule;
+}
+
+double schedule_mean_price(const price_schedule& schedule) {
+    double cost = 0;
+    for (const auto& use : split_by_period(schedule, flat_profile(1.0, false))) cost += use.cost;
+    return cost;
+}
+
+water_heater_spec read_water_heater(const json& item, const std::string& path, std::vector<issue>& warnings) {
+    require_object(item, path);
+    water_heater_spec heater;
+    heater.path = path;
+    heater.kind = parse_water_heater_kind(required_string(item, "kind", path), path + "/kind");
+    const bool by_boiler = heated_by_boiler(heater.kind);
+    const std::string kind_text(water_heater_kind_name(heater.kind));
+    if (const auto fuel = optional_string(item, "fuel", path)) {
+        if (by_boiler)
+            warnings.push_back({path + "/fuel", "an " + kind_text + " water heater burns the boiler's fuel; this fuel is not used"});
+        else
+            heater.fuel = find_fuel(*fuel, path + "/fuel");
+    } else if (!by_boiler) {
+        throw input_error(path + "/fuel", "is required (the fuel id the water heater runs on, e.g. natural-gas or electricity)");
+    }
+    if (heater.kind == water_heater_kind::heat_pump_water_heater && heater.fuel && heater.fuel->category != fuel_category::electricity)
+        throw input_error(path + "/fuel", "a heat-pump water heater runs on electricity, not " + heater.fuel->id);
+    if (heater.fuel && heater.fuel->category == fuel_category::solid)
+        throw input_error(path + "/fuel", "a water heater burning " + heater.fuel->id + " is not modelled; give gas, oil, propane or electricity");
+    const bool uef_given = item.contains("uef"), efficiency_given = item.contains("efficiency");
+    if (uef_given && efficiency_given) throw input_error(path + "/efficiency", "give uef or efficiency, not both");
+    if (by_boiler) {
+        if (uef_given || efficiency_given)
+            warnings.push_back({path + (uef_given ? "/uef" : "/efficiency"),
+                                "an " + kind_text + " water heater is heated by the boiler at the boiler's efficiency; this rating is not used"});
+    } else if (uef_given) {
+        const auto value = optional_number(item, "uef", path);
+        heater.efficiency_value = *value;
+        heater.rating = water_heater_rating::uef;
+    } else if (efficiency_given) {
+        const auto& efficiency = item.at("efficiency");
+        require_object(efficiency, path + "/efficiency");
+        heater.efficiency_value = required_number(efficiency, "value", path + "/efficiency");
+        const auto rating = required_string(efficiency, "rating", path + "/efficiency");
+        if (rating == "UEF" || rating == "uef") heater.rating = water_heater_rating::uef;
+        else if (rating == "eta_wh") heater.rating = water_heater_rating::eta_wh;
+        else throw input_error(path + "/efficiency/rating", "must be UEF or eta_wh, got \"" + rating + "\"");
+        warn_unknown_keys(efficiency, {"value", "rating"}, path + "/efficiency", warnings);
+    } else {
+        throw input_error(path + "/uef", "is required: the uniform energy factor on the label or data sheet (typical: gas storage "
+                                         "0.58-0.70, gas tankless 0.81-0.97, electric storage 0.90-0.95, heat-pump 2.0-4.0), or "
+                                         "efficiency {value, rating: eta_wh}");
+    }
+    if (!by_boiler) {
+        const std::string value_path = path + (uef_given ? "/uef" : "/efficiency/value");
+        const double value = heater.efficiency_value;
+        const bool heat_pump = heater.kind == water_heater_kind::heat_pump_water_heater;
+        if (heater.rating == water_heater_rating::uef) {
+            if (!(value > 0)) throw input_error(value_path, "must be > 0, got " + format_number(value));
+            if (!heat_pump && value > 1 && value <= 100)
+                throw input_error(value_path, "a UEF is a ratio below 1 for a " + kind_text + " water heater (0.64, not 64); got " + format_number(value));
+            if (!heat_pump && value > 1) throw input_error(value_path, "must be a UEF from 0.3 to 1, got " + format_number(value));
+            if (heat_pump && (value < 1 || value > 6))
+                throw input_error(value_path, "a heat-pump water heater's UEF lies from 1 to 6 (typically 2.0-4.0), got " + format_number(value));
+            if (value < 0.3) throw input_error(value_path, "must be a UEF from 0.3 to 1, got " + format_number(value));
+        } else {
+            if (value > 0 && value <= 3)
+                throw input_error(value_path, "eta_wh is a percentage as the EU label prints it (e.g. 65 or 130), got " + format_number(value));
+            if (!(value > 3 && value <= 500)) throw input_error(value_path, "must be a percentage from 3 to 500, got " + format_number(value));
+            heater.efficiency_value = value / 100;
+        }
+    }
+    if (const auto location = optional_string(item, "location", path)) {
+        if (*location == "conditioned") heater.conditioned_space = true;
+        else if (*location != "unconditioned")
+            throw input_error(path + "/location", "must be conditioned (inside the heated space) or unconditioned, got \"" + *location + "\"");
+        heater.location_given = true;
+    } else if (heater.kind == water_heater_kind::heat_pump_water_heater) {
+        warnings.push_back({path + "/location", "no location given: taken as unconditioned (a basement or garage outside the heated "
+                                                "space); in the heated space it takes heat from the house, which the heating must make up"});
+    }
+    if (item.contains("standby_loss")) {
+        if (heater.kind != water_heater_kind::indirect)
+            throw input_error(path + "/standby_loss", "applies to an indirect tank (the boiler makes up its loss)");
+        const double w = quantity_in(item.at("standby_loss"), path + "/standby_loss", dimension::power, "W");
+        if (!(w >= 0 && w <= 500)) throw input_error(path + "/standby_loss/value", "must be a standby loss from 0 to 500 W");
+        heater.standby_w = w;
+        heater.standby_given = true;
+    } else if (heater.kind == water_heater_kind::indirect) {
+        heater.standby_w = default_indirect_standby_w;
+    }
+    warn_unknown_keys(item, {"kind", "fuel", "uef", "efficiency", "location", "standby_loss", "label"}, path, warnings);
+    return heater;
+}
+
 scenario_option read_option(const json& item, const std::string& path, std::vector<issue>& warnings) {
     require_object(item, path);
     scenario_option option;
@@ -336,7 +513,12 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
     if (!item.contains("price")) throw input_error(path + "/price", "is required ({\"amount\": ..., \"per\": unit})");
     const auto& price = item.at("price");
     require_object(price, path + "/price");
-    option.price_per_unit = price.contains("tiers") && !price.contains("amount") ? 0.0 : required_number(price, "amount", path + "/price");
+    const bool scheduled = price.contains("schedule");
+    if (scheduled && price.contains("amount"))
+        throw input_error(path + "/price/amount", "give amount (one price) or schedule (time of use), not both");
+    if (scheduled && price.contains("tiers"))
+        throw input_error(path + "/price/schedule", "give tiers (block rates) or a schedule (time of use), not both");
+    option.price_per_unit = (price.contains("tiers") || scheduled) && !price.contains("amount") ? 0.0 : required_number(price, "amount", path + "/price");
     if (option.price_per_unit < 0)
         throw input_error(path + "/price/amount", "must be >= 0, got " + format_number(option.price_per_unit));
     require_at_most_max_amount(option.price_per_unit, path + "/price/amount");
@@ -366,7 +548,14 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
             option.tiers.back().to = INFINITY;  // use beyond the last block is billed at its rate
         if (!price.contains("amount")) option.price_per_unit = option.tiers.front().amount;
     }
-    warn_unknown_keys(price, {"amount", "per", "tiers"}, path + "/price", warnings);
+    if (scheduled) {
+        if (option.fuel.category != fuel_category::electricity)
+            throw input_error(path + "/price/schedule", "a time-of-use schedule prices electricity; " + option.fuel.id + " is priced by amount");
+        if (option.price_unit != "kWh") throw input_error(path + "/price/per", "must be kWh with a schedule, got "" + option.price_unit + """);
+        option.schedule = read_price_schedule(price.at("schedule"), path + "/price/schedule", warnings);
+        option.price_per_unit = schedule_mean_price(*option.schedule);
+    }
+    warn_unknown_keys(price, {"amount", "per", "tiers", "schedule"}, path + "/price", warnings);
 
     if (const auto bag = item.find("bag_mass"); bag != item.end()) {
         require_object(*bag, path + "/bag_mass");
@@ -437,7 +626,7 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
     }
     read_heat_pump_fields(system, system_path, option);
     warn_unknown_keys(system, {"kind", "catalog", "efficiency", "distribution_loss", "age_derating", "ratings", "cutoff",
-                               "cd", "backup", "changeover", "capacity", "stages", "auxiliary_electricity"},
+                               "cd", "backup", "changeover", "capacity", "stages", "auxiliary_electricity", "altitude_rated"},
                       system_path, warnings);
     option.system.distribution_loss = optional_number(system, "distribution_loss", system_path).value_or(0.0);
     option.system.age_derating = optional_number(system, "age_derating", system_path).value_or(0.0);
@@ -450,9 +639,12 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
         option.heating_value_override_j = given.hhv_j_per_unit;
         option.heating_value_override_text = given.text;
     }
+    if (const auto heater = item.find("water_heater"); heater != item.end())
+        option.water_heater = read_water_heater(*heater, path + "/water_heater", warnings);
+    option.altitude_rated = optional_bool(system, "altitude_rated", system_path).value_or(false);
     warn_unknown_keys(item, {"id", "label", "fuel", "price", "fixed_charges", "system", "heating_value", "wood_species",
                              "moisture_pct", "bag_mass", "face_cord_fraction", "existing", "installed_cost",
-                             "incentives", "annual_maintenance", "life_years", "equipment"},
+                             "incentives", "annual_maintenance", "life_years", "equipment", "water_heater"},
                       path, warnings);
     optional_string(item, "equipment", path);  // make and model, for the quote sheet
     return option;
@@ -501,13 +693,21 @@ scenario_settings read_settings(const json& document, std::vector<issue>& warnin
         if (electricity.contains("price")) {
             const auto& price = electricity.at("price");
             require_object(price, path + "/price");
-            const auto amount = optional_number(price, "amount", path + "/price");
-            if (!amount) throw input_error(path + "/price/amount", "is required (the price of a kWh)");
-            if (!(*amount > 0 && *amount < 10))
-                throw input_error(path + "/price/amount", "must be a price per kWh above 0 and below 10, got " + format_number(*amount));
             const auto per = optional_string(price, "per", path + "/price").value_or("kWh");
             if (per != "kWh") throw input_error(path + "/price/per", "must be kWh, got \"" + per + "\"");
-            settings.electricity_price_per_kwh = *amount;
+            if (price.contains("schedule")) {
+                if (price.contains("amount"))
+                    throw input_error(path + "/price/amount", "give amount (one price) or schedule (time of use), not both");
+                settings.electricity_schedule = read_price_schedule(price.at("schedule"), path + "/price/schedule", warnings);
+                settings.electricity_price_per_kwh = schedule_mean_price(*settings.electricity_schedule);
+            } else {
+                const auto amount = optional_number(price, "amount", path + "/price");
+                if (!amount) throw input_error(path + "/price/amount", "is required (the price of a kWh), or a schedule");
+                if (!(*amount > 0 && *amount < 10))
+                    throw input_error(path + "/price/amount", "must be a price per kWh above 0 and below 10, got " + format_number(*amount));
+                settings.electricity_price_per_kwh = *amount;
+            }
+            warn_unknown_keys(price, {"amount", "per", "schedule"}, path + "/price", warnings);
         }
         if (electricity.contains("fixed_charges"))
             settings.kept_services.push_back({"electricity", read_fixed_charges(electricity.at("fixed_charges"), path + "/fixed_charges")});
@@ -532,7 +732,31 @@ scenario_settings read_settings(const json& document, std::vector<issue>& warnin
             warn_unknown_keys(kept[i], {"fuel", "fixed_charges", "label"}, path, warnings);
         }
     }
-    warn_unknown_keys(s, {"units", "currency", "electricity_co2e_kg_per_kwh", "gwp", "locale", "electricity", "kept_services"},
+    if (s.contains("elevation")) {
+        const double m = quantity_in(s.at("elevation"), "/settings/elevation", dimension::length, "m");
+        if (!(m >= -500 && m <= 5500))
+            throw input_error("/settings/elevation/value", "must be a site elevation from -500 to 5,500 m (-1,640 to 18,045 ft), got " +
+                                                               format_number(s.at("elevation").at("value").get<double>()) + " " +
+                                                               s.at("elevation").at("unit").get<std::string>());
+        settings.elevation_m = m;
+    }
+    if (s.contains("gas_pressure_base")) {
+        const auto& base = s.at("gas_pressure_base");
+        if (base.is_string() && base.get<std::string>() == "site") {
+            if (!settings.elevation_m)
+                throw input_error("/settings/gas_pressure_base", "\"site\" needs settings.elevation (the pressure there is the site's air pressure)");
+            settings.gas_pressure_base_pa = standard_atmosphere_pa(*settings.elevation_m);
+        } else if (base.is_object()) {
+            const double pa = quantity_in(base, "/settings/gas_pressure_base", dimension::pressure, "Pa");
+            if (!(pa >= 40000 && pa <= 130000))
+                throw input_error("/settings/gas_pressure_base/value", "must be an absolute pressure from 40 to 130 kPa (5.8 to 18.9 psia)");
+            settings.gas_pressure_base_pa = pa;
+        } else {
+            throw input_error("/settings/gas_pressure_base", "must be {value, unit: psia | kPa | inHg | mbar} or \"site\"");
+        }
+    }
+    warn_unknown_keys(s, {"units", "currency", "electricity_co2e_kg_per_kwh", "gwp", "locale", "electricity", "kept_services",
+                          "elevation", "gas_pressure_base"},
                       "/settings", warnings);
     return settings;
 }
@@ -724,6 +948,7 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
             const std::string path = "/options/" + std::to_string(i);
             attempt([&] {
                 auto option = read_option(options[i], path, warnings);
+                option.sale.gas_pressure_pa = out.settings.gas_pressure_base_pa;
                 if (const auto found = seen.find(option.id); found != seen.end())
                     throw input_error(path + "/id", "duplicate option id \"" + option.id + "\" (also at " + found->second + ")");
                 seen[option.id] = path;
@@ -744,6 +969,10 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
     // Without the settings (prices of the site, services kept), a climate or a demand there is nothing to
     // evaluate the options against: the problem is reported at its own path and no option is computed.
     if (!settings_read || !climate_read || errors.size() != errors_before_demand) out.options.clear();
+    // Time of use places each bin's kWh in its months and hours of the day.
+    bool scheduled = out.settings.electricity_schedule.has_value();
+    for (const auto& option : out.options) scheduled = scheduled || option.schedule.has_value();
+    if (scheduled && out.climate) out.climate->calendar = bin_calendar(out.climate->model, out.climate->bins, out.climate->bin_width_k);
     for (auto& warning : plausibility_warnings(out)) warnings.push_back(std::move(warning));
     return out;
 }

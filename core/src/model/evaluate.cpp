@@ -84,19 +84,6 @@ seasonal_efficiency hspf2_on_the_hspf_basis(seasonal_efficiency rated, const sys
 
 namespace {
 
-/// [currency/kWh] The site's electricity price for a fuel-burning system's own electricity:
-/// `settings.electricity.price`, else the first electricity option's (its first block), with where it came from.
-std::optional<std::pair<double, std::string>> site_electricity_price(const scenario& input) {
-    if (input.settings.electricity_price_per_kwh)
-        return std::pair{*input.settings.electricity_price_per_kwh, std::string("the site's electricity price")};
-    for (const auto& other : input.options)
-        if (other.fuel.category == fuel_category::electricity) {
-            const double kwh_per_unit = heating_value_per_sale_unit(other.fuel, other.price_unit, other.sale, {}).hhv_j / 3.6e6;
-            return std::pair{other.price_per_unit / kwh_per_unit, "the electricity price of option " + other.id};
-        }
-    return std::nullopt;
-}
-
 /// [h/year] Burner hours assumed when neither an output capacity nor a climate tells them (common practice:
 /// about 2,000 equivalent full-load hours for a heating system sized to its house).
 constexpr double assumed_burner_hours = 2000;
@@ -111,6 +98,27 @@ void add_site_costs(const scenario& input, const scenario_option& option, option
         return us ? format_fixed(convert(kw, "kW", "Btu/h"), 0) + " Btu/h" : format_fixed(kw, 1) + " kW";
     };
     const auto design_load = burns_fuel(option.system.kind) ? house_design_load_kw(input) : std::nullopt;
+    // A gas appliance above 2,000 ft gives less than its nameplate: its input (and so its output) derated by the fuel gas code's rule.
+    std::optional<double> output_kw = option.capacity_47_kw;
+    if (burns_fuel(option.system.kind) && is_fuel_gas(option.fuel) && input.settings.elevation_m) {
+        const double feet = convert(*input.settings.elevation_m, "m", "ft");
+        const double derating = gas_altitude_derating(feet);
+        const std::string site = format_fixed(feet, 0) + " ft (" + format_fixed(*input.settings.elevation_m, 0) + " m)";
+        if (option.altitude_rated)
+            r.trace.push_back("at " + site + ": rated for altitude by its maker, its output as given");
+        else if (derating > 0 && output_kw) {
+            output_kw = *output_kw * (1 - derating);
+            r.derated_output_kw = output_kw;
+            r.trace.push_back("at " + site + " the input is derated " + format_fixed(100 * derating, 0) + " % (4 % for each 1,000 ft above "
+                              "sea level above 2,000 ft, NFPA 54 / ANSI Z223.1, from memory): output " + power_text(*option.capacity_47_kw) +
+                              " x " + format_fixed(1 - derating, 2) + " = " + power_text(*output_kw) + "; the efficiency, and so the "
+                              "fuel for a year's heat, stays as rated (a gas fitter sets the input to the code and the maker's instructions)");
+        } else if (derating > 0) {
+            r.trace.push_back("at " + site + " a gas appliance's input is derated " + format_fixed(100 * derating, 0) +
+                              " % (NFPA 54 / ANSI Z223.1, from memory): its efficiency, and so the fuel for a year's heat, stays as rated; "
+                              "give its output capacity to check its size at this elevation");
+        }
+    }
     if (option.auxiliary && option.auxiliary->value > 0) {
         const auto& aux = *option.auxiliary;
         std::optional<double> kwh;
@@ -118,13 +126,13 @@ void add_site_costs(const scenario& input, const scenario_option& option, option
             kwh = aux.value;
             r.trace.push_back("auxiliary electricity " + format_number(aux.value) + " kWh a year (" + aux.text + ")");
         } else {
-            const auto capacity = option.capacity_47_kw ? option.capacity_47_kw : design_load;
+            const auto capacity = output_kw ? output_kw : design_load;
             if (capacity && *capacity > 0) {
                 const double hours = r.useful_heat_kwh / *capacity;
                 kwh = aux.value / 1000 * hours;
                 r.trace.push_back("auxiliary electricity " + format_number(aux.value) + " W while the burner runs (" + aux.text +
                                   ") x " + format_fixed(hours, 0) + " burner hours (useful heat / " +
-                                  (option.capacity_47_kw ? "output capacity " : "the house's design load ") + power_text(*capacity) +
+                                  (output_kw ? "output capacity " : "the house's design load ") + power_text(*capacity) +
                                   ") = " + format_fixed(*kwh, 0) + " kWh");
             } else {
                 // Neither an output capacity nor a climate: burner hours taken as 2,000 equivalent full-load hours
@@ -145,12 +153,17 @@ void add_site_costs(const scenario& input, const scenario_option& option, option
             r.co2e_kg += emitted.co2e_kg;
             r.co2_fossil_kg += emitted.co2_fossil_kg;
             r.trace.push_back("auxiliary electricity emissions " + emitted.text);
-            if (const auto price = site_electricity_price(input)) {
-                r.auxiliary_cost = *kwh * price->first;
+            if (const auto tariff = site_tariff(input)) {
+                const auto profile = space_heat_profile(input, *kwh);
+                r.auxiliary_cost = tariff_cost(*tariff, *kwh, profile);
+                r.electricity_profile = add_profile(r.electricity_profile, profile);
+                r.electricity_kwh += *kwh;
                 r.energy_cost += r.auxiliary_cost;
                 r.cost_parts.push_back({"electricity", r.auxiliary_cost, 0.0});
-                r.trace.push_back(format_fixed(*kwh, 0) + " kWh x " + format_number(price->first) + " " + currency + "/kWh (" +
-                                  price->second + ") = " + format_fixed(r.auxiliary_cost, 2) + " " + currency);
+                r.trace.push_back(format_fixed(*kwh, 0) + " kWh x " +
+                                  (tariff->schedule ? "the time-of-use periods of " + tariff->text + " (placed in the heating hours)"
+                                                    : format_number(tariff->price_per_kwh) + " " + currency + "/kWh (" + tariff->text + ")") +
+                                  " = " + format_fixed(r.auxiliary_cost, 2) + " " + currency);
             } else {
                 r.warnings.push_back("its auxiliary electricity (" + format_fixed(*kwh, 0) + " kWh a year) is not priced: the "
                                      "scenario has no electricity price (settings.electricity or an electricity option)");
@@ -178,14 +191,15 @@ void add_site_costs(const scenario& input, const scenario_option& option, option
     r.annual_cost = r.energy_cost + r.fixed_cost;
     // Sizing of a fuel-burning system with a given output capacity: 100-140 % of the design load
     // (ACCA Manual S furnace sizing limits, from memory; common practice for boilers too).
-    if (design_load && option.capacity_47_kw && *design_load > 0) {
-        const double ratio = *option.capacity_47_kw / *design_load;
+    if (design_load && output_kw && *design_load > 0) {
+        const double ratio = *output_kw / *design_load;
+        const std::string at_site = r.derated_output_kw ? " at this elevation" : "";
         if (ratio < 1.0)
-            r.warnings.push_back("its output " + power_text(*option.capacity_47_kw) + " is below the house's design load " +
+            r.warnings.push_back("its output " + power_text(*output_kw) + at_site + " is below the house's design load " +
                                  power_text(*design_load) + ": it cannot keep the house warm on the coldest days (sizing "
                                  "needs a Manual J or EN 12831 load calculation by a professional)");
         else if (ratio > 1.4)
-            r.warnings.push_back("its output " + power_text(*option.capacity_47_kw) + " is " + format_fixed(ratio, 1) +
+            r.warnings.push_back("its output " + power_text(*output_kw) + at_site + " is " + format_fixed(ratio, 1) +
                                  " times the house's design load " + power_text(*design_load) +
                                  ": oversized (more than 1.4 x, ACCA Manual S, from memory), it will short-cycle");
     }
@@ -212,9 +226,39 @@ std::optional<double> house_design_load_kw(const scenario& input) {
     return input.space_heat_kwh / degree_hours * std::max(0.0, balance_c - design_c);
 }
 
+namespace {
+
+/// Splits the result into space heating and water heating (space heating is the rest, so the totals are their
+/// sum) and the option's electricity into the periods of its time-of-use schedule.
+void finish_services(const scenario& input, const scenario& view, const scenario_option& option, option_result& r) {
+    auto& space = r.space_heating;
+    const auto& water = r.water_heating;
+    space.useful_heat_kwh = view.space_heat_kwh;
+    space.fuel_id = option.fuel.id;
+    space.fuel_unit = r.fuel_unit;
+    space.fuel_quantity = r.fuel_quantity - (water.fuel_id == option.fuel.id && water.fuel_unit == r.fuel_unit ? water.fuel_quantity : 0.0);
+    space.annual_cost = r.annual_cost - water.annual_cost;
+    space.co2e_kg = r.co2e_kg - water.co2e_kg;
+    space.efficiency = r.seasonal_efficiency_hhv;
+    space.made_by = std::string(kind_name(option.system.kind));
+    const auto tariff = option.fuel.category == fuel_category::electricity ? std::optional(option_tariff(option)) : site_tariff(input);
+    if (tariff && tariff->schedule && r.electricity_kwh > 0) r.electricity_periods = split_by_period(*tariff->schedule, r.electricity_profile);
+}
+
+}  // namespace
+
 option_result evaluate_option(const scenario& input, const scenario_option& option) {
-    auto r = evaluate_option_energy(input, option);
-    add_site_costs(input, option, r);
+    if (input.hot_water_kwh <= 0) {
+        auto r = evaluate_option_energy(input, option);
+        add_site_costs(input, option, r);
+        finish_services(input, input, option, r);
+        return r;
+    }
+    const scenario view = heating_system_view(input, option);
+    auto r = evaluate_option_energy(view, option);
+    add_site_costs(view, option, r);
+    add_water_heating(input, option, r);
+    finish_services(input, view, option, r);
     return r;
 }
 
@@ -265,6 +309,21 @@ option_result evaluate_option_energy(const scenario& input, const scenario_optio
     r.fuel_energy_hhv_kwh = r.useful_heat_kwh / r.seasonal_efficiency_hhv;
     r.fuel_quantity = r.fuel_energy_hhv_kwh / r.hhv_kwh_per_unit;
     r.energy_cost = priced_cost(option, r.fuel_quantity);
+    r.water_by_system_fuel_kwh = input.hot_water_kwh / r.seasonal_efficiency_hhv;
+    r.water_by_system_cost = r.energy_cost * input.hot_water_kwh / r.useful_heat_kwh;
+    if (fuel.category == fuel_category::electricity) {
+        // Electric heat in the hours the house needs it, hot water by the day's draws.
+        const bool leap = input.climate && input.climate->model.leap_year;
+        const auto space = space_heat_profile(input, r.fuel_energy_hhv_kwh - r.water_by_system_fuel_kwh);
+        const auto water = hot_water_profile(r.water_by_system_fuel_kwh, leap);
+        r.electricity_profile = add_profile(space, water);
+        r.electricity_kwh = r.fuel_energy_hhv_kwh;
+        if (option.schedule) {
+            const auto tariff = option_tariff(option);
+            r.water_by_system_cost = tariff_cost(tariff, r.water_by_system_fuel_kwh, water);
+            r.energy_cost = tariff_cost(tariff, r.fuel_energy_hhv_kwh - r.water_by_system_fuel_kwh, space) + r.water_by_system_cost;
+        }
+    }
     for (const auto& charge : option.fixed_charges) r.fixed_cost += charge.amount_per_year;
     r.annual_cost = r.energy_cost + r.fixed_cost;
     r.cost_parts.push_back({fuel.id, r.energy_cost, r.fixed_cost});
@@ -293,7 +352,15 @@ option_result evaluate_option_energy(const scenario& input, const scenario_optio
                                      : format_number(r.hhv_kwh_per_unit) + " kWh/" + r.fuel_unit;
     r.trace.push_back(energy_text(r.fuel_energy_hhv_kwh, units) + " / " + per_unit + " = " +
                       format_fixed(r.fuel_quantity, 1) + " " + r.fuel_unit);
-    if (option.tiers.empty()) {
+    if (option.schedule) {
+        r.trace.push_back(format_fixed(r.fuel_quantity, 1) + " kWh by time of use: " +
+                          periods_text(*option.schedule, r.electricity_profile, r.fuel_quantity));
+        r.trace.push_back(std::string("heat placed in the hours the house needs it") +
+                          (input.climate ? " (degree-hours of the climate's bins by month and hour)" : " (no climate: evenly over the year)") +
+                          ", hot water by the day's draws; = " + format_fixed(r.energy_cost, 2) + " " + currency + " energy");
+        r.price_per_unit = r.energy_cost / r.fuel_quantity;
+        r.cost_per_useful_kwh = r.energy_cost / r.useful_heat_kwh;
+    } else if (option.tiers.empty()) {
         r.trace.push_back(format_fixed(r.fuel_quantity, 1) + " " + r.fuel_unit + " x " + format_number(r.price_per_unit) + " " +
                           currency + "/" + r.fuel_unit + " = " + format_fixed(r.energy_cost, 2) + " " + currency + " energy");
     } else {

@@ -20,8 +20,11 @@ struct backup_system {
 struct season_cost {
     heat_pump_season season;
     double electricity_kwh = 0;   ///< compressor + resistance backup + hot water
+    double water_kwh = 0;         ///< of which hot water the heat pump makes
     double backup_fuel_kwh = 0;   ///< dual fuel, HHV
     double energy_cost = 0;
+    double water_cost = 0;        ///< of which hot water
+    month_hour_kwh profile{};     ///< the electricity by month and hour of day
 };
 
 season_cost run(const scenario& input, const scenario_option& option, const std::vector<heat_pump_point>& points,
@@ -40,9 +43,23 @@ season_cost run(const scenario& input, const scenario_option& option, const std:
     out.electricity_kwh = hp_kwh;
     if (backup.option) out.backup_fuel_kwh = backup_heat / backup.efficiency;
     else out.electricity_kwh += backup_heat;
-    // Hot water: served at the season's overall COP (with resistance backup counted as COP 1).
-    if (input.hot_water_kwh > 0) out.electricity_kwh += input.hot_water_kwh / out.season.seasonal_cop_with_resistance();
-    out.energy_cost = priced_cost(option, out.electricity_kwh);
+    // Hot water the heat pump makes: at its season's COP, with resistance backup counted as COP 1 (a fuel
+    // backup does not make it: then at the heat pump's own seasonal COP).
+    if (input.hot_water_kwh > 0)
+        out.water_kwh = input.hot_water_kwh / (backup.option && out.season.heat_pump_cop() > 0 ? out.season.heat_pump_cop()
+                                                                                                 : out.season.seasonal_cop_with_resistance());
+    out.electricity_kwh += out.water_kwh;
+    const auto space = bins_profile(input, out.season, losses, !backup.option);
+    const auto water = hot_water_profile(out.water_kwh, input.climate->model.leap_year);
+    out.profile = add_profile(space, water);
+    if (option.schedule) {
+        const auto tariff = option_tariff(option);
+        out.water_cost = tariff_cost(tariff, out.water_kwh, water);
+        out.energy_cost = tariff_cost(tariff, out.electricity_kwh - out.water_kwh, space) + out.water_cost;
+    } else {
+        out.energy_cost = priced_cost(option, out.electricity_kwh);
+        out.water_cost = out.electricity_kwh > 0 ? out.energy_cost * out.water_kwh / out.electricity_kwh : 0.0;
+    }
     if (backup.option) out.energy_cost += priced_cost(*backup.option, out.backup_fuel_kwh / backup.hhv_kwh_per_unit);
     return out;
 }
@@ -212,7 +229,7 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
         // A changeover at c locks the heat pump out in the bins below c. Without block rates the
         // energy cost is a sum over bins, so one season with the heat pump on and one with it off
         // give every candidate's cost by prefix sums; with block rates each candidate is run in full.
-        const bool additive = option.tiers.empty() && backup.option->tiers.empty() && input.hot_water_kwh == 0;
+        const bool additive = option.tiers.empty() && !option.schedule && backup.option->tiers.empty() && input.hot_water_kwh == 0;
         std::vector<double> candidates;
         for (const auto& bin : climate.bins)
             if (bin.t_c <= balance_c) candidates.push_back(bin.t_c);
@@ -264,6 +281,10 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
     r.lhv_kwh_per_unit = 1.0;
     r.seasonal_efficiency_hhv = r.useful_heat_kwh / r.fuel_energy_hhv_kwh;
     r.energy_cost = result.energy_cost;
+    r.water_by_system_fuel_kwh = result.water_kwh;
+    r.water_by_system_cost = result.water_cost;
+    r.electricity_profile = result.profile;
+    r.electricity_kwh = result.electricity_kwh;
     for (const auto& charge : option.fixed_charges) r.fixed_cost += charge.amount_per_year;
     if (backup.option)
         for (const auto& charge : backup.option->fixed_charges) r.fixed_cost += charge.amount_per_year;
@@ -274,7 +295,8 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
         for (const auto& charge : option.fixed_charges) own_fixed += charge.amount_per_year;
         if (backup.option)
             for (const auto& charge : backup.option->fixed_charges) backup_fixed += charge.amount_per_year;
-        const double electricity_cost = priced_cost(option, result.electricity_kwh);
+        const double electricity_cost = option.schedule ? tariff_cost(option_tariff(option), result.electricity_kwh, result.profile)
+                                                        : priced_cost(option, result.electricity_kwh);
         r.cost_parts.push_back({option.fuel.id, electricity_cost, own_fixed});
         if (backup.option) r.cost_parts.push_back({backup.option->fuel.id, r.energy_cost - electricity_cost, backup_fixed});
     }
@@ -331,9 +353,21 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
     else
         r.trace.push_back("resistance backup " + format_fixed(r.backup_kwh, 0) + " kWh; seasonal COP with backup " +
                           format_fixed(r.seasonal_cop, 2));
-    r.trace.push_back(format_fixed(result.electricity_kwh, 0) + " kWh x " + format_number(option.price_per_unit) + " " + currency +
-                      "/kWh" + (backup.option ? " + backup fuel" : "") + " = " + format_fixed(r.energy_cost, 2) + " " + currency +
-                      " energy; fixed " + format_fixed(r.fixed_cost, 2) + "; annual " + format_fixed(r.annual_cost, 2) + " " + currency);
+    if (result.water_kwh > 0)
+        r.trace.push_back("hot water " + energy_text(input.hot_water_kwh) + " / COP " +
+                          format_fixed(input.hot_water_kwh / result.water_kwh, 2) +
+                          (backup.option ? " (the heat pump's own; the fuel backup does not make it)" : " (the season's, with resistance backup)") +
+                          " = " + format_fixed(result.water_kwh, 0) + " kWh");
+    if (option.schedule)
+        r.trace.push_back(format_fixed(result.electricity_kwh, 0) + " kWh by time of use (each bin's kWh in its months and hours of "
+                          "the day" + std::string(result.water_kwh > 0 ? ", hot water by the day's draws" : "") + "): " +
+                          periods_text(*option.schedule, result.profile, result.electricity_kwh) + " " + currency +
+                          (backup.option ? " + backup fuel" : "") + "; energy " + format_fixed(r.energy_cost, 2) + "; fixed " +
+                          format_fixed(r.fixed_cost, 2) + "; annual " + format_fixed(r.annual_cost, 2) + " " + currency);
+    else
+        r.trace.push_back(format_fixed(result.electricity_kwh, 0) + " kWh x " + format_number(option.price_per_unit) + " " + currency +
+                          "/kWh" + (backup.option ? " + backup fuel" : "") + " = " + format_fixed(r.energy_cost, 2) + " " + currency +
+                          " energy; fixed " + format_fixed(r.fixed_cost, 2) + "; annual " + format_fixed(r.annual_cost, 2) + " " + currency);
     r.trace.push_back("emissions " + emissions_text);
     r.sources = option.fuel.sources;
     r.sources.push_back({"emission factors", option.fuel.id, option.fuel.emissions.source});

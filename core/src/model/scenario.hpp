@@ -14,6 +14,8 @@
 #include "supply/fuels.hpp"
 #include "climate/heat_pump.hpp"
 #include "supply/systems.hpp"
+#include "supply/water_heaters.hpp"
+#include "model/tariff.hpp"
 
 namespace fw {
 
@@ -38,6 +40,9 @@ struct scenario_settings {
     bool electricity_factor_given = false;
     std::string gwp = "AR5";
     std::optional<double> electricity_price_per_kwh;  ///< [currency/kWh] `settings.electricity.price`
+    std::optional<price_schedule> electricity_schedule;  ///< `settings.electricity.price.schedule`
+    std::optional<double> elevation_m;                ///< [m] `settings.elevation`, the site above sea level
+    std::optional<double> gas_pressure_base_pa;       ///< [Pa] `settings.gas_pressure_base`: the pressure gas volumes are metered at
     std::vector<kept_service> kept_services;          ///< `settings.kept_services`, and electricity's fixed charges
 };
 
@@ -83,6 +88,7 @@ struct scenario_option {
     std::string price_unit;
     double price_per_unit = 0;      ///< [currency per price_unit]; with tiers, the first block's
     std::vector<price_tier> tiers;  ///< block rates on the annual quantity (empty: one price)
+    std::optional<price_schedule> schedule;  ///< electricity by time of use (then price_per_unit is its hours' mean)
     std::vector<fixed_charge> fixed_charges;
     system_request system;
     std::optional<std::string> system_catalog;
@@ -109,6 +115,8 @@ struct scenario_option {
         std::string text;  ///< where it comes from, for the trace
     };
     std::optional<auxiliary_spec> auxiliary;
+    bool altitude_rated = false;  ///< `system.altitude_rated`: no input derating at the site's elevation
+    std::optional<water_heater_spec> water_heater;  ///< `water_heater`: replaces the house's for this option
     bool existing = false;
     double installed_cost = 0, incentives = 0, annual_maintenance = 0;  ///< [currency], [currency/year]
     std::optional<double> life_years;
@@ -126,6 +134,7 @@ struct climate_info {
     double design_99_c = 0, design_996_c = 0;
     std::optional<double> given_design_c;
     std::optional<double> spread_factor;  ///< the spread's scale calibrated to the given design temperature
+    std::vector<month_hour_hours> calendar;  ///< each bin's hours by month and hour of day (filled when a price has a schedule)
 };
 
 struct scenario {
@@ -133,7 +142,8 @@ struct scenario {
     std::optional<climate_info> climate;
     double annual_useful_heat_kwh = 0;  ///< space heat + hot water
     double space_heat_kwh = 0;
-    double hot_water_kwh = 0;
+    double hot_water_kwh = 0;           ///< useful heat of water heating (`demand.water_heating`, or the older `demand.hot_water`)
+    std::optional<water_heater_spec> water_heater;  ///< the house's water heater; none: each option's heating system makes hot water
     std::string demand_method = "direct";
     std::vector<std::string> demand_trace;
     std::optional<double> balance_point_c;  ///< for the heat-pump bins
@@ -148,6 +158,25 @@ struct scenario {
     std::vector<scenario_option> options;
     std::optional<economics_settings> economics;
     std::optional<uncertainty_settings> uncertainty;
+};
+
+/// One service's share of an option's result (space heating or water heating): the totals are their sum.
+struct service_result {
+    double useful_heat_kwh = 0;     ///< [kWh/year] heat the service delivers
+    std::string fuel_id, fuel_unit;  ///< the service's main fuel and its priced unit
+    double fuel_quantity = 0;       ///< [fuel_unit/year]
+    double annual_cost = 0;         ///< [currency/year] energy and the fixed charges that belong to it
+    double co2e_kg = 0;             ///< [kg/year]
+    std::string made_by;            ///< water heating: the heater's kind, or "heating-system"
+    double efficiency = 0;          ///< useful heat / site energy (HHV) of what makes it
+    double extra_space_heat_kwh = 0;  ///< [kWh/year] water heating: heat a heat-pump water heater takes from the heated space
+};
+
+/// [currency/kWh] How an option's electricity is priced: one price, or a schedule (with where it comes from).
+struct electricity_tariff {
+    double price_per_kwh = 0;
+    const price_schedule* schedule = nullptr;
+    std::string text;
 };
 
 /// Per-option result (the names of the JSON result).
@@ -187,10 +216,57 @@ struct option_result {
     std::string backup_option;               ///< dual fuel: id of the backup option
     double backup_fuel_quantity = 0;
     std::string backup_fuel_unit;
+    // Services and time of use.
+    service_result space_heating, water_heating;
+    double water_by_system_fuel_kwh = 0;     ///< [kWh HHV/year] the heating system's energy for hot water (it makes it)
+    double water_by_system_cost = 0;         ///< [currency/year] its cost
+    month_hour_kwh electricity_profile{};    ///< [kWh] the option's electricity by month and hour of day
+    double electricity_kwh = 0;              ///< [kWh/year] all of the option's electricity
+    std::vector<period_use> electricity_periods;  ///< by the schedule's periods, when its electricity has one
+    std::optional<double> derated_output_kw;  ///< a gas appliance's output at the site's elevation
 };
 
 /// [currency/year] Cost of `quantity` price units a year at the option's price or block rates.
 double priced_cost(const scenario_option& option, double quantity);
+
+/// [currency/year] Cost of a year's electricity `kwh` used as `profile` (any scale: it is normalised) under a tariff:
+/// by the schedule's periods when it has one, else kwh x the price.
+double tariff_cost(const electricity_tariff& tariff, double kwh, const month_hour_kwh& profile);
+
+/// The tariff of an option's own electricity (an electricity option), by its schedule or price.
+electricity_tariff option_tariff(const scenario_option& option);
+
+/// The site's electricity tariff for what a non-electric option uses (auxiliary electricity, an electric water
+/// heater): `settings.electricity.price`, else the first electricity option's; nullopt when there is none.
+std::optional<electricity_tariff> site_tariff(const scenario& input);
+
+/// [kWh] `kwh` of space-heating energy placed in the hours the house needs heat: with a climate by the degree-hours
+/// below the balance point of each bin's month-hours (the bin method's load line), without one evenly over the year.
+month_hour_kwh space_heat_profile(const scenario& input, double kwh);
+
+/// [kWh] The season's heat-pump electricity (and resistance backup when `with_backup`) x `scale` placed by each bin's month-hours.
+month_hour_kwh bins_profile(const scenario& input, const heat_pump_season& season, double scale, bool with_backup);
+
+/// [K] the balance point the bins use: the demand's, else 65 degF (US climate) or 18 degC.
+double bins_balance_point_c(const scenario& input);
+
+/// [1] Share of the year's hours the house needs heat (below the balance point); 0.5 without a climate (stated).
+double heating_hours_share(const scenario& input);
+
+/// Which systems make hot water (boilers, ground-source and electric-resistance systems) and which cannot
+/// (furnaces, stoves, air-to-air heat pumps).
+bool system_makes_hot_water(system_kind kind);
+
+/// Adds the option's water heating (its own heater or the house's) to a result evaluated with the space
+/// heating (and any hot water the heating system makes), and splits the result into its two services.
+void add_water_heating(const scenario& input, const scenario_option& option, option_result& r);
+
+/// The scenario as an option's heating system sees it: space heat plus what its water heater takes from the
+/// heated space, and the hot water the system itself makes (none when the option has a heater of its own).
+scenario heating_system_view(const scenario& input, const scenario_option& option);
+
+/// The water heater an option uses: its own, else the house's; nullptr: the heating system makes the hot water.
+const water_heater_spec* water_heater_of(const scenario& input, const scenario_option& option);
 
 /// [kW] The house's heating load at the climate's design temperature, from what the demand was given:
 /// the design heat loss as given; UA x (indoor - design); the bills fit's slope x efficiency x (tau - design)

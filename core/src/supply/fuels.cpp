@@ -169,6 +169,8 @@ double gas_moles_per_unit(const std::string& volume_unit, const std::string& ref
 
 }  // namespace
 
+double standard_atmosphere_pa(double elevation_m) { return 101325.0 * std::pow(1 - 2.25577e-5 * elevation_m, 5.25588); }
+
 std::string_view category_name(fuel_category category) {
     switch (category) {
         case fuel_category::gas: return "gas";
@@ -279,6 +281,15 @@ unit_heating_value heating_value_per_sale_unit(const fuel_record& fuel, const st
                               gas_moles_per_unit(fuel.basis_unit, fuel.gas_reference);
                 how = "1 " + sale_unit + " at " + sale_reference + " = " + format_number(basis_units) + " " +
                       fuel.basis_unit + " at " + fuel.gas_reference + " (ideal gas)";
+                if (options.gas_pressure_pa) {
+                    // Metered at another pressure: the moles in a volume scale with the absolute pressure (ideal gas).
+                    const double reference_pa = find_reference(sale_reference).pressure_pa;
+                    const double ratio = *options.gas_pressure_pa / reference_pa;
+                    basis_units *= ratio;
+                    how += "; metered at " + format_fixed(convert(*options.gas_pressure_pa, "Pa", "psia"), 3) + " psia (" +
+                           format_fixed(*options.gas_pressure_pa / 1000, 2) + " kPa) instead of " +
+                           format_fixed(reference_pa / 1000, 3) + " kPa: x " + format_fixed(ratio, 4);
+                }
             } else {
                 basis_units = convert(1.0, sale_unit, fuel.basis_unit);
                 // sold in the unit its heating value is given per: nothing to convert, nothing to say

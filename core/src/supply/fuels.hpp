@@ -84,7 +84,12 @@ struct sale_options {
     std::optional<double> bag_mass_kg;
     std::optional<double> face_cord_fraction;
     std::optional<std::string> wood_species;
+    std::optional<double> gas_pressure_pa;  ///< [Pa] absolute pressure gas volumes are metered at (else the reference's)
 };
+
+/// [Pa] Standard-atmosphere pressure at `elevation_m` [m]: 101,325 (1 - 2.25577e-5 h)^5.25588 (US Standard
+/// Atmosphere 1976 troposphere, the form ISO 2533 tabulates; from memory).
+double standard_atmosphere_pa(double elevation_m);
 
 /// Gross heating value of one sale unit [J], with how it was derived.
 struct unit_heating_value {

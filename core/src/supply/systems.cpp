@@ -96,6 +96,13 @@ bool is_heat_pump(system_kind kind) {
     return kind == system_kind::air_source_heat_pump || kind == system_kind::ground_source_heat_pump;
 }
 
+bool is_fuel_gas(const fuel_record& fuel) { return fuel.category == fuel_category::gas || fuel.id == "propane"; }
+
+double gas_altitude_derating(double elevation_ft) {
+    if (elevation_ft <= 2000) return 0.0;
+    return std::min(1.0, 0.04 * elevation_ft / 1000.0);
+}
+
 bool burns_fuel(system_kind kind) { return !is_heat_pump(kind) && kind != system_kind::electric_resistance; }
 
 const std::vector<system_record>& system_table() {

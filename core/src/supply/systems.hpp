@@ -20,6 +20,14 @@ efficiency_rating parse_rating(const std::string& text, const std::string& path 
 bool is_heat_pump(system_kind kind);
 bool burns_fuel(system_kind kind);
 
+/// Whether a fuel burns as a fuel gas (natural gas, propane, a custom gas): what the fuel gas codes' altitude rule covers.
+bool is_fuel_gas(const fuel_record& fuel);
+
+/// [1] Input derating of a gas appliance at `elevation_ft` [ft]: none up to 2,000 ft, above it 4 % for each
+/// 1,000 ft above sea level (NFPA 54 / ANSI Z223.1 National Fuel Gas Code, high-altitude input rating; from memory),
+/// capped at 100 %. An appliance rated for altitude by its maker is not derated again.
+double gas_altitude_derating(double elevation_ft);
+
 struct rated_efficiency {
     double value;
     efficiency_rating rating;

@@ -1,0 +1,119 @@
+#include "model/tariff.hpp"
+
+#include "base/error.hpp"
+#include "climate/climate.hpp"
+
+namespace fw {
+
+namespace {
+
+bool covers(const schedule_period& period, int month, int hour, bool weekend) {
+    if (!period.months[static_cast<std::size_t>(month)] || !period.hours[static_cast<std::size_t>(hour)]) return false;
+    return period.days == day_set::all || (period.days == day_set::weekends) == weekend;
+}
+
+const char* const month_names[12] = {"January", "February", "March",     "April",   "May",      "June",
+                                     "July",    "August",   "September", "October", "November", "December"};
+
+}  // namespace
+
+std::optional<schedule_clash> schedule_coverage_problem(const price_schedule& schedule) {
+    for (int month = 0; month < 12; ++month)
+        for (const bool weekend : {false, true})
+            for (int hour = 0; hour < 24; ++hour) {
+                schedule_clash found{month, hour, weekend, -1, -1};
+                for (std::size_t p = 0; p < schedule.size(); ++p) {
+                    if (!covers(schedule[p], month, hour, weekend)) continue;
+                    if (found.first < 0) {
+                        found.first = static_cast<int>(p);
+                    } else {
+                        found.second = static_cast<int>(p);
+                        return found;
+                    }
+                }
+                if (found.first < 0) return found;
+            }
+    return std::nullopt;
+}
+
+std::string clash_text(const schedule_clash& clash) {
+    const auto two = [](int h) { return (h < 10 ? "0" : "") + std::to_string(h) + ":00"; };
+    return std::string(clash.weekend ? "weekends " : "weekdays ") + two(clash.hour) + "-" + two(clash.hour + 1) + " in " +
+           month_names[clash.month];
+}
+
+std::vector<period_use> split_by_period(const price_schedule& schedule, const month_hour_kwh& kwh) {
+    std::vector<period_use> out;
+    for (const auto& period : schedule) out.push_back({period.name, 0.0, 0.0});
+    for (int month = 0; month < 12; ++month)
+        for (int hour = 0; hour < 24; ++hour)
+            for (const bool weekend : {false, true}) {
+                const double share = weekend ? 1 - weekday_share : weekday_share;
+                for (std::size_t p = 0; p < schedule.size(); ++p)
+                    if (covers(schedule[p], month, hour, weekend)) {
+                        out[p].kwh += kwh[static_cast<std::size_t>(month)][static_cast<std::size_t>(hour)] * share;
+                        break;
+                    }
+            }
+    for (std::size_t p = 0; p < schedule.size(); ++p) out[p].cost = out[p].kwh * schedule[p].amount_per_kwh;
+    return out;
+}
+
+std::string periods_text(const price_schedule& schedule, const month_hour_kwh& profile, double kwh) {
+    const double total = profile_total(profile);
+    const double scale = total > 0 ? kwh / total : 0.0;
+    const auto uses = split_by_period(schedule, profile);
+    std::string out;
+    for (std::size_t p = 0; p < uses.size(); ++p)
+        out += (out.empty() ? "" : " + ") + format_fixed(uses[p].kwh * scale, 0) + " kWh " + uses[p].name + " x " +
+               format_number(schedule[p].amount_per_kwh);
+    double cost = 0;
+    for (const auto& use : uses) cost += use.cost * scale;
+    return out + " = " + format_fixed(cost, 2);
+}
+
+month_hour_kwh flat_profile(double kwh, bool leap_year) {
+    const auto days = days_in_months(leap_year);
+    const double year_hours = 24.0 * (leap_year ? 366 : 365);
+    month_hour_kwh out{};
+    for (std::size_t m = 0; m < 12; ++m)
+        for (auto& hour : out[m]) hour = kwh * days[m] / year_hours;
+    return out;
+}
+
+const std::array<double, 24>& hot_water_day_shape() {
+    // Percent of the day's draws by hour: low at night, a morning peak (7-9 h) and a longer evening one (18-21 h).
+    static const std::array<double, 24> shape = [] {
+        const std::array<double, 24> percent = {1.0, 0.5, 0.5, 0.5, 0.5, 1.5, 5.5, 8.0, 8.0, 6.0, 5.0, 4.5,
+                                                5.5, 4.0, 3.5, 3.5, 4.0, 5.0, 7.0, 7.0, 7.0, 5.5, 4.0, 2.5};
+        std::array<double, 24> out{};
+        for (std::size_t h = 0; h < 24; ++h) out[h] = percent[h] / 100.0;
+        return out;
+    }();
+    return shape;
+}
+
+month_hour_kwh hot_water_profile(double kwh, bool leap_year) {
+    const auto days = days_in_months(leap_year);
+    const double year_days = leap_year ? 366 : 365;
+    month_hour_kwh out{};
+    for (std::size_t m = 0; m < 12; ++m)
+        for (std::size_t h = 0; h < 24; ++h) out[m][h] = kwh * days[m] / year_days * hot_water_day_shape()[h];
+    return out;
+}
+
+double profile_total(const month_hour_kwh& kwh) {
+    double total = 0;
+    for (const auto& month : kwh)
+        for (double hour : month) total += hour;
+    return total;
+}
+
+month_hour_kwh add_profile(const month_hour_kwh& a, const month_hour_kwh& b, double scale) {
+    month_hour_kwh out = a;
+    for (std::size_t m = 0; m < 12; ++m)
+        for (std::size_t h = 0; h < 24; ++h) out[m][h] += scale * b[m][h];
+    return out;
+}
+
+}  // namespace fw
