@@ -338,9 +338,11 @@ price_schedule read_price_schedule(const json& list, const std::string& path, st
         schedule_period period;
         period.name = required_string(period_json, "name", item);
         if (period.name.empty() || period.name.size() > 40) throw input_error(item + "/name", "must be 1 to 40 characters");
-        for (const auto& earlier : schedule)
-            if (earlier.name == period.name) throw input_error(item + "/name", "another period is named \"" + period.name + "\"");
         period.amount_per_kwh = required_number(period_json, "amount", item);
+        for (const auto& earlier : schedule)
+            if (earlier.name == period.name && earlier.amount_per_kwh != period.amount_per_kwh)
+                throw input_error(item + "/amount", "period \"" + period.name + "\" costs " + format_number(earlier.amount_per_kwh) +
+                                                        " in an earlier row: rows of one name are one period with one price");
         if (period.amount_per_kwh < 0) throw input_error(item + "/amount", "must be >= 0, got " + format_number(period.amount_per_kwh));
         if (period.amount_per_kwh >= 10)
             throw input_error(item + "/amount", "must be a price per kWh below 10, got " + format_number(period.amount_per_kwh) +

@@ -43,19 +43,27 @@ std::string clash_text(const schedule_clash& clash) {
 }
 
 std::vector<period_use> split_by_period(const price_schedule& schedule, const month_hour_kwh& kwh) {
+    // Rows of the same name are one period (one price in several seasons or hours).
     std::vector<period_use> out;
-    for (const auto& period : schedule) out.push_back({period.name, 0.0, 0.0});
+    std::vector<std::size_t> group_of(schedule.size());
+    for (std::size_t p = 0; p < schedule.size(); ++p) {
+        std::size_t g = 0;
+        while (g < out.size() && out[g].name != schedule[p].name) ++g;
+        if (g == out.size()) out.push_back({schedule[p].name, 0.0, 0.0});
+        group_of[p] = g;
+    }
     for (int month = 0; month < 12; ++month)
         for (int hour = 0; hour < 24; ++hour)
             for (const bool weekend : {false, true}) {
                 const double share = weekend ? 1 - weekday_share : weekday_share;
                 for (std::size_t p = 0; p < schedule.size(); ++p)
                     if (covers(schedule[p], month, hour, weekend)) {
-                        out[p].kwh += kwh[static_cast<std::size_t>(month)][static_cast<std::size_t>(hour)] * share;
+                        const double used = kwh[static_cast<std::size_t>(month)][static_cast<std::size_t>(hour)] * share;
+                        out[group_of[p]].kwh += used;
+                        out[group_of[p]].cost += used * schedule[p].amount_per_kwh;
                         break;
                     }
             }
-    for (std::size_t p = 0; p < schedule.size(); ++p) out[p].cost = out[p].kwh * schedule[p].amount_per_kwh;
     return out;
 }
 
@@ -64,9 +72,9 @@ std::string periods_text(const price_schedule& schedule, const month_hour_kwh& p
     const double scale = total > 0 ? kwh / total : 0.0;
     const auto uses = split_by_period(schedule, profile);
     std::string out;
-    for (std::size_t p = 0; p < uses.size(); ++p)
-        out += (out.empty() ? "" : " + ") + format_fixed(uses[p].kwh * scale, 0) + " kWh " + uses[p].name + " x " +
-               format_number(schedule[p].amount_per_kwh);
+    for (const auto& use : uses)
+        out += (out.empty() ? "" : " + ") + format_fixed(use.kwh * scale, 0) + " kWh " + use.name + " x " +
+               format_number(use.kwh > 0 ? use.cost / use.kwh : 0.0);
     double cost = 0;
     for (const auto& use : uses) cost += use.cost * scale;
     return out + " = " + format_fixed(cost, 2);

@@ -20,7 +20,7 @@ struct schedule_period {
     std::array<bool, 12> months{};  ///< January first
 };
 
-/// A time-of-use price: its periods cover every hour of every day of the year once.
+/// A time-of-use price: its rows cover every hour of every day of the year once; rows may share a name (and then a price).
 using price_schedule = std::vector<schedule_period>;
 
 /// [kWh] Electricity by month (January first) and hour of the day (0 = 0:00-1:00), over all days of the month.
@@ -53,7 +53,8 @@ struct period_use {
 };
 
 /// kWh and cost by period: each month-hour's kWh split 5/7 weekdays, 2/7 weekends, then summed into the
-/// period covering it. The periods' kWh add up to the profile's total.
+/// period covering it (rows of one name are one period, in the order their names first appear). The periods'
+/// kWh add up to the profile's total.
 std::vector<period_use> split_by_period(const price_schedule& schedule, const month_hour_kwh& kwh);
 
 /// "812 kWh peak x 0.31 + ..." for traces: the profile's kWh by period, scaled to `kwh`, with each period's price.
