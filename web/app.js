@@ -30,7 +30,7 @@ import { renderQuotes } from './views/quotes.js';
 import { renderSystems } from './views/systems.js';
 import { billedSystemId, efficiencyFor } from './equipment.js';
 import {
-  addBill, addRating, appendBills, autoLabel, duplicateSystem, fitSystemToCatalog, newFuelEntry, newSystem, setFuel, switchUnits,
+  addBill, addPeriod, addRating, appendBills, autoLabel, duplicateSystem, fitSystemToCatalog, newFuelEntry, newSystem, setFuel, switchUnits,
 } from './editing.js';
 import { rankedOptions, resultsCsv } from './results.js';
 import { latestWins } from './runner.js';
@@ -646,6 +646,15 @@ function onField(path, value, { structural }) {
     store.mutate(() => setFuel(ws, entry, value, ctx.catalog));
     return;
   }
+  if ((m = /^\/fuels\/(\d+)\/price\/time_of_use$/.exec(path))) {
+    // ticked: the tariff starts complete, one period over every hour at today's price
+    const entry = ws.fuels[Number(m[1])];
+    store.mutate(() => {
+      entry.price.time_of_use = value || undefined;
+      if (value && !entry.price.schedule?.length) addPeriod(entry);
+    });
+    return;
+  }
   if ((m = /^\/fuels\/(\d+)\/fuel\/sale_unit$/.exec(path))) {
     const entry = ws.fuels[Number(m[1])];
     store.mutate(() => {
@@ -790,6 +799,8 @@ const ACTIONS = {
   'add-rating': (d) => store.mutate((ws) => addRating(ws, Number(d.system))),
   'remove-rating': (d) => store.mutate((ws) => ws.systems[Number(d.system)].system.ratings.splice(Number(d.index), 1)),
   'add-bill': () => store.mutate((ws) => addBill(ws)),
+  'add-period': (d) => store.mutate(() => addPeriod(store.get(d.fuel))),
+  'remove-period': (d) => store.mutate(() => store.get(d.fuel).price.schedule.splice(Number(d.index), 1)),
   'paste-bills': () => {
     const text = $('#bills-paste')?.value ?? '';
     const { bills, problems } = parseBillLines(text, prefs.locale);

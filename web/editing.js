@@ -161,3 +161,14 @@ export function switchUnits(ws, system) {
   }
   for (const entry of ws.fuels) if (entry.bag_mass) entry.bag_mass = convertQuantity(entry.bag_mass, system);
 }
+
+/**
+ * A new time-of-use row on an electricity entry: the first one covers every hour at the entry's one price (so the
+ * tariff is complete from the start), later ones start empty.
+ */
+export function addPeriod(entry) {
+  const schedule = entry.price.schedule ?? [];
+  entry.price.schedule = schedule;
+  if (!schedule.length) schedule.push({ name: 'all hours', amount: entry.price.amount, from: 0, to: 24, days: 'all', months_text: '' });
+  else schedule.push({ name: '', days: 'all', months_text: '' });
+}

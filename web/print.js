@@ -12,6 +12,7 @@ import { FUEL_BURNING_KINDS, STAGES, auxiliaryDefault, equipmentElectricityPrice
 import { HEAT_PUMP_KINDS } from './scenario.js';
 import { optionPrice } from './profile.js';
 import { ENERGY_KWH, unitLabel } from './units.js';
+import { servicesTable } from './views/verdict-services.js';
 
 const DISCLAIMER = 'This sheet compares running costs and emissions from the figures entered on the day. It is an estimate, '
   + 'not an offer to supply fuel or a guarantee of savings, and not an engineering design. Actual costs depend on weather, '
@@ -26,6 +27,14 @@ function assumptions(ws, result, ctx) {
     items.push(['Heat the house needs', `${format.number(result.demand.annual_useful_heat_kwh / ENERGY_KWH[unit])} ${unitLabel(unit)} a year (${
       d.method === 'direct' ? 'given' : d.method === 'heat-loss' ? 'from the heat loss of the house' : 'from past bills'})`]);
   }
+  const water = d.water_heating;
+  if (water?.enabled && result?.demand && Number.isFinite(result.demand.water_heating_kwh)) {
+    const unit = ws.settings.energy_unit;
+    const heater = water.heater?.kind ? `; water heater in the house now: ${water.heater.kind.replaceAll('-', ' ')}${
+      Number.isFinite(water.heater.uef) ? `, UEF ${format.number(water.heater.uef)}` : ''}` : '';
+    items.push(['Hot water', `${format.number(result.demand.water_heating_kwh / ENERGY_KWH[unit])} ${unitLabel(unit)} a year${
+      water.mode !== 'annual' && Number.isFinite(water.people) ? ` for ${format.number(water.people)} people` : ''}${heater}`]);
+  }
   if (result?.climate && Number.isFinite(result.climate.annual_hdd)) {
     items.push(['Climate', `${format.number(result.climate.annual_hdd)} heating degree-days (${unitLabel(result.climate.unit ?? ws.climate.unit)}·d)`]);
   }
@@ -33,7 +42,10 @@ function assumptions(ws, result, ctx) {
     const charges = (entry.fixed_charges ?? []).map((c) => (c.amount_per_month !== undefined
       ? `${format.price(c.amount_per_month)} a month` : `${format.price(c.amount_per_year)} a year`)).join(', ');
     const used = ws.systems.some((sys) => sys.fuel_key === entry.key);
-    const price = used ? `${format.price(entry.price?.amount)} per ${unitLabel(entry.price?.per ?? '')}` : 'no system here burns it';
+    const tou = entry.price?.time_of_use ? (entry.price.schedule ?? []) : null;
+    const price = !used ? 'no system here burns it' : tou
+      ? `by time of use: ${tou.map((r) => `${r.name} ${format.price(r.amount)} per kWh (${r.from}-${r.to} h${r.days && r.days !== 'all' ? `, ${r.days}` : ''}${r.months_text ? `, months ${r.months_text}` : ''})`).join('; ')}`
+      : `${format.price(entry.price?.amount)} per ${unitLabel(entry.price?.per ?? '')}`;
     const kept = entry.keep_service ? '; the service is kept for other appliances' : '';
     items.push([fuelName(entry, ctx.catalog), `${price}${charges ? `; fixed ${charges}` : ''}${kept}`]);
   }
@@ -169,6 +181,11 @@ export function renderQuoteSheet(sheet, ctx, result, extra = {}) {
   ];
   if (result?.options?.length && !(result.errors ?? []).length) {
     parts.push(h('section', {}, h('h2', { text: 'Results' }), resultsTable(ws, result, ctx)));
+    const services = servicesTable(result, ctx, 'annual', 'sheet-services-table');
+    if (services) {
+      services.classList.add('print-table');
+      parts.push(h('section', { id: 'sheet-services' }, h('h2', { text: 'Space heating and hot water' }), services));
+    }
     const prices = pricesSection(ws, result, ctx);
     if (prices) parts.push(prices);
     const rows = rankedOptions(result, 'annual').map((o) => ({ id: o.id, label: o.label ?? o.id, energy: o.energy_cost, fixed: o.fixed_cost }));

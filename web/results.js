@@ -29,6 +29,34 @@ export function displayValues(option, ws) {
 export const hasLifeCycle = (result, ws) => Boolean(ws?.economics?.enabled) && (result?.options ?? []).length > 0
   && result.options.every((o) => isNum(o.life_cycle_cost));
 
+const MADE_BY = {
+  'heating-system': 'the heating system', storage: 'a storage water heater', tankless: 'a tankless water heater',
+  'heat-pump-water-heater': 'a heat-pump water heater', indirect: 'the boiler, through an indirect tank', combi: 'the combi boiler',
+};
+
+/** Who makes an option's hot water, in words. */
+export const madeByWords = (id) => MADE_BY[id] ?? id;
+
+/**
+ * The two services of each option in rank order (space heating and hot water, each its cost a year, what it burns
+ * and how much) and the option's electricity by time-of-use period; null when the verdict has no hot water and no
+ * period (nothing to split).
+ */
+export function serviceRows(result, by) {
+  const list = rankedOptions(result, by);
+  const water = list.some((o) => (o.water_heating?.useful_heat_kwh ?? 0) > 0);
+  const periods = list.some((o) => Array.isArray(o.electricity_periods) && o.electricity_periods.length);
+  if (!water && !periods) return null;
+  return list.map((o) => ({
+    id: o.id,
+    label: o.label ?? o.id,
+    space: o.space_heating ?? null,
+    water: water ? o.water_heating ?? null : null,
+    periods: (o.electricity_periods ?? []).map((p) => ({ name: p.name, kwh: p.kwh, cost: p.cost })),
+    electricity_kwh: o.electricity_kwh,
+  }));
+}
+
 /** Rows of the ranked table, in rank order by `by` ('annual', or 'life' for the core's life-cycle ranking). */
 export function rankedOptions(result, by) {
   const byId = new Map((result.options ?? []).map((o) => [o.id, o]));

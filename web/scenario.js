@@ -6,6 +6,7 @@
 // carrying its fuel's price. It also keeps the fields of every demand method and
 // climate form, so switching the method picker loses nothing; only the chosen
 // method's fields are sent. Every entered quantity keeps its own unit.
+import { rowField, rowsOfSchedule, scheduleOfRows } from './schedule.js';
 import { FUEL_BURNING_KINDS, MODULATING, electricSystems } from './equipment.js';
 import { unreadableVersionMessage } from './versions.js';
 
@@ -157,7 +158,44 @@ function demandOf(d) {
     }
     put(out, 'balance_point', quantity(d.balance_point));
   }
+  if (d.water_heating?.enabled) {
+    // hot water as its own service replaces the older yearly figure
+    delete out.hot_water;
+    out.water_heating = waterHeatingOf(d.water_heating);
+  }
   for (const [key, value] of Object.entries(d.extra ?? {})) if (!(key in out)) out[key] = clone(value);
+  return out;
+}
+
+/** Water heaters the house's boiler heats (no fuel or rating of their own). */
+export const BOILER_WATER_HEATERS = ['indirect', 'combi'];
+
+/** A water heater as the core reads it ({kind, fuel, uef, location, standby_loss}) from its workspace form. */
+export function waterHeaterOf(heater) {
+  const out = {};
+  put(out, 'kind', heater?.kind || undefined);
+  if (!BOILER_WATER_HEATERS.includes(heater?.kind)) {
+    put(out, 'fuel', heater?.fuel || undefined);
+    if (isNumber(heater?.uef)) out.uef = heater.uef;
+    else if (isNumber(heater?.efficiency?.value)) out.efficiency = { value: heater.efficiency.value, rating: heater.efficiency.rating ?? 'UEF' };
+    else out.uef = null;  // the core asks for it at its field
+  }
+  put(out, 'location', heater?.location || undefined);
+  if (heater?.kind === 'indirect') put(out, 'standby_loss', quantity(heater.standby_loss));
+  return out;
+}
+
+/** `demand.water_heating` of the House tab's hot-water section: the heat (by people or a yearly amount) and the house's heater. */
+function waterHeatingOf(w) {
+  const out = {};
+  if (w.mode === 'annual') {
+    out.annual_heat = quantity(w.annual_heat) ?? { value: null, unit: w.annual_heat?.unit ?? 'kWh' };
+  } else {
+    out.people = isNumber(w.people) ? w.people : null;
+    put(out, 'volume_per_person_day', quantity(w.volume_per_person_day));
+    put(out, 'temperature_rise', quantity(w.temperature_rise));
+  }
+  if (w.heater?.kind) out.heater = waterHeaterOf(w.heater);
   return out;
 }
 
@@ -324,6 +362,7 @@ function electricityOf(ws) {
   const out = {};
   for (const [key, value] of Object.entries(e)) if (key !== 'price') out[key] = clone(value);
   if (isNumber(e.price?.amount) && !electricSystems(ws).length) out.price = { amount: e.price.amount, per: 'kWh' };
+  else if (Array.isArray(e.price?.schedule) && !electricSystems(ws).length) out.price = clone(e.price);
   return Object.keys(out).length ? out : undefined;
 }
 
@@ -351,6 +390,8 @@ function fuelPartOf(entry) {
   option.price = { amount: entry.price?.amount, per: entry.price?.per };
   if (!isNumber(option.price.amount)) delete option.price.amount;
   if (Array.isArray(entry.price?.tiers) && entry.price.tiers.length) option.price.tiers = tiersOf(entry.price.tiers);
+  // electricity by time of use: the rows' schedule instead of one price
+  if (entry.price?.time_of_use) option.price = { per: 'kWh', schedule: scheduleOfRows(entry.price.schedule) };
   const charges = (entry.fixed_charges ?? []).map(fixedChargeOf).filter((c) => 'amount_per_month' in c || 'amount_per_year' in c);
   if (charges.length) option.fixed_charges = charges;
   if (isNumber(entry.heating_value?.value)) {
@@ -403,6 +444,7 @@ export function toScenario(ws) {
     put(option, 'label', isText(sys.label) ? sys.label : undefined);
     if (entry) Object.assign(option, fuelPartOf(entry));
     option.system = systemOf(sys.system ?? {});
+    if (ws.demand.water_heating?.enabled && sys.water_heater?.mode === 'own') option.water_heater = waterHeaterOf(sys.water_heater);
     put(option, 'equipment', isText(sys.equipment) ? sys.equipment : undefined);
     // the system in the house now is the baseline of every saving, with or without the costs over the years
     if (sys.existing) option.existing = true;
@@ -467,6 +509,9 @@ export function workspacePath(path, ws) {
     if (FUEL_FIELDS.includes(field)) {
       const fi = ws.fuels.findIndex((f) => f.key === sys.fuel_key);
       if (fi < 0) return `/systems/${index}/fuel_key`;
+      if (parts[3] === 'price' && parts[4] === 'schedule' && /^\d+$/.test(parts[5] ?? '') && parts[6]) {
+        return `/fuels/${fi}/price/schedule/${parts[5]}/${rowField(parts.slice(6))}`;
+      }
       return [`/fuels/${fi}`, ...parts.slice(3)].join('/');
     }
     if (field === 'system' && parts[4] === 'changeover') return `/systems/${index}/system/changeover`;
@@ -546,6 +591,7 @@ function fuelEntryOf(ws, fuelPart) {
     price: fuelPart.price ?? { per: '' },
     fixed_charges: fuelPart.fixed_charges ?? [],
   };
+  if (Array.isArray(entry.price.schedule)) entry.price = { per: 'kWh', time_of_use: true, schedule: rowsOfSchedule(entry.price.schedule) };
   for (const key of ['heating_value', 'wood_species', 'moisture_pct', 'bag_mass', 'face_cord_fraction']) {
     if (fuelPart[key] !== undefined) entry[key] = fuelPart[key];
   }
@@ -606,7 +652,7 @@ export function fromScenario(doc) {
   const wd = ws.demand;
   wd.method = d.method ?? 'direct';
   const demandKnown = ['method', 'annual_useful_heat', 'balance_point', 'ua', 'design_heat_loss', 'indoor', 'design_outdoor',
-    'internal_gains', 'degree_day_correction', 'hot_water', 'bills', 'option', 'fuel', 'system', 'bill_dates', 'observed'];
+    'internal_gains', 'degree_day_correction', 'hot_water', 'bills', 'option', 'fuel', 'system', 'bill_dates', 'observed', 'water_heating'];
   for (const key of ['annual_useful_heat', 'balance_point', 'ua', 'design_heat_loss', 'indoor', 'design_outdoor',
     'internal_gains', 'hot_water']) {
     if (d[key] !== undefined) wd[key] = clone(d[key]);
@@ -621,6 +667,9 @@ export function fromScenario(doc) {
   // bills without the date rule keep the core's reading of them (no rule sent); a new quote's bills are meter reads
   if (d.bill_dates !== undefined || (Array.isArray(d.bills) && d.bills.length)) wd.bill_dates = d.bill_dates;
   if (d.observed !== undefined) wd.observed = clone(d.observed);
+  if (d.water_heating && typeof d.water_heating === 'object') {
+    wd.water_heating = { enabled: true, mode: d.water_heating.annual_heat !== undefined ? 'annual' : 'people', ...clone(d.water_heating) };
+  }
   const demandExtra = Object.fromEntries(Object.entries(d).filter(([key]) => !demandKnown.includes(key)));
   if (Object.keys(demandExtra).length) wd.extra = clone(demandExtra);
 
@@ -643,6 +692,10 @@ export function fromScenario(doc) {
       system: systemFromScenario(systemPart.system),
     };
     for (const key of [...ECONOMIC_FIELDS, 'equipment']) if (systemPart[key] !== undefined) sys[key] = systemPart[key];
+    if (extra.water_heater && typeof extra.water_heater === 'object') {
+      sys.water_heater = { mode: 'own', ...extra.water_heater };
+      delete extra.water_heater;
+    }
     if (Object.keys(extra).length) sys.extra = extra;
     ws.systems.push(sys);
   }

@@ -97,9 +97,13 @@ function fuelCard(ctx, ws, entry, index) {
     selectField(ctx, { label: 'Fuel', path: `${base}/fuel`, value: custom ? 'custom' : entry.fuel, choices: fuelChoices, structural: true }),
   ];
   if (custom) nodes.push(customFuelFields(ctx, base, entry.fuel));
-  nodes.push(numberField(ctx, { label: `Price (${currency})`, path: `${base}/price/amount`, value: entry.price?.amount,
-    unit: { path: `${base}/price/per`, value: entry.price?.per, choices: units.map((u) => [u, `per ${unitLabel(u)}`]), structural: true },
-    hint: 'As paid, with delivery and taxes.' }));
+  const timeOfUse = id === 'electricity' && Boolean(entry.price?.time_of_use);
+  if (!timeOfUse) {
+    nodes.push(numberField(ctx, { label: `Price (${currency})`, path: `${base}/price/amount`, value: entry.price?.amount,
+      unit: { path: `${base}/price/per`, value: entry.price?.per, choices: units.map((u) => [u, `per ${unitLabel(u)}`]), structural: true },
+      hint: 'As paid, with delivery and taxes.' }));
+  }
+  if (id === 'electricity') nodes.push(timeOfUseFields(ctx, base, entry, currency));
   if (id === 'cordwood') {
     const species = record?.wood_species ?? [];
     nodes.push(h('div', { class: 'grid two' },
@@ -152,6 +156,37 @@ function fuelCard(ctx, ws, entry, index) {
       disabled: usedBy > 0, 'aria-describedby': whyKept ? `remove-fuel-why-${index}` : undefined,
       text: 'Remove this fuel' })));
   return h('article', { class: 'card fuel-card', dataset: { fuelKey: entry.key, field: base } }, nodes);
+}
+
+const DAY_CHOICES = [['all', 'every day'], ['weekdays', 'weekdays'], ['weekends', 'weekends']];
+
+/**
+ * Electricity priced by the hour (a time-of-use tariff): one row per span of hours, rows of one name one period;
+ * the heat pump's kWh fall in the hours of its temperature bins, hot water by the day's draws.
+ */
+function timeOfUseFields(ctx, base, entry, currency) {
+  const on = Boolean(entry.price?.time_of_use);
+  const nodes = [checkField(ctx, { label: 'Priced by time of use (peak and off-peak hours)', path: `${base}/price/time_of_use`, checked: on, structural: true,
+    hint: on ? undefined : 'Tick it when the tariff charges by the hour of the day: heat pumps use most in cold nights and mornings.' })];
+  if (!on) return h('div', { class: 'time-of-use' }, nodes);
+  const rows = (entry.price?.schedule ?? []).map((row, k) => {
+    const p = `${base}/price/schedule/${k}`;
+    return h('div', { class: 'row-card period-row', dataset: { field: p } },
+      h('div', { class: 'grid periods' },
+        textField(ctx, { label: `Period ${k + 1}`, path: `${p}/name`, value: row.name, maxlength: 40, placeholder: 'peak' }),
+        numberField(ctx, { label: `Price (${currency})`, path: `${p}/amount`, value: row.amount, unit: 'per kWh' }),
+        numberField(ctx, { label: 'From hour', path: `${p}/from`, value: row.from, placeholder: '16' }),
+        numberField(ctx, { label: 'To hour', path: `${p}/to`, value: row.to, placeholder: '21' }),
+        selectField(ctx, { label: 'Days', path: `${p}/days`, value: row.days ?? 'all', choices: DAY_CHOICES }),
+        textField(ctx, { label: 'Months', path: `${p}/months_text`, value: row.months_text ?? '', maxlength: 40, placeholder: 'all year' })),
+      h('button', { type: 'button', class: 'quiet', dataset: { action: 'remove-period', fuel: base, index: String(k) }, text: `Remove period ${k + 1}` }),
+      h('p', { class: 'field-msg', hidden: true }));
+  });
+  nodes.push(h('div', { class: 'field rows', id: `${base.slice(1).replace('/', '-')}-schedule`, dataset: { field: `${base}/price/schedule` } }, rows,
+    h('p', { class: 'field-msg', hidden: true })));
+  nodes.push(h('p', { class: 'hint', text: 'Hours from 0 to 24 on the tariff sheet\'s clock (22 to 6 runs past midnight); months as 6-9 or 11-3, empty for the whole year. Every hour of the week must be in one period: give a period two rows under the same name for two spans of hours.' }));
+  nodes.push(h('button', { type: 'button', class: 'secondary', dataset: { action: 'add-period', fuel: base }, text: 'Add a period' }));
+  return h('div', { class: 'time-of-use' }, nodes);
 }
 
 const formatSpread = (fraction) => String(Math.round(fraction * 1000) / 10);

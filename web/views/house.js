@@ -6,6 +6,7 @@ import { monthNames } from '../format.js';
 import { observedSpan } from '../weather.js';
 import { POWER_UNITS, UA_UNITS } from '../units.js';
 import { fuelName } from './fuels.js';
+import { waterHeaterFields } from './water-heater.js';
 
 const TEMPS = ['degF', 'degC'];
 const DEMAND_ENERGY = ['MMBtu', 'therm', 'kWh', 'GJ', 'MJ', 'Btu'];
@@ -59,7 +60,7 @@ function heatLossFields(ctx, d) {
   nodes.push(h('div', { class: 'grid two' },
     numberField(ctx, { label: 'Degree-day correction C_D (optional)', path: '/demand/degree_day_correction', value: d.degree_day_correction,
       hint: 'Factor on degree-day heat loss, e.g. 0.6 to 1.' }),
-    quantityField(ctx, 'Hot water per year (optional)', '/demand/hot_water', d.hot_water, DEMAND_ENERGY)));
+    d.water_heating?.enabled ? null : quantityField(ctx, 'Hot water per year (optional)', '/demand/hot_water', d.hot_water, DEMAND_ENERGY)));
   return nodes;
 }
 
@@ -134,6 +135,34 @@ function billFields(ctx, ws, d) {
   ];
 }
 
+/** Hot water as its own service: how much the household uses and the water heater in the house now. */
+function waterHeatingFields(ctx, ws) {
+  const w = ws.demand.water_heating ?? {};
+  const us = ws.settings.units === 'us';
+  const nodes = [h('legend', { text: 'Hot water' }),
+    checkField(ctx, { label: 'Include hot water in the comparison', path: '/demand/water_heating/enabled', checked: Boolean(w.enabled), structural: true,
+      hint: 'Hot water is costed with the water heater that makes it: the one in the house now, or one that comes with an option (Systems tab).' })];
+  if (w.enabled) {
+    const mode = w.mode ?? 'people';
+    nodes.push(radioField(ctx, { legend: 'Hot water known as', path: '/demand/water_heating/mode', value: mode,
+      choices: [['people', 'People in the house'], ['annual', 'A yearly amount of heat']] }));
+    if (mode === 'annual') {
+      nodes.push(quantityField(ctx, 'Heat in the hot water per year', '/demand/water_heating/annual_heat', w.annual_heat ?? { unit: us ? 'MMBtu' : 'kWh' }, DEMAND_ENERGY));
+    } else {
+      nodes.push(h('div', { class: 'grid three' },
+        numberField(ctx, { label: 'People', path: '/demand/water_heating/people', value: w.people }),
+        quantityField(ctx, 'Hot water per person a day (optional)', '/demand/water_heating/volume_per_person_day',
+          w.volume_per_person_day ?? { unit: us ? 'gal' : 'L' }, ['gal', 'L'], { placeholder: us ? '13.2' : '50' }),
+        quantityField(ctx, 'Temperature rise (optional)', '/demand/water_heating/temperature_rise',
+          w.temperature_rise ?? { unit: us ? 'degF' : 'K' }, ['degF', 'K'], { placeholder: us ? '67' : '37' })));
+    }
+    nodes.push(h('fieldset', { class: 'group inner', id: 'house-water-heater' }, h('legend', { text: 'Water heater in the house now' }),
+      waterHeaterFields(ctx, '/demand/water_heating/heater', w.heater ?? {})));
+    nodes.push(h('p', { class: 'hint', text: 'Gas, propane and oil water heaters need a working vent and combustion air like any burner; have a licensed professional install or change one, to local code.' }));
+  }
+  return h('fieldset', { class: 'group', id: 'water-heating' }, nodes);
+}
+
 function climateFields(ctx, ws) {
   const c = ws.climate;
   const nodes = [];
@@ -200,6 +229,6 @@ export function renderHouse(container, ctx) {
   const climate = h('fieldset', { class: 'group', id: 'climate-group' }, h('legend', { text: 'Climate' }), climateFields(ctx, ws));
   // the weather file and the climate library: nodes owned by web/climates.js, placed here as they are
   const tools = ctx.climateTools ? [ctx.climateTools.weatherNode, ctx.climateTools.libraryNode] : [];
-  container.replaceChildren(quoteFields(ctx, ws), demand, climate, ...tools);
+  container.replaceChildren(quoteFields(ctx, ws), demand, waterHeatingFields(ctx, ws), climate, ...tools);
 }
 

@@ -8,6 +8,7 @@ import { formatInput } from '../format.js';
 import { HEAT_PUMP_KINDS, RATINGS, SYSTEM_KINDS, fuelId } from '../scenario.js';
 import { unitLabel } from '../units.js';
 import { fuelName } from './fuels.js';
+import { waterHeaterFields } from './water-heater.js';
 
 const TEMPS = ['degF', 'degC'];
 const CAPACITY = ['Btu/h', 'kW', 'W'];
@@ -163,6 +164,7 @@ function systemCard(ctx, ws, sys, index) {
   ];
   if (HEAT_PUMP_KINDS.includes(kind)) nodes.push(heatPumpFields(ctx, ws, base, sys.system ?? {}, index));
   if (FUEL_BURNING_KINDS.includes(kind)) nodes.push(fuelBurningFields(ctx, ws, base, sys.system ?? {}, entry));
+  if (ws.demand.water_heating?.enabled) nodes.push(waterHeaterChoice(ctx, base, sys));
   if (ws.economics?.enabled) nodes.push(economicFields(ctx, ws, base, sys));
   nodes.push(h('div', { class: 'card-actions' },
     sys.existing ? null : h('button', { type: 'button', class: 'quiet', dataset: { action: 'equipment-keep', index: String(index) },
@@ -170,6 +172,15 @@ function systemCard(ctx, ws, sys, index) {
     h('button', { type: 'button', class: 'quiet', dataset: { action: 'duplicate-system', index: String(index) }, text: 'Duplicate' }),
     h('button', { type: 'button', class: 'quiet danger', dataset: { action: 'remove-system', index: String(index) }, text: 'Remove' })));
   return h('article', { class: 'card system-card', dataset: { field: base, systemId: sys.id } }, nodes);
+}
+
+/** What makes this option's hot water: the house's water heater (House tab) or one that comes with the option. */
+function waterHeaterChoice(ctx, base, sys) {
+  const own = sys.water_heater?.mode === 'own';
+  return h('fieldset', { class: 'group inner water-heater-choice' }, h('legend', { text: 'Hot water with this option' }),
+    selectField(ctx, { label: 'Hot water made by', path: `${base}/water_heater/mode`, value: own ? 'own' : 'house', structural: true,
+      choices: [['house', 'The water heater in the house now (House tab)'], ['own', 'A water heater that comes with this option']] }),
+    own ? waterHeaterFields(ctx, `${base}/water_heater`, sys.water_heater) : null);
 }
 
 /** The add menu's choice for a heat pump backed by the fuel-burning system in the house now (dual fuel in one step). */

@@ -12,6 +12,7 @@ import { billsSection } from './verdict-bills.js';
 import { uncertaintySection } from './verdict-draws.js';
 import { binsSection, fillBinsChart } from './verdict-heat-pump.js';
 import { climateSummary, economicsSection, equipmentSection, headline, table } from './verdict-summary.js';
+import { servicesSection } from './verdict-services.js';
 import { billsTrace, binsTrace, openHeatNeedTrace, showOptionTrace, sweepTrace, tornadoTrace, uncertaintyTrace } from './verdict-traces.js';
 import { whatIfCard } from './what-if.js';
 
@@ -95,6 +96,7 @@ export function renderVerdict(container, ctx, state, { kiosk = false } = {}) {
       parts.push(keep('what-if', [state.key, by, ctx.format, result], () => whatIfCard(state, result, ctx, by === 'life' ? 'life-cycle' : 'annual')));
     }
     parts.push(h('p', { class: 'hint', text: 'Tap any number to see how it was worked out and which data it used.' }));
+    parts.push(servicesSection(result, ctx, by));
     parts.push(equipmentSection(result, ws, ctx, by));
     parts.push(climateSummary(result, ws, ctx));
     parts.push(economicsSection(result, ws, ctx));

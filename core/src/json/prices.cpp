@@ -71,14 +71,24 @@ bool is_site_image(const std::string& logo) {
 
 void check_price(const json& item, const std::string& path, const std::string& currency, checker& c, json& summary) {
     require_object(item, path);
-    only_keys(item, {"fuel", "unit", "amount", "tiers", "fixed_charges", "delivery_minimum", "note"}, path, c);
+    only_keys(item, {"fuel", "unit", "amount", "tiers", "schedule", "fixed_charges", "delivery_minimum", "note"}, path, c);
     const auto fuel_id = required_string(item, "fuel", path);
     const auto& fuel = find_fuel(fuel_id, path + "/fuel");
     const auto unit = required_string(item, "unit", path);
     heating_value_per_sale_unit(fuel, unit, {}, path + "/unit");
     const bool tiered = item.contains("tiers");
+    const bool scheduled = item.contains("schedule");
+    if (scheduled) {
+        // Time of use, read as a scenario's electricity price reads it.
+        if (fuel.category != fuel_category::electricity)
+            throw input_error(path + "/schedule", "a time-of-use schedule prices electricity; " + fuel_id + " is priced by amount");
+        if (unit != "kWh") throw input_error(path + "/unit", "must be kWh with a schedule, got \"" + unit + "\"");
+        if (tiered) throw input_error(path + "/schedule", "give tiers (block rates) or a schedule (time of use), not both");
+        if (item.contains("amount")) throw input_error(path + "/amount", "give amount (one price) or schedule (time of use), not both");
+        read_price_schedule(item.at("schedule"), path + "/schedule", c.warnings);
+    }
     double amount = 0;
-    if (!tiered || item.contains("amount")) amount = positive_amount(item, "amount", path);
+    if (!scheduled && (!tiered || item.contains("amount"))) amount = positive_amount(item, "amount", path);
     if (tiered) {
         const auto& tiers = item.at("tiers");
         if (!tiers.is_array() || tiers.empty()) throw input_error(path + "/tiers", "must be a non-empty array of {from, to, amount}");
@@ -129,6 +139,7 @@ void check_price(const json& item, const std::string& path, const std::string& c
         c.warnings.push_back({path + "/amount", "electricity above 5 " + currency + "/kWh looks like a typing error"});
     json entry = item;
     entry["tiered"] = tiered;
+    entry["scheduled"] = scheduled;
     summary.push_back(entry);
 }
 
