@@ -6,7 +6,7 @@
 // carrying its fuel's price. It also keeps the fields of every demand method and
 // climate form, so switching the method picker loses nothing; only the chosen
 // method's fields are sent. Every entered quantity keeps its own unit.
-import { rowField, rowsOfSchedule, scheduleOfRows } from './schedule.js';
+import { rowPath, rowsOfSchedule, scheduleOfRows } from './schedule.js';
 import { FUEL_BURNING_KINDS, MODULATING, electricSystems } from './equipment.js';
 import { unreadableVersionMessage } from './versions.js';
 
@@ -510,7 +510,7 @@ export function workspacePath(path, ws) {
       const fi = ws.fuels.findIndex((f) => f.key === sys.fuel_key);
       if (fi < 0) return `/systems/${index}/fuel_key`;
       if (parts[3] === 'price' && parts[4] === 'schedule' && /^\d+$/.test(parts[5] ?? '') && parts[6]) {
-        return `/fuels/${fi}/price/schedule/${parts[5]}/${rowField(parts.slice(6))}`;
+        return `/fuels/${fi}/price/schedule/${rowPath(ws.fuels[fi].price?.schedule, Number(parts[5]), parts.slice(6))}`;
       }
       return [`/fuels/${fi}`, ...parts.slice(3)].join('/');
     }

@@ -49,12 +49,31 @@ export function monthsText(months) {
 
 const isNumber = (v) => typeof v === 'number' && Number.isFinite(v);
 
-/** The core's schedule of the rows: each row one entry with its one span of hours; months as typed when they are not months. */
+const sameEntry = (a, b) => a.name === b.name && a.amount === b.amount && (a.days ?? 'all') === (b.days ?? 'all')
+  && String(a.months_text ?? '') === String(b.months_text ?? '');
+
+/** The rows grouped into the core's entries: consecutive rows alike but for their hours are one entry ([[row indices]]). */
+export function entryGroups(rows) {
+  const groups = [];
+  (rows ?? []).forEach((row, k) => {
+    const last = groups.at(-1);
+    if (last && sameEntry(rows[last[0]], row)) last.push(k);
+    else groups.push([k]);
+  });
+  return groups;
+}
+
+/**
+ * The core's schedule of the rows: consecutive rows alike but for their hours are one entry with several spans (as an
+ * imported tariff came); months as typed when they are not months.
+ */
 export function scheduleOfRows(rows) {
-  return (rows ?? []).map((row) => {
+  const list = rows ?? [];
+  return entryGroups(list).map((group) => {
+    const row = list[group[0]];
     const out = { name: String(row.name ?? '').trim() };
     if (isNumber(row.amount)) out.amount = row.amount;
-    out.hours = [[isNumber(row.from) ? row.from : null, isNumber(row.to) ? row.to : null]];
+    out.hours = group.map((k) => [isNumber(list[k].from) ? list[k].from : null, isNumber(list[k].to) ? list[k].to : null]);
     if (row.days && row.days !== 'all') out.days = row.days;
     const months = parseMonths(row.months_text);
     if (months === null) out.months = [row.months_text];
@@ -76,10 +95,16 @@ export function rowsOfSchedule(schedule) {
   return rows;
 }
 
-/** The workspace field of a core path inside a schedule row: hours/0/0 is the row's "from", hours/0/1 its "to", months its text. */
-export function rowField(rest) {
-  const [key, , end] = rest;
-  if (key === 'hours') return end === '0' ? 'from' : end === '1' ? 'to' : 'from';
-  if (key === 'months') return 'months_text';
-  return key;
+/**
+ * The workspace field of a core path inside entry `entry` of the schedule (`rest` the path after the entry's index):
+ * hours/j/0 is row j of the entry's "from", hours/j/1 its "to", months its text, anything else the entry's first row.
+ */
+export function rowPath(rows, entry, rest) {
+  const group = entryGroups(rows)[entry] ?? [entry];
+  const [key, span, end] = rest;
+  if (key === 'hours') {
+    const row = group[/^\d+$/.test(span ?? '') ? Math.min(Number(span), group.length - 1) : 0];
+    return `${row}/${end === '1' ? 'to' : 'from'}`;
+  }
+  return `${group[0]}/${key === 'months' ? 'months_text' : key}`;
 }

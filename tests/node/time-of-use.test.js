@@ -1,0 +1,107 @@
+// Hot water and time-of-use electricity on the page, in Node: the months a tariff row is typed with, the rows and
+// the core's schedule both ways, the workspace's hot water and water heaters as the scenario sends them, and the
+// core's message for a row landing on the field it came from.
+import assert from 'node:assert/strict';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { before, describe, test } from 'node:test';
+
+import { loadCore, siteDir } from './helpers.js';
+
+const web = (name) => import(pathToFileURL(join(siteDir, name)).href);
+
+let schedule;
+let scenario;
+let editing;
+let core;
+before(async () => {
+  core = await loadCore();
+  schedule = await web('schedule.js');
+  scenario = await web('scenario.js');
+  editing = await web('editing.js');
+});
+
+describe('web/schedule.js', () => {
+  test('months as typed', () => {
+    assert.deepEqual(schedule.parseMonths(''), []);
+    assert.deepEqual(schedule.parseMonths('all'), []);
+    assert.deepEqual(schedule.parseMonths('6-9'), [6, 7, 8, 9]);
+    assert.deepEqual(schedule.parseMonths('11-3'), [1, 2, 3, 11, 12], 'a span over the new year');
+    assert.deepEqual(schedule.parseMonths('1, 2; 12'), [1, 2, 12]);
+    assert.deepEqual(schedule.parseMonths('6–9'), [6, 7, 8, 9], 'an en dash as a tariff sheet prints it');
+    assert.equal(schedule.parseMonths('June'), null);
+    assert.equal(schedule.parseMonths('0-4'), null);
+    assert.equal(schedule.monthsText([6, 7, 8, 9]), '6-9');
+    assert.equal(schedule.monthsText([1, 2, 3, 11, 12]), '1-3, 11, 12');
+    assert.equal(schedule.monthsText([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12]), '');
+    for (const text of ['6-9', '1-3, 11, 12', '5', '1, 2']) assert.equal(schedule.monthsText(schedule.parseMonths(text)), text);
+  });
+
+  test('rows and the schedule both ways: a period with two spans is two rows and one entry again', () => {
+    const tariff = [
+      { name: 'off-peak', amount: 0.11, hours: [[23, 24], [0, 7]] },
+      { name: 'peak', amount: 0.32, hours: [16, 21], days: 'weekdays', months: [6, 7, 8, 9] },
+    ];
+    const rows = schedule.rowsOfSchedule(tariff);
+    assert.equal(rows.length, 3);
+    assert.deepEqual(rows[2], { name: 'peak', amount: 0.32, from: 16, to: 21, days: 'weekdays', months_text: '6-9' });
+    assert.deepEqual(schedule.scheduleOfRows(rows), [
+      { name: 'off-peak', amount: 0.11, hours: [[23, 24], [0, 7]] },
+      { name: 'peak', amount: 0.32, hours: [[16, 21]], days: 'weekdays', months: [6, 7, 8, 9] },
+    ]);
+    // the core's path of entry 0's second span lands on row 1; entry 1's months on row 2's text
+    assert.equal(schedule.rowPath(rows, 0, ['hours', '1', '1']), '1/to');
+    assert.equal(schedule.rowPath(rows, 1, ['months', '0']), '2/months_text');
+    assert.equal(schedule.rowPath(rows, 1, ['amount']), '2/amount');
+  });
+
+  test('months that are not months go to the core as typed, and its message comes back to the row', () => {
+    const ws = scenario.blankWorkspace({ units: 'us' });
+    const entry = { key: 'e', fuel: 'electricity', price: { per: 'kWh', amount: 0.2 }, fixed_charges: [] };
+    ws.fuels.push(entry);
+    ws.systems.push({ id: 'baseboard', fuel_key: 'e', system: { kind: 'electric-resistance', efficiency: { value: 1, rating: 'COP' } } });
+    ws.demand.annual_useful_heat = { value: 40, unit: 'MMBtu' };
+    editing.addPeriod(entry);
+    assert.deepEqual(entry.price.schedule[0], { name: 'all hours', amount: 0.2, from: 0, to: 24, days: 'all', months_text: '' },
+      'the first period covers every hour at today\'s price');
+    entry.price.time_of_use = true;
+    entry.price.schedule[0].months_text = 'summer';
+    const answer = JSON.parse(core.evaluate(JSON.stringify(scenario.toScenario(ws))));
+    assert.equal(answer.errors[0].path, '/options/0/price/schedule/0/months/0');
+    assert.equal(answer.errors[0].message, 'must be a month number from 1 (January) to 12');
+    assert.equal(scenario.workspacePath(answer.errors[0].path, ws), '/fuels/0/price/schedule/0/months_text');
+    entry.price.schedule[0].months_text = '';
+    const clean = JSON.parse(core.evaluate(JSON.stringify(scenario.toScenario(ws))));
+    assert.deepEqual(clean.errors, []);
+    assert.equal(clean.options[0].electricity_periods[0].name, 'all hours');
+    assert.ok(Math.abs(clean.options[0].electricity_periods[0].kwh - clean.options[0].electricity_kwh) < 1e-9 * clean.options[0].electricity_kwh);
+  });
+});
+
+describe('hot water in the workspace', () => {
+  test('the House tab\'s hot water and an option\'s own water heater as the scenario sends them', () => {
+    const ws = scenario.blankWorkspace({ units: 'us' });
+    ws.fuels.push({ key: 'g', fuel: 'natural-gas', price: { per: 'therm', amount: 1.5 }, fixed_charges: [] });
+    ws.fuels.push({ key: 'e', fuel: 'electricity', price: { per: 'kWh', amount: 0.16 }, fixed_charges: [] });
+    ws.systems.push({ id: 'furnace', fuel_key: 'g', system: { kind: 'furnace', efficiency: { value: 95, rating: 'AFUE' } } });
+    ws.systems.push({ id: 'hp', fuel_key: 'e', system: { kind: 'ground-source-heat-pump', efficiency: { value: 4, rating: 'COP' } },
+      water_heater: { mode: 'own', kind: 'heat-pump-water-heater', fuel: 'electricity', uef: 3.3, location: 'unconditioned' } });
+    ws.demand.annual_useful_heat = { value: 60, unit: 'MMBtu' };
+    ws.demand.hot_water = { value: 10, unit: 'MMBtu' };  // the older field, replaced while the section is on
+    ws.demand.water_heating = { enabled: true, mode: 'people', people: 3, heater: { kind: 'storage', fuel: 'natural-gas', uef: 0.62 } };
+    const doc = scenario.toScenario(ws);
+    assert.equal(doc.demand.hot_water, undefined);
+    assert.deepEqual(doc.demand.water_heating, { people: 3, heater: { kind: 'storage', fuel: 'natural-gas', uef: 0.62 } });
+    assert.deepEqual(doc.options[1].water_heater, { kind: 'heat-pump-water-heater', fuel: 'electricity', uef: 3.3, location: 'unconditioned' });
+    assert.equal(doc.options[0].water_heater, undefined, 'the furnace keeps the house\'s');
+    const answer = JSON.parse(core.evaluate(JSON.stringify(doc)));
+    assert.deepEqual(answer.errors, []);
+    const hp = answer.options.find((o) => o.id === 'hp');
+    assert.equal(hp.water_heating.made_by, 'heat-pump-water-heater');
+    assert.ok(Math.abs(hp.space_heating.annual_cost + hp.water_heating.annual_cost - hp.annual_cost) < 1e-9);
+    // the workspace comes back from the scenario with the same hot water
+    const again = scenario.toScenario(scenario.fromScenario(doc));
+    assert.deepEqual(again.demand.water_heating, doc.demand.water_heating);
+    assert.deepEqual(again.options[1].water_heater, doc.options[1].water_heater);
+  });
+});
