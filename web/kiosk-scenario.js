@@ -130,6 +130,7 @@ export function kioskOffer(check, file, catalog) {
 }
 
 function priceOf(p) {
+  if (Array.isArray(p.schedule) && p.schedule.length) return { per: 'kWh', schedule: JSON.parse(JSON.stringify(p.schedule)) };
   if (Array.isArray(p.tiers) && p.tiers.length) {
     return { per: p.unit, tiers: p.tiers.map((t) => ({ from: t.from, ...(typeof t.to === 'number' ? { to: t.to } : {}), amount: t.amount })) };
   }

@@ -47,11 +47,15 @@ function uniqueTemplateName(name, entries) {
 const fuelKeyOf = (fuel) => (typeof fuel === 'string' ? fuel : isObject(fuel) && typeof fuel.id === 'string' ? fuel.id : '');
 
 /** The quote's fuels with their prices as a price list named `name` (fuels without a typed price are left out and listed). */
+/** Whether a fuel entry has a price: one amount, or electricity's time-of-use periods. */
+const isPriced = (price) => (typeof price?.amount === 'number' && Number.isFinite(price.amount))
+  || (price?.time_of_use === true && Array.isArray(price.schedule) && price.schedule.length > 0);
+
 export function priceListFrom(ws, name, id) {
   const fuels = [];
   const unpriced = [];
   for (const entry of ws.fuels) {
-    if (typeof entry.price?.amount !== 'number') {
+    if (!isPriced(entry.price)) {
       unpriced.push(entry);
       continue;
     }
@@ -151,7 +155,7 @@ function priceListProblem(p) {
   if (typeof p.name !== 'string' || !p.name.trim()) return 'has no name';
   if (typeof p.currency !== 'string' || !/^[A-Z]{3}$/.test(p.currency)) return 'has no currency (three capital letters, e.g. USD)';
   if (!Array.isArray(p.fuels) || !p.fuels.length) return 'has no fuels';
-  const bad = p.fuels.findIndex((f) => !isObject(f) || !fuelKeyOf(f.fuel) || !isObject(f.price) || typeof f.price.amount !== 'number' || !Number.isFinite(f.price.amount));
+  const bad = p.fuels.findIndex((f) => !isObject(f) || !fuelKeyOf(f.fuel) || !isObject(f.price) || !isPriced(f.price));
   return bad >= 0 ? `fuel ${bad + 1} has no fuel or no price` : null;
 }
 

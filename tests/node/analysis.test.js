@@ -175,4 +175,23 @@ describe('web/kiosk-scenario.js', () => {
     assert.deepEqual(withPower.scenario.options.find((o) => o.fuel === 'electricity').price, { amount: 0.16, per: 'kWh' });
     assert.deepEqual(JSON.parse(core.evaluate(JSON.stringify(withPower.scenario))).errors, []);
   });
+
+  test('a utility\'s time-of-use tariff reaches the scenario as its schedule, and every kWh lands in a period', async () => {
+    const fileText = await readFile(join(root, 'data/examples/supplier-prices-time-of-use.json'), 'utf8');
+    const file = JSON.parse(fileText);
+    const check = JSON.parse(core.checkPrices(fileText, file.effective));
+    assert.deepEqual(check.errors, []);
+    assert.equal(check.prices[0].scheduled, true);
+    const offer = kiosk.kioskOffer(check, file, catalog);
+    assert.equal(offer.fuels.find((f) => f.fuel === 'electricity').locked, true);
+    const { scenario } = kiosk.kioskScenario(offer, { size: 'medium', prices: {} }, { units: 'us', currency: 'USD' });
+    const hp = scenario.options.find((o) => o.fuel === 'electricity');
+    assert.deepEqual(hp.price, { per: 'kWh', schedule: file.prices[0].schedule });
+    const result = JSON.parse(core.evaluate(JSON.stringify(scenario)));
+    assert.deepEqual(result.errors, []);
+    const option = result.options.find((o) => o.id === hp.id);
+    const kwh = option.electricity_periods.reduce((sum, p) => sum + p.kwh, 0);
+    assert.deepEqual(option.electricity_periods.map((p) => p.name), ['peak', 'off-peak', 'mid-peak']);
+    assert.ok(Math.abs(kwh - option.electricity_kwh) <= 1e-9 * kwh);
+  });
 });

@@ -85,6 +85,17 @@ function tiersText(p, format) {
     : `${format.price(t.amount)} above ${format.number(t.from)} ${unit}`)).join('; ');
 }
 
+/** A time-of-use tariff in words: each period's price and its hours, days and months. */
+function scheduleText(p, format) {
+  return p.schedule.map((r) => {
+    const spans = Array.isArray(r.hours?.[0]) ? r.hours : [r.hours];
+    const when = spans.map(([a, b]) => `${a}-${b} h`).join(' and ');
+    const days = r.days && r.days !== 'all' ? ` ${r.days}` : '';
+    const months = Array.isArray(r.months) ? ` in months ${r.months.join(', ')}` : '';
+    return `${r.name} ${format.price(r.amount)} per kWh ${when}${days}${months}`;
+  }).join('; ');
+}
+
 function priceRows(k, format, visitor) {
   const rows = [];
   k.offer.fuels.forEach((entry, i) => {
@@ -104,6 +115,7 @@ function priceRows(k, format, visitor) {
       const compared = p === entry.price;
       const notes = [];
       if (p.tiers?.length) notes.push(tiersText(p, format));
+      if (p.schedule?.length) notes.push(`by time of use: ${scheduleText(p, format)}`);
       for (const c of p.fixed_charges ?? []) {
         notes.push(isNum(c.amount_per_month) ? `${c.label ?? 'fixed charge'} ${format.price(c.amount_per_month)} a month`
           : `${c.label ?? 'fixed charge'} ${format.price(c.amount_per_year)} a year`);
@@ -111,7 +123,8 @@ function priceRows(k, format, visitor) {
       if (p.delivery_minimum) notes.push(`smallest delivery ${format.number(p.delivery_minimum.value)} ${kioskUnit(p.delivery_minimum.unit)}`);
       if (p.note) notes.push(p.note);
       if (!compared) notes.push('not used in the comparison');
-      const value = p.tiers?.length ? p.tiers.map((t) => format.price(t.amount)).join(' / ') : format.price(p.amount);
+      const value = p.tiers?.length ? p.tiers.map((t) => format.price(t.amount)).join(' / ')
+        : p.schedule?.length ? [...new Set(p.schedule.map((r) => format.price(r.amount)))].join(' / ') : format.price(p.amount);
       rows.push(h('tr', { dataset: { fuel: entry.fuel, unit: p.unit } },
         h('th', { scope: 'row' }, h('label', { for: id }, fuelHeading(entry, `, per ${kioskUnit(p.unit)}`))),
         h('td', {}, h('input', { id, type: 'text', readonly: true, 'aria-readonly': 'true', class: 'locked', value,
