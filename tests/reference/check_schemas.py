@@ -104,7 +104,7 @@ scenario = validators["scenario"]
 
 # ---------------------------------------------------------------------------
 # Examples
-PRICE_FILES = {"supplier-prices.json"}  # supplier price files, checked against their own schema below
+PRICE_FILES = {"supplier-prices.json", "supplier-prices-time-of-use.json"}  # supplier price files, checked against their own schema below
 examples = sorted(p for p in (DATA / "examples").glob("*.json") if p.name not in PRICE_FILES)
 check(len(examples) >= 5, f"examples  at least five scenarios in data/examples/ (found {len(examples)})")
 for path in examples:
