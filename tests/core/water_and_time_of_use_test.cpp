@@ -291,6 +291,31 @@ TEST(time_of_use, the_periods_add_up_to_the_electricity_with_hot_water_and_a_mod
     expect_services_sum(o);
 }
 
+TEST(time_of_use, a_what_if_on_a_time_of_use_price_moves_every_period_and_a_kept_water_heater_follows_its_fuel) {
+    json s = scenario(json::array({gas_furnace(95), heat_pump("hp", "electric-resistance", three_period_price())}),
+                      {{"balance_point", {{"value", 60}, {"unit", "degF"}}},
+                       {"water_heating", {{"annual_heat", {{"value", 12}, {"unit", "MMBtu"}}},
+                                          {"heater", {{"kind", "storage"}, {"fuel", "natural-gas"}, {"uef", 0.60}}}}}});
+    s["climate"] = climate();
+    const auto out = evaluate(s);
+    const auto& hp = option(out, "hp");
+    const double mean = hp.at("price").at("amount").get<double>();  // today's mean price over every kWh
+    const auto cost_at = [&](const std::string& of, double value) {
+        const json answer = json::parse(fw::what_if_json(json{{"scenario", s}, {"vary", "price"}, {"of", of}, {"value", value}}.dump()));
+        EXPECT_TRUE(answer.at("errors").empty()) << answer.at("errors").dump();
+        for (const auto& o : answer.at("options"))
+            if (o.at("id") == "hp") return o.at("cost").get<double>();
+        return std::nan("");
+    };
+    // Every period's price scaled together (to nothing here) takes the electricity's cost with it; the gas water
+    // heater's stays, and a gas price twice today's adds its 200 therm again.
+    double electricity_cost = 0;
+    for (const auto& period : hp.at("electricity_periods")) electricity_cost += period.at("cost").get<double>();
+    EXPECT_NEAR(cost_at("electricity", 0) , hp.at("annual_cost").get<double>() - electricity_cost, 1e-6);
+    EXPECT_NEAR(cost_at("natural-gas", 3.0), hp.at("annual_cost").get<double>() + 200 * 1.5, 1e-6);  // 200 therm at 1.50 more
+    EXPECT_GT(mean, 0);
+}
+
 TEST(time_of_use, a_schedule_as_typed_gets_a_message_at_its_field) {
     const auto error_for = [](const json& schedule) {
         json s = scenario(json::array({heat_pump("hp", "electric-resistance", {{"per", "kWh"}, {"schedule", schedule}})}));

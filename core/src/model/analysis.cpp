@@ -130,6 +130,8 @@ scenario with_value(const scenario& input, const analysis_variable& v, double x)
             auto& option = out.options[i];
             option.price_per_unit = v.current != 0 ? option.price_per_unit * factor : x;
             for (auto& tier : option.tiers) tier.amount = v.current != 0 ? tier.amount * factor : x;
+            if (option.schedule)  // every period by the same factor (the flat mean is the price varied)
+                for (auto& period : *option.schedule) period.amount_per_kwh = v.current != 0 ? period.amount_per_kwh * factor : x;
         }
     } else if (v.kind == variable_kind::efficiency) {
         out.options[v.options.front()].system.efficiency_value = x;
@@ -143,7 +145,7 @@ scenario with_value(const scenario& input, const analysis_variable& v, double x)
 }
 
 /// Whether option k's cost can change with the variable: its own price or efficiency, that of its dual-fuel
-/// backup, or the demand. An option that cannot keeps today's cost at every value.
+/// backup or of its water heater's fuel, or the demand. An option that cannot keeps today's cost at every value.
 bool depends_on(const scenario& input, const analysis_variable& v, std::size_t k) {
     if (v.kind == variable_kind::demand) return true;
     const auto varied = [&](std::size_t i) { return std::find(v.options.begin(), v.options.end(), i) != v.options.end(); };
@@ -153,6 +155,10 @@ bool depends_on(const scenario& input, const analysis_variable& v, std::size_t k
         // A fuel-burning system's own electricity may be priced at an electricity option's price.
         if (varied(i) && v.kind == variable_kind::price && input.options[i].fuel.category == fuel_category::electricity &&
             input.options[k].auxiliary && !input.settings.electricity_price_per_kwh)
+            return true;
+        // A water heater of its own fuel is bought at the price of an option burning it.
+        const auto* heater = input.hot_water_kwh > 0 ? water_heater_of(input, input.options[k]) : nullptr;
+        if (varied(i) && v.kind == variable_kind::price && heater && heater->fuel && heater->fuel->id == input.options[i].fuel.id)
             return true;
     }
     return false;
