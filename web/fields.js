@@ -205,7 +205,12 @@ export function showFieldErrors(roots, errors, ws, localErrors, { warnings = [],
   for (const error of errors) {
     const at = error.path ? find(workspacePath(error.path, ws)) : null;
     // a field that cannot be read shows only that: the core's answer is for the value before it
-    if (at) { if (!byField.get(at.field)?.local) entry(at.field, at.root).lines.push(plainUnits(error.message)); } else unplaced.push(error);
+    // a fuel's problem comes once for each option burning it: said once at the fuel's field
+    if (at) {
+      const lines = byField.get(at.field)?.local ? null : entry(at.field, at.root).lines;
+      const text = plainUnits(error.message);
+      if (lines && !lines.includes(text)) lines.push(text);
+    } else unplaced.push(error);
   }
   for (const warning of warnings) {
     // a note about a field (not the option as a whole, which the verdict's notes name)

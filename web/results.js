@@ -158,6 +158,9 @@ export function resultsCsv(result, ws, by = 'annual') {
   const econ = hasLifeCycle(result, ws);
   const header = ['rank', 'id', 'option', 'fuel', `annual cost (${currency})`, `energy cost (${currency})`, `fixed cost (${currency})`,
     `cost per useful ${energyUnit} (${currency})`, 'fuel used', 'fuel unit', `CO2e (${massUnit}/year)`];
+  // the two services, when the verdict has hot water of its own
+  const water = list.some((o) => (o.water_heating?.useful_heat_kwh ?? 0) > 0);
+  if (water) header.push(`space heating (${currency}/year)`, `hot water (${currency}/year)`, 'hot water made by');
   if (econ) {
     header.push(`net installed cost (${currency})`, `annual saving (${currency})`, 'simple payback (years)', 'discounted payback (years)',
       `NPV (${currency})`, `life-cycle cost (${currency})`, `levelized cost per useful ${energyUnit} (${currency})`, 'CO2e avoided over the period (t)',
@@ -173,6 +176,7 @@ export function resultsCsv(result, ws, by = 'annual') {
     const v = displayValues(o, ws);
     const row = [[i + 1], [o.id], [o.label ?? o.id], [o.fuel_name ?? o.fuel], [v.annual_cost, 'money'], [v.energy_cost, 'money'],
       [v.fixed_cost, 'money'], [v.cost_per_useful, 'price'], [v.fuel_quantity, 'quantity'], [o.fuel_quantity?.unit], [v.co2e, 'quantity']];
+    if (water) row.push([o.space_heating?.annual_cost, 'money'], [o.water_heating?.annual_cost, 'money'], [madeByWords(o.water_heating?.made_by)]);
     if (econ) {
       row.push([o.net_installed_cost, 'money'], [o.annual_saving, 'money'], [o.simple_payback_years, 'years'], [o.discounted_payback_years, 'years'],
         [o.npv, 'money'], [o.life_cycle_cost, 'money'], [v.lcoh, 'price'], [v.co2e_saved_t, 'quantity'], [o.cost_per_tonne_co2e_avoided, 'money']);

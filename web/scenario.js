@@ -509,7 +509,7 @@ export function workspacePath(path, ws) {
     if (FUEL_FIELDS.includes(field)) {
       const fi = ws.fuels.findIndex((f) => f.key === sys.fuel_key);
       if (fi < 0) return `/systems/${index}/fuel_key`;
-      if (parts[3] === 'price' && parts[4] === 'schedule' && /^\d+$/.test(parts[5] ?? '') && parts[6]) {
+      if (parts[3] === 'price' && parts[4] === 'schedule' && /^\d+$/.test(parts[5] ?? '')) {
         return `/fuels/${fi}/price/schedule/${rowPath(ws.fuels[fi].price?.schedule, Number(parts[5]), parts.slice(6))}`;
       }
       return [`/fuels/${fi}`, ...parts.slice(3)].join('/');

@@ -97,11 +97,13 @@ export function rowsOfSchedule(schedule) {
 
 /**
  * The workspace field of a core path inside entry `entry` of the schedule (`rest` the path after the entry's index):
- * hours/j/0 is row j of the entry's "from", hours/j/1 its "to", months its text, anything else the entry's first row.
+ * hours/j/0 is row j of the entry's "from", hours/j/1 its "to", months its text, anything else (or the entry itself)
+ * the entry's first row.
  */
 export function rowPath(rows, entry, rest) {
   const group = entryGroups(rows)[entry] ?? [entry];
   const [key, span, end] = rest;
+  if (key === undefined) return String(group[0]);
   if (key === 'hours') {
     const row = group[/^\d+$/.test(span ?? '') ? Math.min(Number(span), group.length - 1) : 0];
     return `${row}/${end === '1' ? 'to' : 'from'}`;

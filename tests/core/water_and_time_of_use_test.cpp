@@ -170,7 +170,7 @@ TEST(water_heating, the_older_hot_water_on_a_dual_fuel_heat_pump_is_charged_at_t
     EXPECT_GT(o.at("water_heating").at("efficiency").get<double>(), 2.0);
     bool named = false;
     for (const auto& w : out.at("warnings"))
-        named = named || (w.at("path") == "/options/1" && w.at("message").get<std::string>().find("option dual heats with a "
+        named = named || (w.at("path") == "/options/1" && w.at("message").get<std::string>().find("option dual heats with an "
                                                                                                   "air-source-heat-pump, which cannot make hot water") == 0);
     EXPECT_TRUE(named) << out.at("warnings").dump();
 }

@@ -53,6 +53,7 @@ describe('web/schedule.js', () => {
     assert.equal(schedule.rowPath(rows, 0, ['hours', '1', '1']), '1/to');
     assert.equal(schedule.rowPath(rows, 1, ['months', '0']), '2/months_text');
     assert.equal(schedule.rowPath(rows, 1, ['amount']), '2/amount');
+    assert.equal(schedule.rowPath(rows, 1, []), '2', 'an overlap is said at the entry: its first row');
   });
 
   test('months that are not months go to the core as typed, and its message comes back to the row', () => {

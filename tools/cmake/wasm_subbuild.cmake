@@ -67,7 +67,9 @@ fw_node_browser_test(browser_chromium_sheet sheet.test.js)
 fw_node_browser_test(browser_chromium_quote quote-walk.test.js)
 # Saved quotes of earlier and later record versions, and a full storage, in Chromium.
 fw_node_browser_test(browser_storage storage.test.js)
-set_tests_properties(browser_chromium browser_chromium_climates browser_chromium_equipment browser_chromium_attention browser_chromium_sheet browser_chromium_quote browser_webkit browser_firefox browser_storage PROPERTIES
+# Hot water and time-of-use electricity entered by taps, against the CLI, on paper (issue 16), in Chromium.
+fw_node_browser_test(browser_chromium_water water-and-time-of-use.test.js)
+set_tests_properties(browser_chromium browser_chromium_climates browser_chromium_equipment browser_chromium_attention browser_chromium_sheet browser_chromium_quote browser_chromium_water browser_webkit browser_firefox browser_storage PROPERTIES
   ENVIRONMENT "${FW_BROWSER_ENV}"
   LABELS browser
   TIMEOUT 240

@@ -175,15 +175,16 @@ function timeOfUseFields(ctx, base, entry, currency) {
       h('div', { class: 'grid periods' },
         textField(ctx, { label: `Period ${k + 1}`, path: `${p}/name`, value: row.name, maxlength: 40, placeholder: 'peak' }),
         numberField(ctx, { label: `Price (${currency})`, path: `${p}/amount`, value: row.amount, unit: 'per kWh' }),
+        selectField(ctx, { label: 'Days', path: `${p}/days`, value: row.days ?? 'all', choices: DAY_CHOICES }),
         numberField(ctx, { label: 'From hour', path: `${p}/from`, value: row.from, placeholder: '16' }),
         numberField(ctx, { label: 'To hour', path: `${p}/to`, value: row.to, placeholder: '21' }),
-        selectField(ctx, { label: 'Days', path: `${p}/days`, value: row.days ?? 'all', choices: DAY_CHOICES }),
         textField(ctx, { label: 'Months', path: `${p}/months_text`, value: row.months_text ?? '', maxlength: 40, placeholder: 'all year' })),
       h('button', { type: 'button', class: 'quiet', dataset: { action: 'remove-period', fuel: base, index: String(k) }, text: `Remove period ${k + 1}` }),
       h('p', { class: 'field-msg', hidden: true }));
   });
-  nodes.push(h('div', { class: 'field rows', id: `${base.slice(1).replace('/', '-')}-schedule`, dataset: { field: `${base}/price/schedule` } }, rows,
-    h('p', { class: 'field-msg', hidden: true })));
+  // the schedule's own message (a gap or an overlap) first, above the rows
+  nodes.push(h('div', { class: 'field rows', id: `${base.slice(1).replace('/', '-')}-schedule`, dataset: { field: `${base}/price/schedule` } },
+    h('p', { class: 'field-msg', hidden: true }), rows));
   nodes.push(h('p', { class: 'hint', text: 'Hours from 0 to 24 on the tariff sheet\'s clock (22 to 6 runs past midnight); months as 6-9 or 11-3, empty for the whole year. Every hour of the week must be in one period: give a period two rows under the same name for two spans of hours.' }));
   nodes.push(h('button', { type: 'button', class: 'secondary', dataset: { action: 'add-period', fuel: base }, text: 'Add a period' }));
   return h('div', { class: 'time-of-use' }, nodes);

@@ -177,10 +177,13 @@ function systemCard(ctx, ws, sys, index) {
 /** What makes this option's hot water: the house's water heater (House tab) or one that comes with the option. */
 function waterHeaterChoice(ctx, base, sys) {
   const own = sys.water_heater?.mode === 'own';
-  return h('fieldset', { class: 'group inner water-heater-choice' }, h('legend', { text: 'Hot water with this option' }),
+  // the core's message about the option's hot water as a whole (a boiler's tank with no boiler) shows here
+  return h('fieldset', { class: 'group inner water-heater-choice field', dataset: { field: `${base}/water_heater` } },
+    h('legend', { text: 'Hot water with this option' }),
     selectField(ctx, { label: 'Hot water made by', path: `${base}/water_heater/mode`, value: own ? 'own' : 'house', structural: true,
       choices: [['house', 'The water heater in the house now (House tab)'], ['own', 'A water heater that comes with this option']] }),
-    own ? waterHeaterFields(ctx, `${base}/water_heater`, sys.water_heater) : null);
+    own ? waterHeaterFields(ctx, `${base}/water_heater`, sys.water_heater) : null,
+    h('p', { class: 'field-msg', hidden: true }));
 }
 
 /** The add menu's choice for a heat pump backed by the fuel-burning system in the house now (dual fuel in one step). */
