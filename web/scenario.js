@@ -115,7 +115,7 @@ function put(target, key, value) {
   if (value !== undefined && value !== null && value !== '') target[key] = value;
 }
 
-function demandOf(d) {
+function demandOf(d, ws) {
   const out = { method: d.method };
   if (d.method === 'direct') {
     put(out, 'annual_useful_heat', quantity(d.annual_useful_heat) ?? clone(d.annual_useful_heat));
@@ -161,7 +161,7 @@ function demandOf(d) {
   if (d.water_heating?.enabled) {
     // hot water as its own service replaces the older yearly figure
     delete out.hot_water;
-    out.water_heating = waterHeatingOf(d.water_heating);
+    out.water_heating = waterHeatingOf(d.water_heating, ws);
   }
   for (const [key, value] of Object.entries(d.extra ?? {})) if (!(key in out)) out[key] = clone(value);
   return out;
@@ -170,8 +170,11 @@ function demandOf(d) {
 /** Water heaters the house's boiler heats (no fuel or rating of their own). */
 export const BOILER_WATER_HEATERS = ['indirect', 'combi'];
 
-/** A water heater as the core reads it ({kind, fuel, uef, location, standby_loss}) from its workspace form. */
-export function waterHeaterOf(heater) {
+/**
+ * A water heater as the core reads it ({kind, fuel, uef, location, standby_loss}) from its workspace form; with
+ * `ws`, a fuel no system burns is priced by its card on the Fuels tab (a propane tank kept for the water heater alone).
+ */
+export function waterHeaterOf(heater, ws) {
   const out = {};
   put(out, 'kind', heater?.kind || undefined);
   if (!BOILER_WATER_HEATERS.includes(heater?.kind)) {
@@ -182,11 +185,18 @@ export function waterHeaterOf(heater) {
   }
   put(out, 'location', heater?.location || undefined);
   if (heater?.kind === 'indirect') put(out, 'standby_loss', quantity(heater.standby_loss));
+  const entry = ws && out.fuel ? ws.fuels.find((f) => fuelId(f) === out.fuel) : null;
+  const burned = entry && ws.systems.some((sys) => fuelId(ws.fuels.find((f) => f.key === sys.fuel_key)) === out.fuel);
+  if (entry && !burned && isNumber(entry.price?.amount) && entry.price.per) {
+    out.price = { amount: entry.price.amount, per: entry.price.per };
+    const charges = (entry.fixed_charges ?? []).map(fixedChargeOf).filter((c) => 'amount_per_month' in c || 'amount_per_year' in c);
+    if (charges.length) out.fixed_charges = charges;
+  }
   return out;
 }
 
 /** `demand.water_heating` of the House tab's hot-water section: the heat (by people or a yearly amount) and the house's heater. */
-function waterHeatingOf(w) {
+function waterHeatingOf(w, ws) {
   const out = {};
   if (w.mode === 'annual') {
     out.annual_heat = quantity(w.annual_heat) ?? { value: null, unit: w.annual_heat?.unit ?? 'kWh' };
@@ -195,7 +205,7 @@ function waterHeatingOf(w) {
     put(out, 'volume_per_person_day', quantity(w.volume_per_person_day));
     put(out, 'temperature_rise', quantity(w.temperature_rise));
   }
-  if (w.heater?.kind) out.heater = waterHeaterOf(w.heater);
+  if (w.heater?.kind) out.heater = waterHeaterOf(w.heater, ws);
   return out;
 }
 
@@ -433,7 +443,7 @@ export function toScenario(ws) {
   const kept = keptServicesOf(ws);
   if (kept.length) settings.kept_services = kept;
   doc.settings = settings;
-  doc.demand = demandOf(ws.demand);
+  doc.demand = demandOf(ws.demand, ws);
   const climate = climateToScenario(ws.climate);
   if (climate) doc.climate = climate;
 
@@ -444,7 +454,7 @@ export function toScenario(ws) {
     put(option, 'label', isText(sys.label) ? sys.label : undefined);
     if (entry) Object.assign(option, fuelPartOf(entry));
     option.system = systemOf(sys.system ?? {});
-    if (ws.demand.water_heating?.enabled && sys.water_heater?.mode === 'own') option.water_heater = waterHeaterOf(sys.water_heater);
+    if (ws.demand.water_heating?.enabled && sys.water_heater?.mode === 'own') option.water_heater = waterHeaterOf(sys.water_heater, ws);
     put(option, 'equipment', isText(sys.equipment) ? sys.equipment : undefined);
     // the system in the house now is the baseline of every saving, with or without the costs over the years
     if (sys.existing) option.existing = true;
@@ -670,6 +680,7 @@ export function fromScenario(doc) {
   if (d.water_heating && typeof d.water_heating === 'object') {
     wd.water_heating = { enabled: true, mode: d.water_heating.annual_heat !== undefined ? 'annual' : 'people', ...clone(d.water_heating) };
   }
+  const heaters = [wd.water_heating?.heater, ...doc.options.map((o) => o?.water_heater)].filter((x) => x && typeof x === 'object');
   const demandExtra = Object.fromEntries(Object.entries(d).filter(([key]) => !demandKnown.includes(key)));
   if (Object.keys(demandExtra).length) wd.extra = clone(demandExtra);
 
@@ -703,6 +714,12 @@ export function fromScenario(doc) {
   // priced fuels no option uses, kept with the quote (an export carries every fuel entered)
   for (const part of Array.isArray(doc.other_fuels) ? doc.other_fuels : []) {
     if (part && typeof part === 'object') ws.fuels.push(fuelEntryOf(ws, part));
+  }
+  // a water heater's own price is its fuel's card on the Fuels tab (sent with the heater while no system burns that fuel)
+  for (const heater of heaters) {
+    if (heater.price && typeof heater.fuel === 'string' && !ws.fuels.some((f) => fuelId(f) === heater.fuel)) {
+      ws.fuels.push(fuelEntryOf(ws, { fuel: heater.fuel, price: clone(heater.price), fixed_charges: clone(heater.fixed_charges) ?? [] }));
+    }
   }
   keptServicesFromScenario(ws, settings.kept_services);
 

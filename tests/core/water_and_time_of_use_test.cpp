@@ -192,6 +192,29 @@ TEST(water_heating, an_indirect_tank_needs_a_boiler_and_its_standby_loss_is_the_
               "furnace a water_heater of its own (a storage, tankless or heat-pump water heater)");
 }
 
+TEST(water_heating, a_fuel_kept_for_the_water_heater_alone_at_its_own_price) {
+    // An oil boiler against a ground-source heat pump, the house's propane water heater priced on its own:
+    // 12 MMBtu / 0.60 = 20 MMBtu of propane = 20e6 / 91,452 Btu/gal (EIA, the catalog) = 218.69 gal x 2.90 USD + 85 USD tank rental.
+    const json oil = {{"id", "oil"}, {"fuel", "heating-oil-2"}, {"price", {{"amount", 3.5}, {"per", "gal"}}},
+                      {"system", {{"kind", "boiler"}, {"efficiency", {{"value", 85}, {"rating", "AFUE"}}}}}};
+    const json water = {{"annual_heat", {{"value", 12}, {"unit", "MMBtu"}}},
+                        {"heater", {{"kind", "storage"}, {"fuel", "propane"}, {"uef", 0.60},
+                                    {"price", {{"amount", 2.90}, {"per", "gal"}}},
+                                    {"fixed_charges", {{{"label", "tank rental"}, {"amount_per_year", 85}}}}}}};
+    const auto out = evaluate(scenario(json::array({oil}), {{"water_heating", water}}));
+    const auto& w = option(out, "oil").at("water_heating");
+    EXPECT_NEAR(w.at("fuel_quantity").at("value").get<double>(), 20e6 / 91452, 1e-6);
+    EXPECT_NEAR(w.at("annual_cost").get<double>(), 20e6 / 91452 * 2.90 + 85, 1e-6);
+    // Without its price, the message says what to give.
+    json unpriced = water;
+    unpriced["heater"].erase("price");
+    unpriced["heater"].erase("fixed_charges");
+    const auto errors = errors_of(scenario(json::array({oil}), {{"water_heating", unpriced}}));
+    ASSERT_EQ(errors.size(), 1u);
+    EXPECT_EQ(errors[0].at("path"), "/demand/water_heating/heater/fuel");
+    EXPECT_EQ(errors[0].at("message"), "no price for propane: give the water heater its price ({amount, per}), or add an option that burns propane");
+}
+
 TEST(water_heating, ratings_as_typed_get_a_message_at_their_field) {
     const auto error_for = [](const json& heater) {
         const json water = {{"annual_heat", {{"value", 10}, {"unit", "MMBtu"}}}, {"heater", heater}};

@@ -100,6 +100,20 @@ describe('hot water in the workspace', () => {
     const hp = answer.options.find((o) => o.id === 'hp');
     assert.equal(hp.water_heating.made_by, 'heat-pump-water-heater');
     assert.ok(Math.abs(hp.space_heating.annual_cost + hp.water_heating.annual_cost - hp.annual_cost) < 1e-9);
+    // a propane water heater, propane burned by no system: priced by propane's card on the Fuels tab
+    ws.fuels.push({ key: 'p', fuel: 'propane', price: { per: 'gal', amount: 2.9 }, fixed_charges: [{ label: 'tank rental', amount_per_year: 85 }] });
+    ws.demand.water_heating.heater = { kind: 'storage', fuel: 'propane', uef: 0.6 };
+    const propane = scenario.toScenario(ws);
+    assert.deepEqual(propane.demand.water_heating.heater, { kind: 'storage', fuel: 'propane', uef: 0.6, price: { amount: 2.9, per: 'gal' },
+      fixed_charges: [{ label: 'tank rental', amount_per_year: 85 }] });
+    const priced = JSON.parse(core.evaluate(JSON.stringify(propane)));
+    assert.deepEqual(priced.errors, []);
+    assert.equal(priced.options[0].water_heating.fuel_quantity.unit, 'gal');
+    const back = scenario.fromScenario(propane);
+    assert.equal(back.fuels.filter((f) => f.fuel === 'propane').length, 1, 'the card is there once');
+    assert.deepEqual(scenario.toScenario(back).demand.water_heating, propane.demand.water_heating);
+    ws.demand.water_heating.heater = { kind: 'storage', fuel: 'natural-gas', uef: 0.62 };
+    ws.fuels.pop();
     // the workspace comes back from the scenario with the same hot water
     const again = scenario.toScenario(scenario.fromScenario(doc));
     assert.deepEqual(again.demand.water_heating, doc.demand.water_heating);

@@ -477,7 +477,28 @@ water_heater_spec read_water_heater(const json& item, const std::string& path, s
     } else if (heater.kind == water_heater_kind::indirect) {
         heater.standby_w = default_indirect_standby_w;
     }
-    warn_unknown_keys(item, {"kind", "fuel", "uef", "efficiency", "location", "standby_loss", "label"}, path, warnings);
+    if (item.contains("price")) {
+        if (!heater.fuel) throw input_error(path + "/price", "an " + kind_text + " water heater burns the boiler's fuel at its price");
+        const auto& price = item.at("price");
+        require_object(price, path + "/price");
+        water_heater_spec::own_price own;
+        own.amount = required_number(price, "amount", path + "/price");
+        if (own.amount < 0) throw input_error(path + "/price/amount", "must be >= 0, got " + format_number(own.amount));
+        require_at_most_max_amount(own.amount, path + "/price/amount");
+        own.unit = required_string(price, "per", path + "/price");
+        own.hhv_kwh_per_unit = heating_value_per_sale_unit(*heater.fuel, own.unit, {}, path + "/price/per").hhv_j / 3.6e6;
+        warn_unknown_keys(price, {"amount", "per"}, path + "/price", warnings);
+        if (item.contains("fixed_charges"))
+            for (const auto& charge : read_fixed_charges(item.at("fixed_charges"), path + "/fixed_charges")) {
+                own.fixed_per_year += charge.amount_per_year;
+                own.fixed_text += (own.fixed_text.empty() ? "" : "; ") + charge.label + ": " + charge.text;
+            }
+        heater.price = own;
+    } else if (item.contains("fixed_charges")) {
+        throw input_error(path + "/fixed_charges", "go with the water heater's own price (price {amount, per})");
+    }
+    warn_unknown_keys(item, {"kind", "fuel", "uef", "efficiency", "location", "standby_loss", "label", "price", "fixed_charges"}, path,
+                      warnings);
     return heater;
 }
 

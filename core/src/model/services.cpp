@@ -248,35 +248,49 @@ void add_water_heating(const scenario& input, const scenario_option& option, opt
                               format_fixed(cost, 2) + " " + currency);
         } else {
             const auto* source = fuel_source(input, option, fuel.id);
-            if (!source)
-                throw input_error(heater->path + "/fuel", "no price for " + fuel.id + ": add an option that burns " + fuel.id +
-                                                              " (its price and fixed charges are used for the water heater)");
-            const double per_unit = source->heating_value_override_j
-                                        ? *source->heating_value_override_j / 3.6e6
-                                        : heating_value_per_sale_unit(source->fuel, source->price_unit, source->sale, heater->path + "/fuel").hhv_j / 3.6e6;
-            quantity = energy_kwh / per_unit;
-            unit = source->price_unit;
-            if (source == &option || source->id == r.backup_option) {
-                // Same meter as the heating: block rates on the year's total, shared by quantity.
-                const double before = source == &option ? r.fuel_quantity : r.backup_fuel_quantity;
-                const double after = before + quantity;
-                const double whole = priced_cost(*source, after);
-                r.energy_cost += whole - priced_cost(*source, before);
-                cost = whole * quantity / after;
-                r.energy_cost -= cost;
-                if (source == &option) r.fuel_quantity += quantity;
+            const bool same_meter = source && (source == &option || source->id == r.backup_option);
+            if (heater->price && !same_meter) {
+                // Its own price: the fuel is bought for the water heater alone, with its own fixed charges.
+                const auto& own = *heater->price;
+                quantity = energy_kwh / own.hhv_kwh_per_unit;
+                unit = own.unit;
+                cost = quantity * own.amount;
+                fixed = pays_service(input, option, fuel.id) ? 0.0 : own.fixed_per_year;  // a kept service pays them already
+                r.trace.push_back(format_fixed(quantity, 1) + " " + unit + " x " + format_number(own.amount) + " " + currency + "/" + unit +
+                                  " (the water heater's own price) = " + format_fixed(cost, 2) + " " + currency);
+                if (fixed > 0)
+                    r.trace.push_back("the water heater's fixed charges (" + own.fixed_text + ") = " + format_fixed(fixed, 2) + " " + currency);
+            } else if (!source) {
+                throw input_error(heater->path + "/fuel", "no price for " + fuel.id + ": give the water heater its price ({amount, per}), "
+                                                          "or add an option that burns " + fuel.id);
             } else {
-                cost = priced_cost(*source, quantity);
-                if (!pays_service(input, option, fuel.id)) {
-                    for (const auto& charge : source->fixed_charges) {
-                        fixed += charge.amount_per_year;
-                        r.trace.push_back("the " + fuel.id + " service stays for the water heater, " + charge.label + ": " + charge.text +
-                                          " = " + format_fixed(charge.amount_per_year, 2) + " " + currency);
+                const double per_unit = source->heating_value_override_j
+                                            ? *source->heating_value_override_j / 3.6e6
+                                            : heating_value_per_sale_unit(source->fuel, source->price_unit, source->sale, heater->path + "/fuel").hhv_j / 3.6e6;
+                quantity = energy_kwh / per_unit;
+                unit = source->price_unit;
+                if (same_meter) {
+                    // Same meter as the heating: block rates on the year's total, shared by quantity.
+                    const double before = source == &option ? r.fuel_quantity : r.backup_fuel_quantity;
+                    const double after = before + quantity;
+                    const double whole = priced_cost(*source, after);
+                    r.energy_cost += whole - priced_cost(*source, before);
+                    cost = whole * quantity / after;
+                    r.energy_cost -= cost;
+                    if (source == &option) r.fuel_quantity += quantity;
+                } else {
+                    cost = priced_cost(*source, quantity);
+                    if (!pays_service(input, option, fuel.id)) {
+                        for (const auto& charge : source->fixed_charges) {
+                            fixed += charge.amount_per_year;
+                            r.trace.push_back("the " + fuel.id + " service stays for the water heater, " + charge.label + ": " + charge.text +
+                                              " = " + format_fixed(charge.amount_per_year, 2) + " " + currency);
+                        }
                     }
                 }
+                r.trace.push_back(format_fixed(quantity, 1) + " " + unit + " at the price of option " + source->id + " = " +
+                                  format_fixed(cost, 2) + " " + currency);
             }
-            r.trace.push_back(format_fixed(quantity, 1) + " " + unit + " at the price of option " + source->id + " = " +
-                              format_fixed(cost, 2) + " " + currency);
         }
         const auto emitted = emissions_of(fuel, energy_kwh, input.settings);
         r.trace.push_back("water heating emissions " + emitted.text);

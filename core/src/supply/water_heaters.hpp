@@ -34,6 +34,15 @@ struct water_heater_spec {
     bool location_given = false;
     double standby_w = 0;              ///< [W] an indirect tank's standby loss, made up by the boiler
     bool standby_given = false;
+    /// Its fuel's own price when no option burns that fuel (a propane tank kept for the water heater alone).
+    struct own_price {
+        double amount = 0;         ///< [currency per unit]
+        std::string unit;          ///< a sale unit of the fuel
+        double hhv_kwh_per_unit = 0;
+        double fixed_per_year = 0;  ///< [currency/year] its fixed charges
+        std::string fixed_text;     ///< the charges as entered, for the trace
+    };
+    std::optional<own_price> price;
     std::string path;                  ///< JSON pointer of the heater
 };
 
