@@ -215,6 +215,46 @@ TEST(water_heating, a_fuel_kept_for_the_water_heater_alone_at_its_own_price) {
     EXPECT_EQ(errors[0].at("message"), "no price for propane: give the water heater its price ({amount, per}), or add an option that burns propane");
 }
 
+TEST(water_heating, block_rates_shared_with_the_water_heater_keep_the_life_cycle_on_the_annual_cost) {
+    // One year at 0 % discount: the life-cycle cost is the year's cost (NIST Handbook 135 conventions, end-of-year flows).
+    const json baseboard = {{"id", "baseboard"}, {"fuel", "electricity"},
+                            {"price", {{"per", "kWh"}, {"tiers", {{{"from", 0}, {"to", 5000}, {"amount", 0.10}}, {{"from", 5000}, {"amount", 0.30}}}}}},
+                            {"system", {{"kind", "electric-resistance"}, {"efficiency", {{"value", 1}, {"rating", "COP"}}}}}};
+    const json water = {{"annual_heat", {{"value", 10}, {"unit", "MMBtu"}}},
+                        {"heater", {{"kind", "storage"}, {"fuel", "electricity"}, {"uef", 0.92}}}};
+    json s = scenario(json::array({baseboard}), {{"water_heating", water}});
+    s["settings"].erase("electricity");
+    s["economics"] = {{"analysis_years", 1}, {"discount_rate", 0}};
+    const auto out = evaluate(s);
+    const auto& o = option(out, "baseboard");
+    EXPECT_NEAR(o.at("life_cycle_cost").get<double>(), o.at("annual_cost").get<double>(), 1e-6);
+    // Hand-worked: 50 MMBtu + 10 MMBtu / 0.92 on one meter = 14,653.55 + 3,185.56 kWh; the first 5,000 at 0.10, the rest at 0.30.
+    const double space = 50 * kwh_per_mmbtu, hot = 10 * kwh_per_mmbtu / 0.92, whole = 500 + (space + hot - 5000) * 0.30;
+    EXPECT_NEAR(o.at("energy_cost").get<double>(), whole, 1e-6);
+    EXPECT_NEAR(o.at("water_heating").at("annual_cost").get<double>(), whole * hot / (space + hot), 1e-6);
+    // The option serves the house's whole need, space heat and hot water.
+    EXPECT_NEAR(o.at("useful_heat_kwh").get<double>(), out.at("demand").at("annual_useful_heat_kwh").get<double>(), 1e-9);
+    EXPECT_NEAR(o.at("useful_heat_kwh").get<double>(), 60 * kwh_per_mmbtu, 1e-6);
+}
+
+TEST(water_heating, an_electric_heater_priced_on_its_own_and_a_gas_heater_metered_at_a_pressure_base) {
+    const json water = {{"annual_heat", {{"value", 3000}, {"unit", "kWh"}}},
+                        {"heater", {{"kind", "storage"}, {"fuel", "electricity"}, {"uef", 0.92}, {"price", {{"amount", 0.2}, {"per", "kWh"}}}}}};
+    json s = scenario(json::array({gas_furnace()}), {{"water_heating", water}});
+    s["settings"].erase("electricity");
+    const auto out = evaluate(s);
+    EXPECT_NEAR(option(out, "furnace").at("water_heating").at("annual_cost").get<double>(), 3000 / 0.92 * 0.2, 1e-9);
+    // A gas water heater's own price per ccf, metered at 12 psia against the catalog's 14.696: more ccf for the same heat.
+    const json oil = {{"id", "oil"}, {"fuel", "heating-oil-2"}, {"price", {{"amount", 3.5}, {"per", "gal"}}},
+                      {"system", {{"kind", "boiler"}, {"efficiency", {{"value", 85}, {"rating", "AFUE"}}}}}};
+    const json gas = {{"annual_heat", {{"value", 10}, {"unit", "MMBtu"}}},
+                      {"heater", {{"kind", "storage"}, {"fuel", "natural-gas"}, {"uef", 0.64}, {"price", {{"amount", 1.5}, {"per", "ccf"}}}}}};
+    const auto at = [&](const json& settings) {
+        return option(evaluate(scenario(json::array({oil}), {{"water_heating", gas}}, settings)), "oil").at("water_heating").at("fuel_quantity").at("value").get<double>();
+    };
+    EXPECT_NEAR(at({{"gas_pressure_base", {{"value", 12}, {"unit", "psia"}}}}) / at(json::object()), 14.696 / 12, 1e-9);
+}
+
 TEST(water_heating, ratings_as_typed_get_a_message_at_their_field) {
     const auto error_for = [](const json& heater) {
         const json water = {{"annual_heat", {{"value", 10}, {"unit", "MMBtu"}}}, {"heater", heater}};
@@ -229,6 +269,12 @@ TEST(water_heating, ratings_as_typed_get_a_message_at_their_field) {
     e = error_for({{"kind", "storage"}, {"fuel", "electricity"}, {"efficiency", {{"value", 0.38}, {"rating", "eta_wh"}}}});
     EXPECT_EQ(e.at("path"), "/demand/water_heating/heater/efficiency/value");
     EXPECT_EQ(e.at("message"), "eta_wh is a percentage as the EU label prints it (e.g. 65 or 130), got 0.38");
+    e = error_for({{"kind", "storage"}, {"fuel", "natural-gas"}, {"efficiency", {{"value", 300}, {"rating", "eta_wh"}}}});
+    EXPECT_EQ(e.at("message"), "a fuel-fired storage water heater's eta_wh is at most 100 % (on the gross calorific value); above it only a heat pump "
+                               "reaches, got 300");
+    e = error_for({{"kind", "storage"}, {"fuel", "electricity"}, {"efficiency", {{"value", 95}, {"rating", "eta_wh"}}}});
+    EXPECT_EQ(e.at("message"), "an electric storage water heater's eta_wh is at most 40 % (its electricity counted x CC 2.5); above it only a heat "
+                               "pump reaches, got 95");
     e = error_for({{"kind", "heat-pump-water-heater"}, {"fuel", "natural-gas"}, {"uef", 3}});
     EXPECT_EQ(e.at("message"), "a heat-pump water heater runs on electricity, not natural-gas");
     e = error_for({{"kind", "kettle"}, {"fuel", "natural-gas"}, {"uef", 0.6}});

@@ -368,6 +368,9 @@ void read_water_heating(const json& water, scenario& out, std::vector<issue>& wa
         require_annual_heat(kwh, water.at("annual_heat"), path + "/annual_heat", false);
         out.hot_water_kwh = kwh;
         out.demand_trace.push_back("water heating " + energy_text(kwh, out.settings.units) + " useful a year, as given");
+        for (const char* key : {"volume_per_person_day", "temperature_rise"})
+            if (water.contains(key))
+                warnings.push_back({path + "/" + key, "not used: the yearly heat is given (annual_heat); give people instead to use it"});
     } else if (water.contains("people")) {
         const auto people = optional_number(water, "people", path);
         if (!people || !(*people > 0 && *people <= 30))

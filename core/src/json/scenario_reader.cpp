@@ -455,6 +455,15 @@ water_heater_spec read_water_heater(const json& item, const std::string& path, s
             if (value > 0 && value <= 3)
                 throw input_error(value_path, "eta_wh is a percentage as the EU label prints it (e.g. 65 or 130), got " + format_number(value));
             if (!(value > 3 && value <= 500)) throw input_error(value_path, "must be a percentage from 3 to 500, got " + format_number(value));
+            // above these only a heat pump (or solar input) reaches: a burner on the gross calorific value 100 %,
+            // a resistance element 100 % / CC 2.5 = 40 %
+            const bool electric = heater.fuel && heater.fuel->category == fuel_category::electricity;
+            const double limit = heat_pump ? 500.0 : electric ? 100.0 / eu_conversion_coefficient : 100.0;
+            if (value > limit)
+                throw input_error(value_path, std::string(electric ? "an electric " : "a fuel-fired ") + kind_text + " water heater's eta_wh is at most " +
+                                                  format_number(limit) + " % (" +
+                                                  (electric ? "its electricity counted x CC 2.5" : "on the gross calorific value") +
+                                                  "); above it only a heat pump reaches, got " + format_number(value));
             heater.efficiency_value = value / 100;
         }
     }
@@ -486,7 +495,7 @@ water_heater_spec read_water_heater(const json& item, const std::string& path, s
         if (own.amount < 0) throw input_error(path + "/price/amount", "must be >= 0, got " + format_number(own.amount));
         require_at_most_max_amount(own.amount, path + "/price/amount");
         own.unit = required_string(price, "per", path + "/price");
-        own.hhv_kwh_per_unit = heating_value_per_sale_unit(*heater.fuel, own.unit, {}, path + "/price/per").hhv_j / 3.6e6;
+        heating_value_per_sale_unit(*heater.fuel, own.unit, {}, path + "/price/per");  // a unit the fuel is sold in
         warn_unknown_keys(price, {"amount", "per"}, path + "/price", warnings);
         if (item.contains("fixed_charges"))
             for (const auto& charge : read_fixed_charges(item.at("fixed_charges"), path + "/fixed_charges")) {
@@ -992,6 +1001,12 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
     // Without the settings (prices of the site, services kept), a climate or a demand there is nothing to
     // evaluate the options against: the problem is reported at its own path and no option is computed.
     if (!settings_read || !climate_read || errors.size() != errors_before_demand) out.options.clear();
+    // A water heater with no hot water asked for is not used: said at it.
+    if (out.hot_water_kwh <= 0)
+        for (const auto& option : out.options)
+            if (option.water_heater)
+                warnings.push_back({option.path + "/water_heater", "no hot water is asked for (demand.water_heating): this water "
+                                                                   "heater is not used"});
     // Time of use places each bin's kWh in its months and hours of the day.
     bool scheduled = out.settings.electricity_schedule.has_value();
     for (const auto& option : out.options) scheduled = scheduled || option.schedule.has_value();

@@ -153,11 +153,11 @@ void add_site_costs(const scenario& input, const scenario_option& option, option
             r.co2e_kg += emitted.co2e_kg;
             r.co2_fossil_kg += emitted.co2_fossil_kg;
             r.trace.push_back("auxiliary electricity emissions " + emitted.text);
+            const auto profile = space_heat_profile(input, *kwh);
+            r.electricity_profile = add_profile(r.electricity_profile, profile);
+            r.electricity_kwh += *kwh;
             if (const auto tariff = site_tariff(input)) {
-                const auto profile = space_heat_profile(input, *kwh);
                 r.auxiliary_cost = tariff_cost(*tariff, *kwh, profile);
-                r.electricity_profile = add_profile(r.electricity_profile, profile);
-                r.electricity_kwh += *kwh;
                 r.energy_cost += r.auxiliary_cost;
                 r.cost_parts.push_back({"electricity", r.auxiliary_cost, 0.0});
                 r.trace.push_back(format_fixed(*kwh, 0) + " kWh x " +
@@ -259,6 +259,12 @@ option_result evaluate_option(const scenario& input, const scenario_option& opti
     add_site_costs(view, option, r);
     add_water_heating(input, option, r);
     finish_services(input, view, option, r);
+    // The option serves the house's whole need (space heat and hot water), whatever makes each; its fuel energy is
+    // the heating system's and, where it burns the same fuel, the water heater's.
+    r.useful_heat_kwh = input.annual_useful_heat_kwh;
+    const auto* heater = water_heater_of(input, option);
+    if (heater && !heated_by_boiler(heater->kind) && heater->fuel && heater->fuel->id == option.fuel.id && r.water_heating.efficiency > 0)
+        r.fuel_energy_hhv_kwh += input.hot_water_kwh / r.water_heating.efficiency;
     return r;
 }
 

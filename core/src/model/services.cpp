@@ -135,7 +135,7 @@ scenario heating_system_view(const scenario& input, const scenario_option& optio
     const auto* heater = water_heater_of(input, option);
     if (heater && heated_by_boiler(heater->kind)) {
         if (option.system.kind != system_kind::boiler)
-            throw input_error(option.path + "/water_heater", boiler_needed_message(*heater, option, heater == &*option.water_heater));
+            throw input_error(option.path + "/water_heater", boiler_needed_message(*heater, option, option.water_heater && heater == &*option.water_heater));
         if (heater->kind == water_heater_kind::indirect) view.hot_water_kwh += standby_kwh(*heater, input);
     } else if (heater) {
         view.hot_water_kwh = 0;
@@ -223,10 +223,17 @@ void add_water_heating(const scenario& input, const scenario_option& option, opt
         std::string unit;
         if (fuel.category == fuel_category::electricity) {
             const bool own_meter = option.fuel.category == fuel_category::electricity;
-            const auto tariff = own_meter ? std::optional<electricity_tariff>(option_tariff(option)) : site_tariff(input);
+            auto tariff = own_meter ? std::optional<electricity_tariff>(option_tariff(option)) : site_tariff(input);
+            if (!tariff && heater->price) {
+                // the water heater's own price per kWh (the house's electricity, priced nowhere else)
+                tariff = electricity_tariff{heater->price->amount / convert(1.0, heater->price->unit, "kWh"), nullptr,
+                                            "the water heater's own price"};
+                fixed = pays_service(input, option, fuel.id) ? 0.0 : heater->price->fixed_per_year;
+            }
             if (!tariff)
                 throw input_error(heater->path + "/fuel", "an electric water heater needs an electricity price: give "
-                                                          "settings.electricity.price or an option that runs on electricity");
+                                                          "settings.electricity.price, an option that runs on electricity, or "
+                                                          "the water heater its price ({amount, per})");
             quantity = energy_kwh;
             unit = "kWh";
             const auto profile = hot_water_profile(energy_kwh, leap);
@@ -234,9 +241,11 @@ void add_water_heating(const scenario& input, const scenario_option& option, opt
                 // Block rates are on the meter's whole year: the water heater's kWh join the heating's.
                 const double before = r.fuel_quantity, after = before + energy_kwh;
                 const double whole = priced_cost(option, after);
-                r.energy_cost += whole - priced_cost(option, before);
                 cost = whole * energy_kwh / after;
-                r.energy_cost -= cost;  // counted below with the water heating
+                // the heating's share of the meter's cost moves too: its change is a part of its own
+                const double heating_change = whole - priced_cost(option, before) - cost;
+                r.energy_cost += heating_change;
+                r.cost_parts.push_back({option.fuel.id, heating_change, 0.0});
             } else {
                 cost = tariff_cost(*tariff, energy_kwh, profile);
             }
@@ -252,7 +261,10 @@ void add_water_heating(const scenario& input, const scenario_option& option, opt
             if (heater->price && !same_meter) {
                 // Its own price: the fuel is bought for the water heater alone, with its own fixed charges.
                 const auto& own = *heater->price;
-                quantity = energy_kwh / own.hhv_kwh_per_unit;
+                sale_options sale;
+                sale.gas_pressure_pa = input.settings.gas_pressure_base_pa;
+                const double per_unit = heating_value_per_sale_unit(fuel, own.unit, sale, heater->path + "/price/per").hhv_j / 3.6e6;
+                quantity = energy_kwh / per_unit;
                 unit = own.unit;
                 cost = quantity * own.amount;
                 fixed = pays_service(input, option, fuel.id) ? 0.0 : own.fixed_per_year;  // a kept service pays them already
@@ -274,9 +286,10 @@ void add_water_heating(const scenario& input, const scenario_option& option, opt
                     const double before = source == &option ? r.fuel_quantity : r.backup_fuel_quantity;
                     const double after = before + quantity;
                     const double whole = priced_cost(*source, after);
-                    r.energy_cost += whole - priced_cost(*source, before);
                     cost = whole * quantity / after;
-                    r.energy_cost -= cost;
+                    const double heating_change = whole - priced_cost(*source, before) - cost;
+                    r.energy_cost += heating_change;
+                    r.cost_parts.push_back({fuel.id, heating_change, 0.0});
                     if (source == &option) r.fuel_quantity += quantity;
                 } else {
                     cost = priced_cost(*source, quantity);

@@ -38,7 +38,6 @@ struct water_heater_spec {
     struct own_price {
         double amount = 0;         ///< [currency per unit]
         std::string unit;          ///< a sale unit of the fuel
-        double hhv_kwh_per_unit = 0;
         double fixed_per_year = 0;  ///< [currency/year] its fixed charges
         std::string fixed_text;     ///< the charges as entered, for the trace
     };
