@@ -246,7 +246,9 @@ std::vector<month_hour_hours> bin_calendar(const climate_model& climate, const s
                 const double below_upper = std::isinf(upper) ? 1.0 : logistic_cdf(upper, mean, climate.daily_sd_k[m]);
                 const double below_lower = std::isinf(lower) ? 0.0 : logistic_cdf(lower, mean, climate.daily_sd_k[m]);
                 const double hours = days[m] * std::max(0.0, below_upper - below_lower);
-                out[k][m][h % 24] = hours;
+                // the temperature at h:00 stands for the half hours either side: half in the hour before, half in the hour after
+                out[k][m][(h - 1) % 24] += hours / 2;
+                out[k][m][h % 24] += hours / 2;
                 total += hours;
             }
         for (std::size_t m = 0; m < 12; ++m)

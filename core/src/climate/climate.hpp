@@ -82,8 +82,8 @@ std::vector<temperature_bin> hourly_bins(const climate_model& climate, double wi
 using month_hour_hours = std::array<std::array<double, 24>, 12>;
 
 /// Each bin's hours by month and hour of the day: the model's hours in the bin (each month's daily means
-/// logistic, each hour offset by Erbs's diurnal profile, Erbs hour h read as clock hour h:00, hour 24 as
-/// 0:00), scaled to the bin's own hours (so observed bins keep theirs); the outermost bins take the tails.
+/// logistic, each hour offset by Erbs's diurnal profile, Erbs hour h read as the temperature at clock time h:00,
+/// hour 24 as 0:00, standing for the half hours either side of it), scaled to the bin's own hours (so observed bins keep theirs); the outermost bins take the tails.
 /// A bin the model puts no hours in is spread evenly over the year. Bins in ascending order, `width_k` wide.
 std::vector<month_hour_hours> bin_calendar(const climate_model& climate, const std::vector<temperature_bin>& bins,
                                            double width_k);
