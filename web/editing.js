@@ -160,6 +160,32 @@ export function switchUnits(ws, system) {
     for (const key of ['cutoff', 'changeover', 'capacity']) if (s[key]) s[key] = inSystem(s[key], system);
   }
   for (const entry of ws.fuels) if (entry.bag_mass) entry.bag_mass = convertQuantity(entry.bag_mass, system);
+  const w = d.water_heating;
+  if (w) {
+    w.annual_heat = inSystem(w.annual_heat, system);
+    w.volume_per_person_day = litresOrGallons(w.volume_per_person_day, system);
+    w.temperature_rise = riseIn(w.temperature_rise, system);
+  }
+}
+
+const LITRES_PER_GALLON = 3.785411784;  // US gallon, 231 in3 (exact)
+
+/** Hot water a person a day in gal (US) or L (metric). */
+function litresOrGallons(q, system) {
+  if (!q) return q;
+  const to = system === 'us' ? 'gal' : 'L';
+  if (q.unit === to || (q.unit !== 'gal' && q.unit !== 'L')) return q;
+  const value = typeof q.value === 'number' ? (to === 'L' ? q.value * LITRES_PER_GALLON : q.value / LITRES_PER_GALLON) : q.value;
+  return { ...q, value, unit: to };
+}
+
+/** A temperature rise (a difference, not a temperature) in degF (US) or K (metric): x 5/9 or x 9/5. */
+function riseIn(q, system) {
+  if (!q) return q;
+  const to = system === 'us' ? 'degF' : 'K';
+  if (q.unit === to || !['degF', 'K', 'degC'].includes(q.unit)) return q;
+  const value = typeof q.value === 'number' ? (to === 'K' ? q.value * 5 / 9 : q.value * 9 / 5) : q.value;
+  return { ...q, value, unit: to };
 }
 
 /**

@@ -30,8 +30,12 @@ function assumptions(ws, result, ctx) {
   const water = d.water_heating;
   if (water?.enabled && result?.demand && Number.isFinite(result.demand.water_heating_kwh)) {
     const unit = ws.settings.energy_unit;
-    const heater = water.heater?.kind ? `; water heater in the house now: ${water.heater.kind.replaceAll('-', ' ')}${
-      Number.isFinite(water.heater.uef) ? `, UEF ${format.number(water.heater.uef)}` : ''}` : '';
+    const heaterWords = (x) => `${x.kind.replaceAll('-', ' ')}${x.fuel ? ` on ${fuelName({ fuel: x.fuel }, ctx.catalog) || x.fuel}` : ''}${
+      Number.isFinite(x.uef) ? `, UEF ${format.number(x.uef)}` : ''}${x.location === 'conditioned' ? ', inside the heated space' : ''}`;
+    const own = ws.systems.filter((sys) => sys.water_heater?.mode === 'own' && sys.water_heater.kind)
+      .map((sys) => `${sys.label || sys.id} comes with its own: ${heaterWords(sys.water_heater)}`);
+    const heater = [water.heater?.kind ? `water heater in the house now: ${heaterWords(water.heater)}` : null, ...own].filter(Boolean)
+      .map((text) => `; ${text}`).join('');
     items.push(['Hot water', `${format.number(result.demand.water_heating_kwh / ENERGY_KWH[unit])} ${unitLabel(unit)} a year${
       water.mode !== 'annual' && Number.isFinite(water.people) ? ` for ${format.number(water.people)} people` : ''}${heater}`]);
   }

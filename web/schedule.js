@@ -2,16 +2,22 @@
 // hours a row; rows of one name are one period) and the core's `price.schedule` they stand for, both ways.
 
 const MONTHS = 12;
+const MONTH_NAMES = ['january', 'february', 'march', 'april', 'may', 'june', 'july', 'august', 'september', 'october', 'november', 'december'];
 
 /**
- * Months typed as text ("6-9", "11-3", "1, 2, 12"; empty or "all" for the whole year) as month numbers 1-12, or
+ * Months typed as text ("6-9", "6 - 9", "11-3", "1, 2, 12", "Jun-Sep"; empty or "all" for the whole year) as month numbers 1-12, or
  * null when the text is not months (the core then says so at the field).
  */
 export function parseMonths(text) {
   const clean = String(text ?? '').trim().toLowerCase();
   if (clean === '' || clean === 'all') return [];
   const months = new Set();
-  for (const part of clean.split(/[,;\s]+/).filter(Boolean)) {
+  // "6 - 9" is 6-9; month names as a tariff sheet prints them ("Jun-Sep", "June") are their numbers
+  const named = clean.replace(/[a-z]+/g, (word) => {
+    const m = MONTH_NAMES.findIndex((name) => word.length >= 3 && name.startsWith(word.slice(0, 3)) && name.startsWith(word));
+    return m >= 0 ? String(m + 1) : word;
+  }).replace(/\s*[-–]\s*/g, '-');
+  for (const part of named.split(/[,;\s]+/).filter(Boolean)) {
     const range = /^(\d{1,2})\s*[-–]\s*(\d{1,2})$/.exec(part);
     const single = /^(\d{1,2})$/.exec(part);
     if (range) {

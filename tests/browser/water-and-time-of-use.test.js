@@ -149,7 +149,7 @@ describe('Hot water and time-of-use electricity (Chromium, touch)', () => {
     execFileSync('pdftoppm', ['-png', '-r', '60', file, join(ARTIFACTS, 'sheet-water')]);
     assert.match(text, /Space heating and hot water/);
     assert.match(text, /by a heat-? ?pump water heater/);
-    assert.match(text, /Hot water [\d,.]+ MMBtu a year for 3 people; water heater in the house now: storage, UEF 0\.62/);
+    assert.match(text, /Hot water [\d,.]+ MMBtu a year for 3 people; water heater in the house now: storage on Natural gas, UEF 0\.62; .+ comes with its own: heat pump water heater on Electricity, UEF 3\.5, inside the heated space/);
     assert.deepEqual(consoleErrors, []);
   });
 });

@@ -29,7 +29,10 @@ describe('web/schedule.js', () => {
     assert.deepEqual(schedule.parseMonths('11-3'), [1, 2, 3, 11, 12], 'a span over the new year');
     assert.deepEqual(schedule.parseMonths('1, 2; 12'), [1, 2, 12]);
     assert.deepEqual(schedule.parseMonths('6–9'), [6, 7, 8, 9], 'an en dash as a tariff sheet prints it');
-    assert.equal(schedule.parseMonths('June'), null);
+    assert.deepEqual(schedule.parseMonths('6 - 9'), [6, 7, 8, 9], 'spaces around the dash');
+    assert.deepEqual(schedule.parseMonths('Jun-Sep'), [6, 7, 8, 9], 'month names as a tariff sheet prints them');
+    assert.deepEqual(schedule.parseMonths('June, December'), [6, 12]);
+    assert.equal(schedule.parseMonths('summer'), null);
     assert.equal(schedule.parseMonths('0-4'), null);
     assert.equal(schedule.monthsText([6, 7, 8, 9]), '6-9');
     assert.equal(schedule.monthsText([1, 2, 3, 11, 12]), '1-3, 11, 12');

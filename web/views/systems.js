@@ -182,7 +182,7 @@ function waterHeaterChoice(ctx, base, sys) {
     h('legend', { text: 'Hot water with this option' }),
     selectField(ctx, { label: 'Hot water made by', path: `${base}/water_heater/mode`, value: own ? 'own' : 'house', structural: true,
       choices: [['house', 'The water heater in the house now (House tab)'], ['own', 'A water heater that comes with this option']] }),
-    own ? waterHeaterFields(ctx, `${base}/water_heater`, sys.water_heater) : null,
+    own ? waterHeaterFields(ctx, `${base}/water_heater`, sys.water_heater, { boiler: sys.system?.kind === 'boiler' }) : null,
     h('p', { class: 'field-msg', hidden: true }));
 }
 

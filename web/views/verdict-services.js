@@ -32,7 +32,8 @@ export function servicesTable(result, ctx, by, id = 'services-table') {
       h('td', { dataset: { label: head[1] } }, h('span', { text: format.money(r.space?.annual_cost) }),
         h('span', { class: 'sub', text: quantityText(r.space, format) })),
       water ? h('td', { dataset: { label: 'Hot water a year' } }, h('span', { text: format.money(r.water?.annual_cost) }),
-        h('span', { class: 'sub', text: `${quantityText(r.water, format)} by ${madeByWords(r.water?.made_by)}` })) : null,
+        h('span', { class: 'sub', text: `${quantityText(r.water, format)} by ${madeByWords(r.water?.made_by)}${
+          isNum(r.water?.fixed_cost) && r.water.fixed_cost > 0 ? `, with ${format.money(r.water.fixed_cost)} of fixed charges for its fuel's service` : ''}` })) : null,
       periods ? h('td', { dataset: { label: 'Electricity by time of use' } }, h('span', { class: 'sub', text: periodsText(r, format) })) : null))));
 }
 

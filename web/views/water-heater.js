@@ -18,11 +18,15 @@ function heaterFuels(catalog, kind) {
   return (catalog.fuels ?? []).filter((f) => f.category !== 'solid').map((f) => [f.id, f.name]);
 }
 
-/** The water-heater fields at `base` (a path whose object is the heater). */
-export function waterHeaterFields(ctx, base, heater = {}) {
+/**
+ * The water-heater fields at `base` (a path whose object is the heater); `boiler` false leaves out the kinds a boiler
+ * heats (an option without a boiler cannot have them).
+ */
+export function waterHeaterFields(ctx, base, heater = {}, { boiler = true } = {}) {
   const kind = heater.kind ?? '';
+  const kinds = WATER_HEATER_KINDS.filter(([k]) => boiler || !BOILER_WATER_HEATERS.includes(k) || k === kind);
   const nodes = [selectField(ctx, { label: 'Kind of water heater', path: `${base}/kind`, value: kind, structural: true,
-    choices: [['', 'Choose…'], ...WATER_HEATER_KINDS] })];
+    choices: [['', 'Choose…'], ...kinds] })];
   if (!kind) return nodes;
   if (BOILER_WATER_HEATERS.includes(kind)) {
     nodes.push(h('p', { class: 'hint', text: kind === 'indirect'

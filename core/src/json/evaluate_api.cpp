@@ -77,6 +77,7 @@ json option_json(const option_result& r, const scenario& input, const answer_det
                      {"fuel", part.fuel_id},
                      {"fuel_quantity", {{"value", part.fuel_quantity}, {"unit", part.fuel_unit}}},
                      {"annual_cost", part.annual_cost},
+                     {"fixed_cost", part.fixed_cost},
                      {"co2e_kg", part.co2e_kg},
                      {"made_by", part.made_by},
                      {"efficiency", part.efficiency}};

@@ -366,6 +366,11 @@ void read_water_heating(const json& water, scenario& out, std::vector<issue>& wa
     if (water.contains("annual_heat")) {
         const double kwh = quantity_in(water.at("annual_heat"), path + "/annual_heat", dimension::energy, "kWh");
         require_annual_heat(kwh, water.at("annual_heat"), path + "/annual_heat", false);
+        // a household's hot water is about 1,000-10,000 kWh (3.4-34 MMBtu) a year: 50 L a person a day for 1 to 8 people
+        if (kwh > 30000 || kwh < 300)
+            warnings.push_back({path + "/annual_heat/value", energy_text(kwh, out.settings.units) + " of hot water a year is " +
+                                                             (kwh > 30000 ? "far above" : "far below") +
+                                                             " what a household uses (about 1,000 to 10,000 kWh, 3.4 to 34 MMBtu): check the value and its unit"});
         out.hot_water_kwh = kwh;
         out.demand_trace.push_back("water heating " + energy_text(kwh, out.settings.units) + " useful a year, as given");
         for (const char* key : {"volume_per_person_day", "temperature_rise"})

@@ -306,10 +306,13 @@ namespace {
 
 /// One [from, to] pair of whole local hours into the period's hours (to < from runs past midnight).
 void read_hour_span(const json& pair, const std::string& path, std::array<bool, 24>& hours) {
-    if (!pair.is_array() || pair.size() != 2 || !pair[0].is_number() || !pair[1].is_number())
+    if (!pair.is_array() || pair.size() != 2)
         throw input_error(path, "must be a pair of hours [from, to], e.g. [16, 21] for 16:00 to 21:00");
     int ends[2] = {0, 0};
     for (std::size_t e = 0; e < 2; ++e) {
+        if (!pair[e].is_number())
+            throw input_error(path + "/" + std::to_string(e), std::string("is required: the hour the period ") +
+                                                                  (e == 0 ? "starts" : "ends") + ", a whole hour from 0 to 24");
         const double value = pair[e].get<double>();
         if (!(value >= 0 && value <= 24) || value != std::floor(value))
             throw input_error(path + "/" + std::to_string(e), "must be a whole hour from 0 to 24 (a period boundary inside an hour is "
@@ -317,7 +320,7 @@ void read_hour_span(const json& pair, const std::string& path, std::array<bool, 
         ends[e] = static_cast<int>(value);
     }
     if (ends[0] == ends[1] || (ends[0] == 24 && ends[1] == 0))
-        throw input_error(path, "from and to are the same hour: give [0, 24] for the whole day");
+        throw input_error(path + "/1", "ends where it starts: a period needs at least one hour (0 to 24 is the whole day)");
     // [from, to) in local hours; to < from runs past midnight ([22, 6] is 22:00 to 6:00).
     for (int h = ends[0]; h < (ends[0] < ends[1] ? ends[1] : 24); ++h) hours[static_cast<std::size_t>(h)] = true;
     if (ends[0] > ends[1])
@@ -328,7 +331,7 @@ void read_hour_span(const json& pair, const std::string& path, std::array<bool, 
 
 price_schedule read_price_schedule(const json& list, const std::string& path, std::vector<issue>& warnings) {
     if (!list.is_array() || list.empty())
-        throw input_error(path, "must be a list of periods [{name, amount, hours: [[from, to]], days, months}]");
+        throw input_error(path, "needs at least one period (name, price per kWh, hours): add one, or price electricity by one amount");
     if (list.size() > 24) throw input_error(path, "at most 24 periods, got " + std::to_string(list.size()));
     price_schedule schedule;
     for (std::size_t i = 0; i < list.size(); ++i) {
@@ -351,7 +354,7 @@ price_schedule read_price_schedule(const json& list, const std::string& path, st
                                                                                  : ""));
         if (!period_json.contains("hours")) throw input_error(item + "/hours", "is required: [[from, to], ...] in whole local hours, e.g. [[16, 21]]");
         const auto& hours = period_json.at("hours");
-        if (hours.is_array() && hours.size() == 2 && hours[0].is_number() && hours[1].is_number()) {
+        if (hours.is_array() && hours.size() == 2 && !hours[0].is_array() && !hours[1].is_array()) {
             read_hour_span(hours, item + "/hours", period.hours);  // one pair, written without the outer brackets
         } else {
             if (!hours.is_array() || hours.empty())

@@ -238,6 +238,7 @@ void finish_services(const scenario& input, const scenario& view, const scenario
     space.fuel_unit = r.fuel_unit;
     space.fuel_quantity = r.fuel_quantity - (water.fuel_id == option.fuel.id && water.fuel_unit == r.fuel_unit ? water.fuel_quantity : 0.0);
     space.annual_cost = r.annual_cost - water.annual_cost;
+    space.fixed_cost = r.fixed_cost - water.fixed_cost;
     space.co2e_kg = r.co2e_kg - water.co2e_kg;
     space.efficiency = r.seasonal_efficiency_hhv;
     space.made_by = std::string(kind_name(option.system.kind));

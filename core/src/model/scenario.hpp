@@ -166,6 +166,7 @@ struct service_result {
     std::string fuel_id, fuel_unit;  ///< the service's main fuel and its priced unit
     double fuel_quantity = 0;       ///< [fuel_unit/year]
     double annual_cost = 0;         ///< [currency/year] energy and the fixed charges that belong to it
+    double fixed_cost = 0;          ///< [currency/year] of which fixed charges (a service kept for the water heater alone)
     double co2e_kg = 0;             ///< [kg/year]
     std::string made_by;            ///< water heating: the heater's kind, or "heating-system"
     double efficiency = 0;          ///< useful heat / site energy (HHV) of what makes it

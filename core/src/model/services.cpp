@@ -310,6 +310,7 @@ void add_water_heating(const scenario& input, const scenario_option& option, opt
         water.fuel_unit = unit;
         water.fuel_quantity = quantity;
         water.annual_cost = cost + fixed;
+        water.fixed_cost = fixed;
         water.co2e_kg = emitted.co2e_kg;
         r.energy_cost += cost;
         r.fixed_cost += fixed;
