@@ -6,7 +6,7 @@
 import { climateInUnit } from './climate-library.js';
 import { FUEL_BURNING_KINDS, dualFuelSystem, efficiencyFor } from './equipment.js';
 import { HEAT_PUMP_KINDS, fuelId, newFuelKey, uniqueSystemId } from './scenario.js';
-import { DISPLAY, convertQuantity } from './units.js';
+import { DISPLAY, convert, convertQuantity } from './units.js';
 import { fuelName, saleUnitsOf } from './views/fuels.js';
 import { DUAL_FUEL_CHOICE, KIND_NAMES } from './views/systems.js';
 
@@ -168,14 +168,12 @@ export function switchUnits(ws, system) {
   }
 }
 
-const LITRES_PER_GALLON = 3.785411784;  // US gallon, 231 in3 (exact)
-
 /** Hot water a person a day in gal (US) or L (metric). */
 function litresOrGallons(q, system) {
   if (!q) return q;
   const to = system === 'us' ? 'gal' : 'L';
   if (q.unit === to || (q.unit !== 'gal' && q.unit !== 'L')) return q;
-  const value = typeof q.value === 'number' ? (to === 'L' ? q.value * LITRES_PER_GALLON : q.value / LITRES_PER_GALLON) : q.value;
+  const value = typeof q.value === 'number' ? convert(q.value, q.unit, to) : q.value;
   return { ...q, value, unit: to };
 }
 

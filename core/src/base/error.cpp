@@ -45,4 +45,9 @@ std::string format_number(double value) {
 #endif
 }
 
+std::string with_article(const std::string& noun) {
+    const bool vowel = !noun.empty() && std::string("aeiou").find(noun[0]) != std::string::npos;
+    return (vowel ? "an " : "a ") + noun;
+}
+
 }  // namespace fw

@@ -33,4 +33,7 @@ std::string format_fixed(double value, int decimals);
 /// Shortest decimal text of a number that reads well in a message (up to 6 significant digits).
 std::string format_number(double value);
 
+/// "a furnace", "an air-source-heat-pump": a noun with its indefinite article (by its first letter).
+std::string with_article(const std::string& noun);
+
 }  // namespace fw

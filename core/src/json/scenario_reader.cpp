@@ -393,12 +393,6 @@ price_schedule read_price_schedule(const json& list, const std::string& path, st
     return schedule;
 }
 
-double schedule_mean_price(const price_schedule& schedule) {
-    double cost = 0;
-    for (const auto& use : split_by_period(schedule, flat_profile(1.0, false))) cost += use.cost;
-    return cost;
-}
-
 water_heater_spec read_water_heater(const json& item, const std::string& path, std::vector<issue>& warnings) {
     require_object(item, path);
     water_heater_spec heater;
@@ -408,7 +402,7 @@ water_heater_spec read_water_heater(const json& item, const std::string& path, s
     const std::string kind_text(water_heater_kind_name(heater.kind));
     if (const auto fuel = optional_string(item, "fuel", path)) {
         if (by_boiler)
-            warnings.push_back({path + "/fuel", "an " + kind_text + " water heater burns the boiler's fuel; this fuel is not used"});
+            warnings.push_back({path + "/fuel", with_article(kind_text) + " water heater burns the boiler's fuel; this fuel is not used"});
         else
             heater.fuel = find_fuel(*fuel, path + "/fuel");
     } else if (!by_boiler) {
@@ -423,7 +417,7 @@ water_heater_spec read_water_heater(const json& item, const std::string& path, s
     if (by_boiler) {
         if (uef_given || efficiency_given)
             warnings.push_back({path + (uef_given ? "/uef" : "/efficiency"),
-                                "an " + kind_text + " water heater is heated by the boiler at the boiler's efficiency; this rating is not used"});
+                                with_article(kind_text) + " water heater is heated by the boiler at the boiler's efficiency; this rating is not used"});
     } else if (uef_given) {
         const auto value = optional_number(item, "uef", path);
         heater.efficiency_value = *value;
@@ -490,7 +484,7 @@ water_heater_spec read_water_heater(const json& item, const std::string& path, s
         heater.standby_w = default_indirect_standby_w;
     }
     if (item.contains("price")) {
-        if (!heater.fuel) throw input_error(path + "/price", "an " + kind_text + " water heater burns the boiler's fuel at its price");
+        if (!heater.fuel) throw input_error(path + "/price", with_article(kind_text) + " water heater burns the boiler's fuel at its price");
         const auto& price = item.at("price");
         require_object(price, path + "/price");
         water_heater_spec::own_price own;
@@ -588,7 +582,7 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
             throw input_error(path + "/price/schedule", "a time-of-use schedule prices electricity; " + option.fuel.id + " is priced by amount");
         if (option.price_unit != "kWh") throw input_error(path + "/price/per", "must be kWh with a schedule, got "" + option.price_unit + """);
         option.schedule = read_price_schedule(price.at("schedule"), path + "/price/schedule", warnings);
-        option.price_per_unit = schedule_mean_price(*option.schedule);
+        option.price_per_unit = mean_price_per_kwh(*option.schedule);
     }
     warn_unknown_keys(price, {"amount", "per", "tiers", "schedule"}, path + "/price", warnings);
 
@@ -734,7 +728,7 @@ scenario_settings read_settings(const json& document, std::vector<issue>& warnin
                 if (price.contains("amount"))
                     throw input_error(path + "/price/amount", "give amount (one price) or schedule (time of use), not both");
                 settings.electricity_schedule = read_price_schedule(price.at("schedule"), path + "/price/schedule", warnings);
-                settings.electricity_price_per_kwh = schedule_mean_price(*settings.electricity_schedule);
+                settings.electricity_price_per_kwh = mean_price_per_kwh(*settings.electricity_schedule);
             } else {
                 const auto amount = optional_number(price, "amount", path + "/price");
                 if (!amount) throw input_error(path + "/price/amount", "is required (the price of a kWh), or a schedule");

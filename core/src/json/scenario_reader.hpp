@@ -37,9 +37,6 @@ given_heating_value read_given_heating_value(const nlohmann::json& hv, const std
 /// the year in exactly one period (a clash or gap is reported at the period, with the hour).
 price_schedule read_price_schedule(const nlohmann::json& list, const std::string& path, std::vector<issue>& warnings);
 
-/// [currency/kWh] A schedule's mean price over every hour of the year (what a flat load would pay).
-double schedule_mean_price(const price_schedule& schedule);
-
 /// A water heater: {kind, fuel, uef | efficiency {value, rating}, location, standby_loss}.
 water_heater_spec read_water_heater(const nlohmann::json& item, const std::string& path, std::vector<issue>& warnings);
 

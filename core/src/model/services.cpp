@@ -98,12 +98,6 @@ const water_heater_spec* water_heater_of(const scenario& input, const scenario_o
 
 namespace {
 
-/// "a furnace", "an air-source-heat-pump": the kind with its article.
-std::string kind_with_article(system_kind kind) {
-    const std::string name(kind_name(kind));
-    return (std::string("aeiou").find(name.front()) != std::string::npos ? "an " : "a ") + name;
-}
-
 /// [kWh/year] An indirect tank's standby loss.
 double standby_kwh(const water_heater_spec& heater, const scenario& input) {
     const bool leap = input.climate && input.climate->model.leap_year;
@@ -124,7 +118,7 @@ double heat_taken_from_space_kwh(const water_heater_spec& heater, const scenario
 std::string boiler_needed_message(const water_heater_spec& heater, const scenario_option& option, bool own) {
     return std::string(own ? "this option's " : "the house's ") + std::string(water_heater_kind_name(heater.kind)) +
            " water heater is heated by a boiler, and option " + option.id + " heats with " +
-           kind_with_article(option.system.kind) + ": give option " + option.id +
+           with_article(std::string(kind_name(option.system.kind))) + ": give option " + option.id +
            " a water_heater of its own (a storage, tankless or heat-pump water heater)";
 }
 
@@ -190,7 +184,7 @@ void add_water_heating(const scenario& input, const scenario_option& option, opt
         water.co2e_kg = emissions_of(option.fuel, r.water_by_system_fuel_kwh, input.settings).co2e_kg;
         water.efficiency = r.water_by_system_fuel_kwh > 0 ? input.hot_water_kwh / r.water_by_system_fuel_kwh : 0.0;
         if (!heater && !system_makes_hot_water(option.system.kind))
-            r.warnings.push_back("option " + option.id + " heats with " + kind_with_article(option.system.kind) +
+            r.warnings.push_back("option " + option.id + " heats with " + with_article(std::string(kind_name(option.system.kind))) +
                                  ", which cannot make hot water, yet demand.hot_water is charged to it (at " +
                                  format_fixed(water.efficiency, 2) + " heat per unit of energy): give the house's water heater "
                                  "(demand.water_heating.heater) or this option's water_heater");

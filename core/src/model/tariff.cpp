@@ -80,6 +80,12 @@ std::string periods_text(const price_schedule& schedule, const month_hour_kwh& p
     return out + " = " + format_fixed(cost, 2);
 }
 
+double mean_price_per_kwh(const price_schedule& schedule) {
+    double cost = 0;
+    for (const auto& use : split_by_period(schedule, flat_profile(1.0, false))) cost += use.cost;
+    return cost;
+}
+
 month_hour_kwh flat_profile(double kwh, bool leap_year) {
     const auto days = days_in_months(leap_year);
     const double year_hours = 24.0 * (leap_year ? 366 : 365);

@@ -60,6 +60,9 @@ std::vector<period_use> split_by_period(const price_schedule& schedule, const mo
 /// "812 kWh peak x 0.31 + ..." for traces: the profile's kWh by period, scaled to `kwh`, with each period's price.
 std::string periods_text(const price_schedule& schedule, const month_hour_kwh& profile, double kwh);
 
+/// [currency/kWh] A schedule's mean price over every hour of the year (what a flat load pays a kWh).
+double mean_price_per_kwh(const price_schedule& schedule);
+
 /// [kWh] `kwh` spread evenly over every hour of the year (each month by its days).
 month_hour_kwh flat_profile(double kwh, bool leap_year);
 

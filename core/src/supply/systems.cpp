@@ -47,12 +47,6 @@ std::vector<efficiency_rating> ratings_for(system_kind kind) {
     return {};
 }
 
-/// "a furnace", "an air-source-heat-pump".
-std::string with_article(const std::string& noun) {
-    const bool vowel = !noun.empty() && std::string("aeiou").find(noun[0]) != std::string::npos;
-    return (vowel ? "an " : "a ") + noun;
-}
-
 std::string percent(double fraction) { return format_fixed(fraction * 100.0, 1) + " %"; }
 
 rated_efficiency load_rated(const nlohmann::json& item) {
