@@ -327,7 +327,12 @@ describe('the kiosk in Chromium behind nginx', () => {
     assert.match(await page.textContent('#kiosk-idle-note'), /after 90 seconds/);
   });
 
-  test('a running Monte Carlo stops when its flag is set (cross-origin isolated)', { timeout: TIMEOUT }, async () => {
+  // What is tested here is the flag crossing threads: set in the page, read by the worker's progress
+  // callback in shared memory. It is set as the run is started. Setting it at the third progress message
+  // raced the end of the run: on a loaded machine all 200,000 draws ended before the page handled that
+  // message. A run stopped part way by its callback is tested in tests/node/analysis.test.js and
+  // tests/core/economics_test.cpp.
+  test('a Monte Carlo stops when its shared flag is set (cross-origin isolated)', { timeout: TIMEOUT }, async () => {
     await page.goto(`${base}index.html`);
     // Seen in two full runs of about eight: the page came up not cross-origin isolated (cause not found;
     // the headers are on every response and kept in the service worker's cache). It is said, and the
@@ -344,7 +349,8 @@ describe('the kiosk in Chromium behind nginx', () => {
       const doc = await (await fetch('data/examples/maple-hollow-heat-pump-bins.json')).json();
       doc.uncertainty.draws = 200000;
       let calls = 0;
-      const started = client.evaluateWithProgress(doc, { onProgress: () => { calls += 1; if (calls === 3) started.cancel(); } });
+      const started = client.evaluateWithProgress(doc, { onProgress: () => { calls += 1; } });
+      started.cancel();
       const result = await started.promise;
       client.terminate();
       return { signalled: started.signalled, calls, cancelled: result.uncertainty?.cancelled, draws: result.uncertainty?.draws, errors: result.errors,
@@ -353,7 +359,8 @@ describe('the kiosk in Chromium behind nginx', () => {
     assert.equal(run.signalled, true, `cross-origin isolated ${run.isolated}, page from the service worker ${run.controlled}`);
     assert.deepEqual(run.errors, []);
     assert.equal(run.cancelled, true);
-    assert.ok(run.draws > 0 && run.draws < 200000, `stopped after ${run.draws} draws`);
+    assert.ok(run.draws < 200000, `stopped after ${run.draws} draws`);
+    assert.equal(run.calls, 0, 'no progress is heard once cancelled');
     assert.deepEqual(consoleErrors, []);
   });
 });
