@@ -133,13 +133,17 @@ export function bindFields(root, ctx, localErrors) {
   root.addEventListener('change', onEvent);
 }
 
+/** The field showing `path`: its own, else a quantity's value field (an error at {value, unit} as a whole), else an enclosing one. */
 function fieldFor(root, path) {
-  let p = path;
-  while (p) {
+  const at = (p) => {
     const escaped = CSS.escape(p);
-    const node = root.querySelector(`[data-field="${escaped}"]`) ?? root.querySelector(`[data-path="${escaped}"]`)?.closest('[data-field]');
+    return root.querySelector(`[data-field="${escaped}"]`) ?? root.querySelector(`[data-path="${escaped}"]`)?.closest('[data-field]');
+  };
+  const own = path ? at(path) ?? root.querySelector(`[data-field="${CSS.escape(`${path}/value`)}"]`) : null;
+  if (own) return own;
+  for (let p = path.slice(0, path.lastIndexOf('/')); p; p = p.slice(0, p.lastIndexOf('/'))) {
+    const node = at(p);
     if (node) return node;
-    p = p.slice(0, p.lastIndexOf('/'));
   }
   return null;
 }

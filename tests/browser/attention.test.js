@@ -40,6 +40,35 @@ async function typeInto(page, selector, text) {
   await page.type(selector, text);
 }
 
+describe('A missing heat loss (Chromium, 768x1024 with touch)', () => {
+  test('is said at the UA field, or at the design heat loss when that is how it is known', { timeout: TIMEOUT }, async () => {
+    const session = await open({ width: 768, height: 1024 });
+    const { page } = session;
+    const expected = "is required: the house's heat-loss coefficient ua {value, unit}, or its design_heat_loss {value, unit} with the indoor temperature";
+    try {
+      await page.tap('#tab-house');
+      await page.tap('label[for="f-demand-method-heat-loss"]');
+      const uaMsg = `${id('/demand/ua/value')}-msg`;
+      await page.waitForFunction((sel) => document.querySelector(sel)?.hidden === false, uaMsg);
+      assert.equal(await page.textContent(uaMsg), expected);
+      assert.equal(await page.getAttribute(id('/demand/ua/value'), 'aria-invalid'), 'true');
+      await page.tap('label[for="f-demand-ua-mode-design"]');
+      const designMsg = `${id('/demand/design_heat_loss/value')}-msg`;
+      await page.waitForFunction((sel) => document.querySelector(sel)?.hidden === false, designMsg);
+      assert.equal(await page.textContent(designMsg), expected);
+      // listed with the fields to fix, not as a path the page could not place
+      assert.equal(await page.textContent('#verdict-field-errors button[data-action="jump-to-field"]'), 'Design heat loss (House)');
+      assert.doesNotMatch(await page.textContent('#verdict-body'), /\/demand\/ua/);
+      await typeInto(page, id('/demand/design_heat_loss/value'), '36000');
+      await verdictSettled(page);
+      assert.equal(await page.isHidden(designMsg), true);
+      assert.deepEqual(session.consoleErrors, []);
+    } finally {
+      await session.close();
+    }
+  });
+});
+
 for (const viewport of [{ width: 768, height: 1024 }, { width: 390, height: 844 }]) {
   const size = `${viewport.width}x${viewport.height}`;
   describe(`Entries that need attention (Chromium, ${size} with touch)`, () => {

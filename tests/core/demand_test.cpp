@@ -75,6 +75,21 @@ TEST(demand_heat_loss, design_load_with_internal_gains_and_hot_water) {
     EXPECT_NEAR(in_us.at("demand").at("ua_w_per_k").get<double>(), 52.7527926, 1e-6);
 }
 
+TEST(demand_heat_loss, a_house_without_its_heat_loss_is_told_what_to_give) {
+    // The page leaves ua out while its field is empty: the message names both ways to give the heat loss.
+    const auto result = evaluate(scenario_with({{"method", "heat-loss"}, {"indoor", {{"value", 21}, {"unit", "degC"}}},
+                                                {"balance_point", {{"value", 15.5}, {"unit", "degC"}}}}));
+    ASSERT_EQ(result.at("errors").size(), 1u) << result.dump();
+    EXPECT_EQ(result.at("errors")[0].at("path"), "/demand/ua");
+    EXPECT_EQ(result.at("errors")[0].at("message"),
+              "is required: the house's heat-loss coefficient ua {value, unit}, or its design_heat_loss {value, unit} with the "
+              "indoor temperature");
+    const auto no_indoor = evaluate(scenario_with({{"method", "heat-loss"}, {"design_heat_loss", {{"value", 12}, {"unit", "kW"}}}}));
+    ASSERT_EQ(no_indoor.at("errors").size(), 1u) << no_indoor.dump();
+    EXPECT_EQ(no_indoor.at("errors")[0].at("path"), "/demand/indoor");
+    EXPECT_EQ(no_indoor.at("errors")[0].at("message"), "is required with design_heat_loss");
+}
+
 /// Monthly bills for 2025 from a known base [kWh/day], slope [kWh per K day] and tau, in kWh of gas.
 json synthetic_bills(double base, double slope, double tau_c, double noise) {
     const json climate = {{"monthly_mean", mixed_climate["monthly_mean"]}, {"unit", "degC"}};

@@ -488,7 +488,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
                                        temp_text(outdoor_c) + ") = " + format_fixed(ua, 1) + " W/K" +
                                        (demand.contains("design_outdoor") ? "" : " (design outdoor temperature from the climate, 99 %)"));
         } else {
-            throw input_error("/demand/ua", "give ua {value, unit} or design_heat_loss with indoor and design_outdoor");
+            throw input_error("/demand/ua", "is required: the house's heat-loss coefficient ua {value, unit}, or its design_heat_loss {value, unit} with the indoor temperature");
         }
         out.ua_w_per_k = ua;
         out.indoor_c = indoor_c;
