@@ -3,7 +3,7 @@
 // panel turns typing into store.set(). Errors from the core ({path, message},
 // a path into the scenario) are shown next to the field they point at.
 import { h, idFor } from './dom.js';
-import { formatInput, parseNumber, plainUnits } from './format.js';
+import { clockInput, formatInput, parseClock, parseNumber, plainUnits } from './format.js';
 import { workspacePath } from './scenario.js';
 import { unitLabel } from './units.js';
 
@@ -52,6 +52,16 @@ export function numberField(ctx, { label, path, value, unit, scale = 1, hint, pl
   return h('div', { class: className ?? undefined }, wrap(path, h('label', { for: input.id, text: label }), control, hint));
 }
 
+/** A time-of-day field: {label, path, value (hours 0-24), placeholder}; reads "16", "16:30", "4:30 pm" (parseClock). */
+export function clockField(ctx, { label, path, value, placeholder, hint }) {
+  const input = h('input', {
+    id: idFor(path), type: 'text', autocomplete: 'off', spellcheck: 'false', value: clockInput(value),
+    placeholder: placeholder ?? undefined, dataset: { path, kind: 'clock' },
+  });
+  describedBy(input, path, hint);
+  return wrap(path, h('label', { for: input.id, text: label }), input, hint);
+}
+
 /** A text field: {label, path, value, type ('text'|'date'|'textarea'), hint, placeholder}. */
 export function textField(ctx, { label, path, value, type = 'text', hint, placeholder, maxlength }) {
   const input = type === 'textarea'
@@ -98,6 +108,12 @@ function readInput(input, locale) {
     if (Number.isNaN(number)) return { ok: false, message: 'Not a number' };
     return { ok: true, value: scale ? number / Number(scale) : number };
   }
+  if (kind === 'clock') {
+    const hours = parseClock(input.value, locale);
+    if (hours === null) return { ok: true, value: undefined };
+    if (Number.isNaN(hours)) return { ok: false, message: 'Not a time of day: type it as 16, 16:30 or 4:30 pm' };
+    return { ok: true, value: hours };
+  }
   if (kind === 'check') return { ok: true, value: input.checked };
   if (kind === 'radio') return { ok: true, value: input.value };
   return { ok: true, value: input.value };
@@ -114,7 +130,7 @@ export function bindFields(root, ctx, localErrors) {
     if (!path) return;
     const kind = input.dataset.kind;
     if (event.type === 'input' && (kind === 'select' || kind === 'check' || kind === 'radio')) return;
-    if (event.type === 'change' && (kind === 'number' || kind === 'text')) return;
+    if (event.type === 'change' && (kind === 'number' || kind === 'clock' || kind === 'text')) return;
     if (kind === 'radio' && !input.checked) return;
     const read = readInput(input, ctx.locale);
     if (!read.ok) {

@@ -78,6 +78,48 @@ export function parseNumber(text, locale) {
   return PLAIN.test(t) ? Number(t) : NaN;
 }
 
+const CLOCK = /^(\d{1,2})(?:[:h.](\d{2}))?\s*(a\.?\s?m\.?|p\.?\s?m\.?)?$/;
+
+/**
+ * A time of day typed as a tariff sheet prints it, in hours from 0 to 24: "16", "16:30", "16.30" (two digits
+ * after the point are minutes, as British sheets print times), "4 pm", "4:30 p.m.", "12 am" (0), "noon", "midnight"
+ * (0; a period ending at 0 runs to midnight), "24:00", or decimal hours ("16.5"). null for an empty field, NaN
+ * when it is not a time of day.
+ */
+export function parseClock(text, locale) {
+  const t = String(text ?? '').trim().toLowerCase().replace(/\s+/g, ' ');
+  if (!t) return null;
+  if (t === 'midnight') return 0;
+  if (t === 'noon' || t === '12 noon' || t === 'midday') return 12;
+  const clock = CLOCK.exec(t);
+  if (clock && (clock[2] !== undefined || clock[3] !== undefined || !t.includes('.'))) {
+    let hours = Number(clock[1]);
+    const minutes = clock[2] === undefined ? 0 : Number(clock[2]);
+    if (minutes >= 60) return NaN;
+    if (clock[3]) {
+      if (hours < 1 || hours > 12) return NaN;
+      hours = (hours % 12) + (clock[3].startsWith('p') ? 12 : 0);
+    }
+    const value = hours + minutes / 60;
+    return value <= 24 ? value : NaN;
+  }
+  const number = parseNumber(t, locale);
+  return number === null || Number.isNaN(number) || number < 0 || number > 24 ? NaN : number;
+}
+
+/** Hours from 0 to 24 as a clock reads them: "16:00", "0:30", "24:00" (minutes rounded). */
+export function clockTime(hours) {
+  if (typeof hours !== 'number' || !Number.isFinite(hours)) return '';
+  const minutes = Math.round(hours * 60);
+  return `${Math.floor(minutes / 60)}:${String(minutes % 60).padStart(2, '0')}`;
+}
+
+/** Hours for a time field: a whole hour as its number ("16"), any other as a clock time ("16:30"). */
+export function clockInput(hours) {
+  if (typeof hours !== 'number' || !Number.isFinite(hours)) return '';
+  return Number.isInteger(hours) ? String(hours) : clockTime(hours);
+}
+
 /** A number for an input field: the locale's decimal separator, no grouping, up to 6 significant digits. */
 export function formatInput(value, locale) {
   if (typeof value !== 'number' || !Number.isFinite(value)) return '';

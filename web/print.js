@@ -4,7 +4,7 @@
 // options, the price draws), the cautions and a disclaimer. Printed or saved as PDF by the browser.
 import { h } from './dom.js';
 import { costBars } from './charts.js';
-import { asSentence } from './format.js';
+import { asSentence, clockTime } from './format.js';
 import { fuelName } from './views/fuels.js';
 import { KIND_NAMES } from './views/systems.js';
 import { equipmentNotes, displayValues, fuelUsedText, lifeOf, paybackWords, rankedOptions } from './results.js';
@@ -48,7 +48,7 @@ function assumptions(ws, result, ctx) {
     const used = ws.systems.some((sys) => sys.fuel_key === entry.key);
     const tou = entry.price?.time_of_use ? (entry.price.schedule ?? []) : null;
     const price = !used ? 'no system here burns it' : tou
-      ? `by time of use: ${tou.map((r) => `${r.name} ${format.price(r.amount)} per kWh (${r.from}-${r.to} h${r.days && r.days !== 'all' ? `, ${r.days}` : ''}${r.months_text ? `, months ${r.months_text}` : ''})`).join('; ')}`
+      ? `by time of use: ${tou.map((r) => `${r.name} ${format.price(r.amount)} per kWh (${clockTime(r.from)}–${clockTime(r.to)}${r.days && r.days !== 'all' ? `, ${r.days}` : ''}${r.months_text ? `, months ${r.months_text}` : ''})`).join('; ')}`
       : `${format.price(entry.price?.amount)} per ${unitLabel(entry.price?.per ?? '')}`;
     const kept = entry.keep_service ? '; the service is kept for other appliances' : '';
     items.push([fuelName(entry, ctx.catalog), `${price}${charges ? `; fixed ${charges}` : ''}${kept}`]);

@@ -31,6 +31,15 @@ export async function verdictSettled(page, state = 'done') {
   await page.waitForFunction(ready, state);
 }
 
+/** Waits until the verdict is done and its charts are drawn for the same entries (they repaint the verdict once more). */
+export async function chartsSettled(page) {
+  await verdictSettled(page);
+  await page.waitForFunction(() => {
+    const body = document.querySelector('#verdict-body');
+    return body.dataset.state === 'done' && body.dataset.analysis === body.dataset.generation && document.querySelector('#progress').hidden;
+  });
+}
+
 /** A phone-or-tablet touch screen at one device pixel per CSS pixel, as the tablet tests use. */
 export const TOUCH = { hasTouch: true, isMobile: true, deviceScaleFactor: 1 };
 

@@ -11,7 +11,7 @@ import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { after, before, describe, test } from 'node:test';
 
-import { tabletSession, verdictSettled } from './chromium-page.js';
+import { chartsSettled, tabletSession, verdictSettled } from './chromium-page.js';
 import { siteDir } from '../node/helpers.js';
 import { cliEvaluate } from './scenario-fixture.js';
 import { serve } from './server.js';
@@ -74,18 +74,19 @@ describe('Hot water and time-of-use electricity (Chromium, touch)', () => {
     await typeInto(id(`${base}/price/schedule/1/name`), 'peak');
     await typeInto(id(`${base}/price/schedule/1/amount`), '0.34');
     await choose(id(`${base}/price/schedule/1/days`), 'weekdays');
-    await typeInto(id(`${base}/price/schedule/1/from`), '16');
-    await typeInto(id(`${base}/price/schedule/1/to`), '21');
+    // times as a tariff sheet prints them
+    await typeInto(id(`${base}/price/schedule/1/from`), '4 pm');
+    await typeInto(id(`${base}/price/schedule/1/to`), '9:00 p.m.');
     // weekends 16-21 are in no period yet: said once at the tariff, with the hour
     const gap = page.locator(`[data-field="${base}/price/schedule"] > .field-msg`);
     await gap.waitFor({ state: 'visible' });
-    assert.equal(await gap.textContent(), 'every hour must fall in one period: weekends 16:00-17:00 in January is in none');
+    assert.equal(await gap.textContent(), 'every hour must fall in one period: weekends 16:00-21:00 in January is in none');
     await tap('[data-action="add-period"]');
     await typeInto(id(`${base}/price/schedule/2/name`), 'off-peak');
     await typeInto(id(`${base}/price/schedule/2/amount`), '0.12');
     await choose(id(`${base}/price/schedule/2/days`), 'weekends');
-    await typeInto(id(`${base}/price/schedule/2/from`), '16');
-    await typeInto(id(`${base}/price/schedule/2/to`), '21');
+    await typeInto(id(`${base}/price/schedule/2/from`), '16:00');
+    await typeInto(id(`${base}/price/schedule/2/to`), '21.00');
     await gap.waitFor({ state: 'hidden' });
     const fuelsTaps = taps - houseTaps;
 
@@ -103,7 +104,8 @@ describe('Hot water and time-of-use electricity (Chromium, touch)', () => {
     assert.deepEqual({ houseTaps, fuelsTaps, systemsTaps }, { houseTaps: 8, fuelsTaps: 20, systemsTaps: 10 });
 
     await tap('#tab-verdict');
-    await verdictSettled(page);
+    // the charts repaint the verdict when they are drawn: the screenshots wait for them
+    await chartsSettled(page);
     await page.waitForSelector('#services-table');
     for (const [w, h] of [[768, 1024], [390, 844]]) {
       await page.setViewportSize({ width: w, height: h });
@@ -116,6 +118,9 @@ describe('Hot water and time-of-use electricity (Chromium, touch)', () => {
     const [download] = await Promise.all([page.waitForEvent('download'), page.tap('[data-action="export-json"]')]);
     const doc = JSON.parse(readFileSync(await download.path(), 'utf8'));
     assert.equal(doc.demand.water_heating.people, 3);
+    const tariff = doc.options.find((o) => o.price?.schedule)?.price.schedule;
+    assert.deepEqual(tariff.map((p) => [p.name, p.days ?? 'all', p.hours]),
+      [['off-peak', 'all', [[21, 16]]], ['peak', 'weekdays', [[16, 21]]], ['off-peak', 'weekends', [[16, 21]]]]);
     assert.equal(doc.options.find((o) => o.water_heater)?.water_heater.kind, 'heat-pump-water-heater');
     const { results, ...scenario } = doc;
     const answer = await cliEvaluate(scenario);

@@ -401,8 +401,19 @@ TEST(time_of_use, a_schedule_as_typed_gets_a_message_at_its_field) {
     e = error_for({{{"name", "all"}, {"amount", 21}, {"hours", {{0, 24}}}}});
     EXPECT_EQ(e.at("path"), "/options/0/price/schedule/0/amount");
     EXPECT_EQ(e.at("message"), "must be a price per kWh below 10, got 21 (cents? 21 cents is 0.21)");
-    e = error_for({{{"name", "all"}, {"amount", 0.2}, {"hours", {{0, 16.5}}}}});
+    e = error_for({{{"name", "all"}, {"amount", 0.2}, {"hours", {{0, 16.25}}}}});
     EXPECT_EQ(e.at("path"), "/options/0/price/schedule/0/hours/0/1");
+    EXPECT_EQ(e.at("message"), "must be a whole or half hour from 0 to 24 (16.5 for 16:30; a boundary at other minutes is not supported), got 16.25 (16:15)");
+    // A gap is named over its whole length, to the half hour.
+    e = error_for({{{"name", "all"}, {"amount", 0.2}, {"hours", {{0, 16.5}}}}});
+    EXPECT_EQ(e.at("path"), "/options/0/price/schedule");
+    EXPECT_EQ(e.at("message"), "every hour must fall in one period: weekdays 16:30-24:00 in January is in none");
+    e = error_for({{{"name", "peak"}, {"amount", 0.3}, {"hours", {{16, 21}}}, {"days", "weekdays"}},
+                   {{"name", "other"}, {"amount", 0.1}, {"hours", {{21, 16}}}}});
+    EXPECT_EQ(e.at("message"), "every hour must fall in one period: weekends 16:00-21:00 in January is in none");
+    e = error_for({{{"name", "day"}, {"amount", 0.2}, {"hours", {{7, 7}}}}});
+    EXPECT_EQ(e.at("path"), "/options/0/price/schedule/0/hours/0/1");
+    EXPECT_EQ(e.at("message"), "ends where it starts: a period needs at least half an hour (0 to 24 is the whole day)");
     // One pair typed without the outer brackets is that pair; 22 to 6 runs past midnight.
     const auto accepted = error_for({{{"name", "day"}, {"amount", 0.2}, {"hours", {6, 22}}}, {{"name", "night"}, {"amount", 0.1}, {"hours", {22, 6}}}});
     EXPECT_TRUE(accepted.is_null()) << accepted.dump();
@@ -412,7 +423,7 @@ TEST(time_of_use, split_by_period_gives_every_kwh_to_one_period) {
     fw::price_schedule schedule(2);
     schedule[0] = {"day", 0.3, {}, fw::day_set::all, {}};
     schedule[1] = {"night", 0.1, {}, fw::day_set::all, {}};
-    for (int h = 0; h < 24; ++h) (h >= 7 && h < 23 ? schedule[0] : schedule[1]).hours[static_cast<std::size_t>(h)] = true;
+    for (int h = 0; h < 48; ++h) (h >= 14 && h < 46 ? schedule[0] : schedule[1]).half_hours[static_cast<std::size_t>(h)] = true;
     schedule[0].months.fill(true);
     schedule[1].months.fill(true);
     ASSERT_FALSE(fw::schedule_coverage_problem(schedule));
@@ -423,6 +434,35 @@ TEST(time_of_use, split_by_period_gives_every_kwh_to_one_period) {
     double shape = 0;
     for (double share : fw::hot_water_day_shape()) shape += share;
     EXPECT_NEAR(shape, 1.0, 1e-12);
+}
+
+TEST(time_of_use, a_half_hour_boundary_splits_the_hour_it_falls_in) {
+    // A UK Economy 7 tariff as printed, night 00:30-07:30 (invented prices): 7 of the day's 24 hours are night.
+    json s = scenario(json::array({heat_pump("hp", "electric-resistance",
+                                             {{"per", "kWh"},
+                                              {"schedule", json::array({{{"name", "night"}, {"amount", 0.08}, {"hours", {0.5, 7.5}}},
+                                                                        {{"name", "day"}, {"amount", 0.30}, {"hours", {{7.5, 24}, {0, 0.5}}}}})}})}));
+    s["climate"] = climate();
+    EXPECT_TRUE(errors_of(s).empty()) << errors_of(s).dump();
+    fw::price_schedule schedule(2);
+    schedule[0] = {"night", 0.08, {}, fw::day_set::all, {}};
+    schedule[1] = {"day", 0.30, {}, fw::day_set::all, {}};
+    for (int h = 0; h < 48; ++h) (h >= 1 && h < 15 ? schedule[0] : schedule[1]).half_hours[static_cast<std::size_t>(h)] = true;
+    schedule[0].months.fill(true);
+    schedule[1].months.fill(true);
+    ASSERT_FALSE(fw::schedule_coverage_problem(schedule));
+    // By hand: a flat 8760 kWh gives night 8760 x 7/24 = 2555 kWh; the mean price is (7 x 0.08 + 17 x 0.30) / 24.
+    const auto flat = fw::split_by_period(schedule, fw::flat_profile(8760, false));
+    EXPECT_NEAR(flat[0].kwh, 2555, 1e-9);
+    EXPECT_NEAR(flat[1].kwh, 8760 - 2555, 1e-9);
+    EXPECT_NEAR(fw::mean_price_per_kwh(schedule), (7 * 0.08 + 17 * 0.30) / 24, 1e-12);
+    // Use only from 0:00 to 1:00 (steady within the hour): half of it before 0:30 (day), half after (night).
+    fw::month_hour_kwh midnight{};
+    for (auto& month : midnight) month[0] = 10;
+    const auto split = fw::split_by_period(schedule, midnight);
+    EXPECT_NEAR(split[0].kwh, 60, 1e-9);
+    EXPECT_NEAR(split[1].kwh, 60, 1e-9);
+    EXPECT_NEAR(split[0].cost + split[1].cost, 60 * 0.08 + 60 * 0.30, 1e-9);
 }
 
 // ---- Gas by volume and altitude ----

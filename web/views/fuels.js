@@ -2,7 +2,7 @@
 // price in a sale unit the catalog lists (or a custom fuel by composition),
 // fixed charges, the heating value on the bill, and emission settings.
 import { h } from '../dom.js';
-import { checkField, numberField, radioField, selectField, textField } from '../fields.js';
+import { checkField, clockField, numberField, radioField, selectField, textField } from '../fields.js';
 import { burnsFuelAnywhere, equipmentElectricityPrice } from '../equipment.js';
 import { fuelId } from '../scenario.js';
 import { SALE_UNITS, unitLabel } from '../units.js';
@@ -176,8 +176,8 @@ function timeOfUseFields(ctx, base, entry, currency) {
         textField(ctx, { label: `Period ${k + 1}`, path: `${p}/name`, value: row.name, maxlength: 40, placeholder: 'peak' }),
         numberField(ctx, { label: `Price (${currency})`, path: `${p}/amount`, value: row.amount, unit: 'per kWh' }),
         selectField(ctx, { label: 'Days', path: `${p}/days`, value: row.days ?? 'all', choices: DAY_CHOICES }),
-        numberField(ctx, { label: 'From hour', path: `${p}/from`, value: row.from, placeholder: '16' }),
-        numberField(ctx, { label: 'To hour', path: `${p}/to`, value: row.to, placeholder: '21' }),
+        clockField(ctx, { label: 'From', path: `${p}/from`, value: row.from, placeholder: '16:00' }),
+        clockField(ctx, { label: 'To', path: `${p}/to`, value: row.to, placeholder: '21:00' }),
         textField(ctx, { label: 'Months', path: `${p}/months_text`, value: row.months_text ?? '', maxlength: 40, placeholder: 'all year' })),
       h('button', { type: 'button', class: 'quiet', dataset: { action: 'remove-period', fuel: base, index: String(k) }, text: `Remove period ${k + 1}` }),
       h('p', { class: 'field-msg', hidden: true }));
@@ -185,7 +185,7 @@ function timeOfUseFields(ctx, base, entry, currency) {
   // the schedule's own message (a gap or an overlap) first, above the rows
   nodes.push(h('div', { class: 'field rows', id: `${base.slice(1).replace('/', '-')}-schedule`, dataset: { field: `${base}/price/schedule` } },
     h('p', { class: 'field-msg', hidden: true }), rows));
-  nodes.push(h('p', { class: 'hint', text: 'Hours from 0 to 24 on the tariff sheet\'s clock (22 to 6 runs past midnight); months as 6-9 or 11-3, empty for the whole year. Every hour of the week must be in one period: give a period two rows under the same name for two spans of hours.' }));
+  nodes.push(h('p', { class: 'hint', text: 'Times as the tariff sheet prints them, on the hour or half hour: 16, 16:30 or 4:30 pm (22:00 to 6:00 runs past midnight); months as 6-9, 11-3 or Jun-Sep, empty for the whole year. Every hour of the week must be in one period: give a period two rows under the same name for two spans of hours.' }));
   nodes.push(h('button', { type: 'button', class: 'secondary', dataset: { action: 'add-period', fuel: base }, text: 'Add a period' }));
   return h('div', { class: 'time-of-use' }, nodes);
 }

@@ -3,6 +3,7 @@
 // shown; the visitor's two questions as big buttons; the prices, locked to the
 // file; the ranked answer, every number tappable to its trace.
 import { h } from '../dom.js';
+import { clockTime } from '../format.js';
 import { ENERGY_KWH, unitLabel } from '../units.js';
 import { HOUSE_SIZES } from '../kiosk-scenario.js';
 
@@ -89,7 +90,7 @@ function tiersText(p, format) {
 function scheduleText(p, format) {
   return p.schedule.map((r) => {
     const spans = Array.isArray(r.hours?.[0]) ? r.hours : [r.hours];
-    const when = spans.map(([a, b]) => `${a}-${b} h`).join(' and ');
+    const when = spans.map(([a, b]) => `${clockTime(a)}–${clockTime(b)}`).join(' and ');
     const days = r.days && r.days !== 'all' ? ` ${r.days}` : '';
     const months = Array.isArray(r.months) ? ` in months ${r.months.join(', ')}` : '';
     return `${r.name} ${format.price(r.amount)} per kWh ${when}${days}${months}`;

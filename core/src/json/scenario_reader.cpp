@@ -304,27 +304,35 @@ given_heating_value read_given_heating_value(const json& hv, const std::string& 
 
 namespace {
 
-/// One [from, to] pair of whole local hours into the period's hours (to < from runs past midnight).
-void read_hour_span(const json& pair, const std::string& path, std::array<bool, 24>& hours) {
+/// "16:15" for 16.25 h: hours as a clock shows them (minutes rounded).
+std::string clock_text(double hours) {
+    const long minutes = std::lround(hours * 60);
+    const long m = minutes % 60;
+    return std::to_string(minutes / 60) + (m < 10 ? ":0" : ":") + std::to_string(m);
+}
+
+/// One [from, to] pair of local hours, whole or half (16.5 is 16:30), into the period's half hours (to < from runs past midnight).
+void read_hour_span(const json& pair, const std::string& path, std::array<bool, 48>& half_hours) {
     if (!pair.is_array() || pair.size() != 2)
         throw input_error(path, "must be a pair of hours [from, to], e.g. [16, 21] for 16:00 to 21:00");
-    int ends[2] = {0, 0};
+    int ends[2] = {0, 0};  // in half hours
     for (std::size_t e = 0; e < 2; ++e) {
         if (!pair[e].is_number())
             throw input_error(path + "/" + std::to_string(e), std::string("is required: the hour the period ") +
-                                                                  (e == 0 ? "starts" : "ends") + ", a whole hour from 0 to 24");
+                                                                  (e == 0 ? "starts" : "ends") + ", from 0 to 24 (16.5 for 16:30)");
         const double value = pair[e].get<double>();
-        if (!(value >= 0 && value <= 24) || value != std::floor(value))
-            throw input_error(path + "/" + std::to_string(e), "must be a whole hour from 0 to 24 (a period boundary inside an hour is "
-                                                              "not supported), got " + format_number(value));
-        ends[e] = static_cast<int>(value);
+        if (!(value >= 0 && value <= 24) || 2 * value != std::floor(2 * value))
+            throw input_error(path + "/" + std::to_string(e), "must be a whole or half hour from 0 to 24 (16.5 for 16:30; a boundary at "
+                                                              "other minutes is not supported), got " + format_number(value) +
+                                                              (value >= 0 && value <= 24 ? " (" + clock_text(value) + ")" : ""));
+        ends[e] = static_cast<int>(2 * value);
     }
-    if (ends[0] == ends[1] || (ends[0] == 24 && ends[1] == 0))
-        throw input_error(path + "/1", "ends where it starts: a period needs at least one hour (0 to 24 is the whole day)");
-    // [from, to) in local hours; to < from runs past midnight ([22, 6] is 22:00 to 6:00).
-    for (int h = ends[0]; h < (ends[0] < ends[1] ? ends[1] : 24); ++h) hours[static_cast<std::size_t>(h)] = true;
+    if (ends[0] == ends[1] || (ends[0] == half_hours_per_day && ends[1] == 0))
+        throw input_error(path + "/1", "ends where it starts: a period needs at least half an hour (0 to 24 is the whole day)");
+    // [from, to) in local time; to < from runs past midnight ([22, 6] is 22:00 to 6:00).
+    for (int s = ends[0]; s < (ends[0] < ends[1] ? ends[1] : half_hours_per_day); ++s) half_hours[static_cast<std::size_t>(s)] = true;
     if (ends[0] > ends[1])
-        for (int h = 0; h < ends[1]; ++h) hours[static_cast<std::size_t>(h)] = true;
+        for (int s = 0; s < ends[1]; ++s) half_hours[static_cast<std::size_t>(s)] = true;
 }
 
 }  // namespace
@@ -352,14 +360,14 @@ price_schedule read_price_schedule(const json& list, const std::string& path, st
                                                     (period.amount_per_kwh < 100 ? " (cents? " + format_number(period.amount_per_kwh) + " cents is " +
                                                                                        format_number(period.amount_per_kwh / 100) + ")"
                                                                                  : ""));
-        if (!period_json.contains("hours")) throw input_error(item + "/hours", "is required: [[from, to], ...] in whole local hours, e.g. [[16, 21]]");
+        if (!period_json.contains("hours")) throw input_error(item + "/hours", "is required: [[from, to], ...] in local hours, e.g. [[16, 21]] or [[0.5, 7.5]] for 0:30 to 7:30");
         const auto& hours = period_json.at("hours");
         if (hours.is_array() && hours.size() == 2 && !hours[0].is_array() && !hours[1].is_array()) {
-            read_hour_span(hours, item + "/hours", period.hours);  // one pair, written without the outer brackets
+            read_hour_span(hours, item + "/hours", period.half_hours);  // one pair, written without the outer brackets
         } else {
             if (!hours.is_array() || hours.empty())
-                throw input_error(item + "/hours", "must be a list of [from, to] pairs in whole local hours, e.g. [[7, 11], [17, 21]]");
-            for (std::size_t k = 0; k < hours.size(); ++k) read_hour_span(hours[k], item + "/hours/" + std::to_string(k), period.hours);
+                throw input_error(item + "/hours", "must be a list of [from, to] pairs in local hours, e.g. [[7, 11], [17, 21]]");
+            for (std::size_t k = 0; k < hours.size(); ++k) read_hour_span(hours[k], item + "/hours/" + std::to_string(k), period.half_hours);
         }
         const auto days = optional_string(period_json, "days", item).value_or("all");
         if (days == "all") period.days = day_set::all;

@@ -7,8 +7,8 @@ namespace fw {
 
 namespace {
 
-bool covers(const schedule_period& period, int month, int hour, bool weekend) {
-    if (!period.months[static_cast<std::size_t>(month)] || !period.hours[static_cast<std::size_t>(hour)]) return false;
+bool covers(const schedule_period& period, int month, int half_hour, bool weekend) {
+    if (!period.months[static_cast<std::size_t>(month)] || !period.half_hours[static_cast<std::size_t>(half_hour)]) return false;
     return period.days == day_set::all || (period.days == day_set::weekends) == weekend;
 }
 
@@ -18,28 +18,33 @@ const char* const month_names[12] = {"January", "February", "March",     "April"
 }  // namespace
 
 std::optional<schedule_clash> schedule_coverage_problem(const price_schedule& schedule) {
+    // The first two periods covering a half hour (-1: none).
+    const auto covering = [&](int month, int half_hour, bool weekend) {
+        std::pair<int, int> found{-1, -1};
+        for (std::size_t p = 0; p < schedule.size() && found.second < 0; ++p)
+            if (covers(schedule[p], month, half_hour, weekend)) (found.first < 0 ? found.first : found.second) = static_cast<int>(p);
+        return found;
+    };
     for (int month = 0; month < 12; ++month)
         for (const bool weekend : {false, true})
-            for (int hour = 0; hour < 24; ++hour) {
-                schedule_clash found{month, hour, weekend, -1, -1};
-                for (std::size_t p = 0; p < schedule.size(); ++p) {
-                    if (!covers(schedule[p], month, hour, weekend)) continue;
-                    if (found.first < 0) {
-                        found.first = static_cast<int>(p);
-                    } else {
-                        found.second = static_cast<int>(p);
-                        return found;
-                    }
-                }
-                if (found.first < 0) return found;
+            for (int half_hour = 0; half_hour < half_hours_per_day; ++half_hour) {
+                const auto found = covering(month, half_hour, weekend);
+                if (found.first >= 0 && found.second < 0) continue;
+                schedule_clash clash{month, half_hour, 1, weekend, found.first, found.second};
+                while (half_hour + clash.half_hours < half_hours_per_day && covering(month, half_hour + clash.half_hours, weekend) == found)
+                    ++clash.half_hours;
+                return clash;
             }
     return std::nullopt;
 }
 
 std::string clash_text(const schedule_clash& clash) {
-    const auto two = [](int h) { return (h < 10 ? "0" : "") + std::to_string(h) + ":00"; };
-    return std::string(clash.weekend ? "weekends " : "weekdays ") + two(clash.hour) + "-" + two(clash.hour + 1) + " in " +
-           month_names[clash.month];
+    const auto clock = [](int half_hour) {
+        const int h = half_hour / 2;
+        return (h < 10 ? "0" : "") + std::to_string(h) + (half_hour % 2 ? ":30" : ":00");
+    };
+    return std::string(clash.weekend ? "weekends " : "weekdays ") + clock(clash.half_hour) + "-" + clock(clash.half_hour + clash.half_hours) +
+           " in " + month_names[clash.month];
 }
 
 std::vector<period_use> split_by_period(const price_schedule& schedule, const month_hour_kwh& kwh) {
@@ -54,16 +59,17 @@ std::vector<period_use> split_by_period(const price_schedule& schedule, const mo
     }
     for (int month = 0; month < 12; ++month)
         for (int hour = 0; hour < 24; ++hour)
-            for (const bool weekend : {false, true}) {
-                const double share = weekend ? 1 - weekday_share : weekday_share;
-                for (std::size_t p = 0; p < schedule.size(); ++p)
-                    if (covers(schedule[p], month, hour, weekend)) {
-                        const double used = kwh[static_cast<std::size_t>(month)][static_cast<std::size_t>(hour)] * share;
-                        out[group_of[p]].kwh += used;
-                        out[group_of[p]].cost += used * schedule[p].amount_per_kwh;
-                        break;
-                    }
-            }
+            for (const bool weekend : {false, true})
+                for (const int half_hour : {2 * hour, 2 * hour + 1}) {
+                    const double share = (weekend ? 1 - weekday_share : weekday_share) / 2;
+                    for (std::size_t p = 0; p < schedule.size(); ++p)
+                        if (covers(schedule[p], month, half_hour, weekend)) {
+                            const double used = kwh[static_cast<std::size_t>(month)][static_cast<std::size_t>(hour)] * share;
+                            out[group_of[p]].kwh += used;
+                            out[group_of[p]].cost += used * schedule[p].amount_per_kwh;
+                            break;
+                        }
+                }
     return out;
 }
 

@@ -15,12 +15,16 @@ enum class day_set { all, weekdays, weekends };
 struct schedule_period {
     std::string name;
     double amount_per_kwh = 0;
-    std::array<bool, 24> hours{};   ///< hour h covers h:00 to h+1:00 local time
+    std::array<bool, 48> half_hours{};  ///< half hour s covers s/2 h to (s+1)/2 h local time (slot 33 is 16:30-17:00)
     day_set days = day_set::all;
     std::array<bool, 12> months{};  ///< January first
 };
 
-/// A time-of-use price: its rows cover every hour of every day of the year once; rows may share a name (and then a price).
+/// [1] Half hours in a day: a period's boundaries fall on whole or half hours (as UK half-hourly settlement and
+/// tariffs such as 0:30-7:30 have them).
+inline constexpr int half_hours_per_day = 48;
+
+/// A time-of-use price: its rows cover every half hour of every day of the year once; rows may share a name (and then a price).
 using price_schedule = std::vector<schedule_period>;
 
 /// [kWh] Electricity by month (January first) and hour of the day (0 = 0:00-1:00), over all days of the month.
@@ -30,19 +34,21 @@ using month_hour_kwh = std::array<std::array<double, 24>, 12>;
 /// most 2 weekdays more or fewer than 5/7 of its days; stated, not a calendar of one year).
 inline constexpr double weekday_share = 5.0 / 7.0;
 
-/// An hour of the week no period covers (`second` < 0) or two periods cover.
+/// A half hour of the week no period covers (`second` < 0) or two periods cover.
 struct schedule_clash {
-    int month = 0;  ///< 0 = January
-    int hour = 0;
+    int month = 0;      ///< 0 = January
+    int half_hour = 0;  ///< where it starts: 0 = 0:00-0:30
+    int half_hours = 1;  ///< how long it lasts: the following half hours in the same periods (or none)
     bool weekend = false;
     int first = -1, second = -1;  ///< period indices; first < 0: no period
 };
 
-/// The first hour (by month, weekday before weekend, hour) in no period or in two; nullopt when every
-/// hour of every day type and month falls in exactly one period.
+/// The first run of half hours (by month, weekday before weekend, time of day) in no period or in two, as long
+/// as the same periods (or none) cover it; nullopt when every half hour of every day type and month falls in
+/// exactly one period.
 std::optional<schedule_clash> schedule_coverage_problem(const price_schedule& schedule);
 
-/// "weekdays 14:00-15:00 in July" for messages.
+/// "weekdays 14:00-16:30 in July" for messages.
 std::string clash_text(const schedule_clash& clash);
 
 /// One period's share of a year's electricity.
@@ -52,8 +58,8 @@ struct period_use {
     double cost = 0;  ///< [currency/year]
 };
 
-/// kWh and cost by period: each month-hour's kWh split 5/7 weekdays, 2/7 weekends, then summed into the
-/// period covering it (rows of one name are one period, in the order their names first appear). The periods'
+/// kWh and cost by period: each month-hour's kWh split 5/7 weekdays, 2/7 weekends and evenly between the
+/// hour's two halves (use is taken as steady within an hour), then summed into the period covering each half (rows of one name are one period, in the order their names first appear). The periods'
 /// kWh add up to the profile's total.
 std::vector<period_use> split_by_period(const price_schedule& schedule, const month_hour_kwh& kwh);
 
