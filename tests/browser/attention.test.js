@@ -8,7 +8,7 @@ import { mkdirSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { after, before, describe, test } from 'node:test';
 
-import { tabletSession, verdictSettled } from './chromium-page.js';
+import { sidewaysOverflow, tabletSession, verdictSettled } from './chromium-page.js';
 import { siteDir } from '../node/helpers.js';
 import { serve } from './server.js';
 
@@ -39,6 +39,28 @@ async function typeInto(page, selector, text) {
   await page.fill(selector, '');
   await page.type(selector, text);
 }
+
+describe('The demo on a phone (Chromium, 390x844 with touch)', () => {
+  test('no tab is wider than the phone, with hot water and a time-of-use tariff open', { timeout: TIMEOUT }, async () => {
+    const session = await open({ width: 390, height: 844 });
+    const { page } = session;
+    try {
+      await page.tap('#tab-house');
+      await page.tap(id('/demand/water_heating/enabled'));
+      await page.tap('#tab-fuels');
+      await page.tap('[data-path$="/price/time_of_use"]');
+      await page.waitForSelector('[data-action="add-period"]');
+      for (const tab of ['house', 'fuels', 'systems', 'verdict', 'saved']) {
+        await page.tap(`#tab-${tab}`);
+        const overflow = await sidewaysOverflow(page, 390);
+        assert.ok(overflow <= 0, `the ${tab} tab is ${overflow} px wider than the phone`);
+      }
+      assert.deepEqual(session.consoleErrors, []);
+    } finally {
+      await session.close();
+    }
+  });
+});
 
 describe('A missing heat loss (Chromium, 768x1024 with touch)', () => {
   test('is said at the UA field, or at the design heat loss when that is how it is known', { timeout: TIMEOUT }, async () => {

@@ -40,6 +40,15 @@ export async function chartsSettled(page) {
   });
 }
 
+/**
+ * [px] How far the page is wider than `width`, the viewport set (0 when it fits). A phone's browser widens
+ * its layout viewport to what the page lays out, so scrollWidth - clientWidth stays 0 there; the page's
+ * width is compared with the one asked for instead.
+ */
+export async function sidewaysOverflow(page, width) {
+  return page.evaluate((w) => Math.max(document.documentElement.scrollWidth, window.innerWidth) - w, width);
+}
+
 /** A phone-or-tablet touch screen at one device pixel per CSS pixel, as the tablet tests use. */
 export const TOUCH = { hasTouch: true, isMobile: true, deviceScaleFactor: 1 };
 

@@ -12,7 +12,7 @@ import { mkdirSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { after, before, describe, test } from 'node:test';
 
-import { tabletSession, verdictSettled } from './chromium-page.js';
+import { sidewaysOverflow, tabletSession, verdictSettled } from './chromium-page.js';
 import { siteDir } from '../node/helpers.js';
 import { serve } from './server.js';
 
@@ -260,8 +260,8 @@ describe('House tab: bills as printed, weather file, climate library (Chromium, 
     await page.setViewportSize({ width: 390, height: 844 });
     await page.screenshot({ path: join(ARTIFACTS, 'chromium-house-390.png'), fullPage: true });
     assert.doesNotMatch(await page.textContent('#panel-house'), /\bnull\b|undefined|NaN/);
-    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
-    assert.ok(overflow <= 0, `the page scrolls sideways by ${overflow} px at 390 px`);
+    const overflow = await sidewaysOverflow(page, 390);
+    assert.ok(overflow <= 0, `the page is ${overflow} px wider than 390 px`);
     assert.deepEqual(consoleErrors, []);
   });
 });

@@ -11,7 +11,7 @@ import { mkdirSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { after, before, describe, test } from 'node:test';
 
-import { importAndWait, tabletSession, verdictSettled } from './chromium-page.js';
+import { importAndWait, sidewaysOverflow, tabletSession, verdictSettled } from './chromium-page.js';
 import { siteDir } from '../node/helpers.js';
 import { cliEvaluate } from './scenario-fixture.js';
 import { serve } from './server.js';
@@ -201,9 +201,11 @@ describe('Equipment as rated and sold (Chromium, 768x1024 with touch)', () => {
       // the cards themselves, readable at their size
       await page.locator('.system-card[data-system-id="heat-pump"]').screenshot({ path: join(ARTIFACTS, `chromium-systems-heat-pump-${width}.png`) });
       await page.locator('.system-card[data-system-id="gas-furnace"]').screenshot({ path: join(ARTIFACTS, `chromium-systems-furnace-${width}.png`) });
-      const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
-      assert.ok(overflow <= 0, `the Systems tab scrolls sideways by ${overflow} px at ${width} px`);
+      const overflow = await sidewaysOverflow(page, width);
+      assert.ok(overflow <= 0, `the Systems tab is ${overflow} px wider than ${width} px`);
       await page.tap('#tab-fuels');
+      const fuelsOverflow = await sidewaysOverflow(page, width);
+      assert.ok(fuelsOverflow <= 0, `the Fuels tab (with a fixed charge) is ${fuelsOverflow} px wider than ${width} px`);
       await page.locator('.fuel-card', { has: page.locator('input[data-path$="/keep_service"]') }).screenshot({ path: join(ARTIFACTS, `chromium-fuels-gas-${width}.png`) });
       await page.tap('#tab-verdict');
       await verdictSettled(page);
