@@ -150,7 +150,9 @@ function paintSummary() {
   } else if (!best || r.errors?.length) {
     $('#summary-text').textContent = verdict.errors.length || verdict.fieldErrorCount ? 'Some entries need attention.' : '';
   } else {
-    $('#summary-text').textContent = `Cheapest to run: ${best.label ?? best.id}, ${ctx.format.money(best.annual_cost)} a year`;
+    // in parts: on a phone the option's name takes one line (cut if it must be) and its cost the next
+    $('#summary-text').replaceChildren(h('span', { class: 'what', text: best.label ?? best.id }), h('span', { class: 'sep', text: ': ' }),
+      h('span', { class: 'cost', text: `cheapest at ${ctx.format.money(best.annual_cost)} a year` }));
   }
   bar.hidden = !$('#summary-text').textContent;
 }

@@ -46,6 +46,10 @@ describe('The demo on a phone (Chromium, 390x844 with touch)', () => {
     const { page } = session;
     try {
       await page.tap('#tab-house');
+      // the bar at the foot of an input tab: the cheapest option's cost a year is never cut
+      const cost = await page.$eval('#summary-text .cost', (span) => ({ text: span.textContent, cut: span.scrollWidth > span.clientWidth }));
+      assert.match(cost.text, /^cheapest at \$[\d,]+ a year$/);
+      assert.equal(cost.cut, false, 'the cost a year shows whole');
       await page.tap(id('/demand/water_heating/enabled'));
       await page.tap('#tab-fuels');
       await page.tap('[data-path$="/price/time_of_use"]');
