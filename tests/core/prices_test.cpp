@@ -55,6 +55,18 @@ TEST(prices, every_problem_is_reported_not_only_the_first) {
     EXPECT_EQ(result.at("errors").size(), 3u) << result.dump();
 }
 
+TEST(prices, every_row_of_a_time_of_use_tariff_is_checked) {
+    // The invented time-of-use sample with two rows spoiled: both are said, each at its row.
+    auto doc = json::parse(read_text("data/examples/supplier-prices-time-of-use.json"));
+    auto& schedule = doc["prices"][0]["schedule"];
+    schedule[0].erase("amount");
+    schedule[2]["hours"] = json::array({json::array({7, 16.25}), json::array({21, 23})});
+    const auto result = json::parse(fw::check_prices_json(doc.dump(), "2026-12-01"));
+    ASSERT_EQ(result.at("errors").size(), 2u) << result.dump();
+    EXPECT_EQ(result.at("errors")[0].at("path"), "/prices/0/schedule/0/amount");
+    EXPECT_EQ(result.at("errors")[1].at("path"), "/prices/0/schedule/2/hours/0/1");
+}
+
 TEST(prices, the_climate_of_the_area_is_checked_as_a_scenario_reads_it) {
     // An invented climate of the supplier's area, the same object as a scenario's climate.
     auto doc = json::parse(read_text("data/examples/supplier-prices.json"));

@@ -436,6 +436,23 @@ TEST(time_of_use, split_by_period_gives_every_kwh_to_one_period) {
     EXPECT_NEAR(shape, 1.0, 1e-12);
 }
 
+TEST(time_of_use, every_row_of_a_tariff_is_read_before_any_is_refused) {
+    // A tariff typed row by row: the second row's price and the third row's end hour are both said at once.
+    json s = scenario(json::array({heat_pump("hp", "electric-resistance",
+                                             {{"per", "kWh"},
+                                              {"schedule", json::array({{{"name", "off-peak"}, {"amount", 0.12}, {"hours", {21, 16}}},
+                                                                        {{"name", "peak"}, {"hours", {16, 21}}},
+                                                                        {{"name", "shoulder"}, {"amount", 0.2}, {"hours", {{16, 16.2}}}}})}})}));
+    s["climate"] = climate();
+    const auto errors = errors_of(s);
+    ASSERT_EQ(errors.size(), 2u) << errors.dump();
+    EXPECT_EQ(errors[0].at("path"), "/options/0/price/schedule/1/amount");
+    EXPECT_EQ(errors[0].at("message"), "is required (a number)");
+    EXPECT_EQ(errors[1].at("path"), "/options/0/price/schedule/2/hours/0/1");
+    EXPECT_EQ(errors[1].at("message"),
+              "must be a whole or half hour from 0 to 24 (16.5 for 16:30; a boundary at other minutes is not supported), got 16.2 (16:12)");
+}
+
 TEST(time_of_use, a_half_hour_boundary_splits_the_hour_it_falls_in) {
     // A UK Economy 7 tariff as printed, night 00:30-07:30 (invented prices): 7 of the day's 24 hours are night.
     json s = scenario(json::array({heat_pump("hp", "electric-resistance",

@@ -8,9 +8,11 @@
 namespace fw {
 
 input_error::input_error(std::string path, std::string message)
-    : std::runtime_error(path.empty() ? message : path + ": " + message),
-      path_(std::move(path)),
-      message_(std::move(message)) {}
+    : std::runtime_error(path.empty() ? message : path + ": " + message), issues_{{std::move(path), std::move(message)}} {}
+
+input_error::input_error(std::vector<issue> issues)
+    : std::runtime_error(issues.empty() ? std::string("input error") : format_issue(issues.front())),
+      issues_(issues.empty() ? std::vector<issue>{{"", "input error"}} : std::move(issues)) {}
 
 std::string format_issue(const issue& item) {
     return item.path.empty() ? item.message : item.path + ": " + item.message;

@@ -12,16 +12,19 @@ struct issue {
     std::string message;
 };
 
-/// Thrown inside the core for invalid input; entry points catch it and return it as an `issue`.
+/// Thrown inside the core for invalid input; entry points catch it and return its `issues()`.
 class input_error : public std::runtime_error {
 public:
     input_error(std::string path, std::string message);
-    const std::string& path() const noexcept { return path_; }
-    const std::string& message() const noexcept { return message_; }
+    /// Several problems found together (every row of a list read before any is refused); at least one.
+    explicit input_error(std::vector<issue> issues);
+    const std::string& path() const noexcept { return issues_.front().path; }
+    const std::string& message() const noexcept { return issues_.front().message; }
+    /// Every problem this error carries, the first being path() and message().
+    const std::vector<issue>& issues() const noexcept { return issues_; }
 
 private:
-    std::string path_;
-    std::string message_;
+    std::vector<issue> issues_;
 };
 
 /// "path: message", or the message alone when the path is empty.

@@ -138,7 +138,7 @@ std::string convert_json(const std::string& request_json) noexcept {
         const double result = convert(*value, *from, *to, "/value");
         return dump_text(json{{"value", result}, {"unit", *to}});
     } catch (const input_error& error) {
-        return error_response({{error.path(), error.message()}});
+        return error_response(error.issues());
     } catch (const std::exception& error) {
         return error_response({{"", std::string("internal error: ") + error.what()}});
     }

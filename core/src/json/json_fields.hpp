@@ -65,7 +65,7 @@ std::string guarded_entry(const std::string& request_text, Body body) noexcept {
         require_finite_output(out);
         return dump_text(out);
     } catch (const input_error& error) {
-        return error_response({{error.path(), error.message()}});
+        return error_response(error.issues());
     } catch (const std::exception& error) {
         return error_response({{"", std::string("internal error: ") + error.what()}});
     } catch (...) {
@@ -85,7 +85,7 @@ void collect_errors(std::vector<issue>& errors, Body&& body) {
     try {
         body();
     } catch (const input_error& error) {
-        errors.push_back({error.path(), error.message()});
+        errors.insert(errors.end(), error.issues().begin(), error.issues().end());
     }
 }
 

@@ -265,7 +265,7 @@ std::string check_prices_json(const std::string& text, const std::string& today)
             out["climate"] = doc.at("climate");
         });
     } catch (const input_error& e) {
-        c.error(e.path(), e.message());
+        for (const auto& found : e.issues()) c.error(found.path, found.message);
     } catch (const std::exception& e) {
         c.error("", std::string("internal error: ") + e.what());
     }

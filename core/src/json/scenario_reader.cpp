@@ -342,7 +342,9 @@ price_schedule read_price_schedule(const json& list, const std::string& path, st
         throw input_error(path, "needs at least one period (name, price per kWh, hours): add one, or price electricity by one amount");
     if (list.size() > 24) throw input_error(path, "at most 24 periods, got " + std::to_string(list.size()));
     price_schedule schedule;
-    for (std::size_t i = 0; i < list.size(); ++i) {
+    // Every row is read and its problem said before any is refused: a tariff is typed row by row.
+    std::vector<issue> row_errors;
+    for (std::size_t i = 0; i < list.size(); ++i) collect_errors(row_errors, [&] {
         const std::string item = path + "/" + std::to_string(i);
         const auto& period_json = list[i];
         require_object(period_json, item);
@@ -389,7 +391,8 @@ price_schedule read_price_schedule(const json& list, const std::string& path, st
         }
         warn_unknown_keys(period_json, {"name", "amount", "hours", "days", "months"}, item, warnings);
         schedule.push_back(period);
-    }
+    });
+    if (!row_errors.empty()) throw input_error(row_errors);
     if (const auto clash = schedule_coverage_problem(schedule)) {
         if (clash->second < 0)
             throw input_error(path, "every hour must fall in one period: " + clash_text(*clash) + " is in none");

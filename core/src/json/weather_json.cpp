@@ -127,7 +127,7 @@ std::string weather_json(const std::string& request_json) noexcept {
         out["warnings"] = issues_json(warnings);
         return dump_text(out);
     } catch (const input_error& error) {
-        return error_response({{error.path(), error.message()}});
+        return error_response(error.issues());
     } catch (const std::exception& error) {
         return error_response({{"", std::string("internal error: ") + error.what()}});
     }
