@@ -179,6 +179,98 @@ TEST(weather_file, a_typical_year_in_the_tmy3_layout_gives_bins_and_design_tempe
     EXPECT_EQ(check.at("bins_from"), "data");
 }
 
+TEST(weather_file, each_bin_keeps_when_its_hours_fell_and_time_of_use_uses_it) {
+    // Invented TMY3-layout year, cold only before dawn: -10 degC at 01:00..06:00, 15 degC at the other hours.
+    std::string csv = "999999,\"INVENTED HOLLOW\",ZZ,-5.0,40.000,-70.000,10\n"
+                      "Date (MM/DD/YYYY),Time (HH:MM),Dry-bulb (C)\n";
+    const long first = fw::parse_day_number("2001-01-01", "");
+    for (long day = first; day < first + 365; ++day) {
+        const auto date = fw::day_text(day);
+        for (int h = 1; h <= 24; ++h) {
+            char line[64];
+            std::snprintf(line, sizeof line, "%s/%s/%s,%02d:00,%.1f\n", date.substr(5, 2).c_str(), date.substr(8, 2).c_str(),
+                          date.substr(0, 4).c_str(), h, h <= 6 ? -10.0 : 15.0);
+            csv += line;
+        }
+    }
+    const auto result = weather(csv);
+    ASSERT_TRUE(result.at("errors").empty()) << result.dump();
+    const auto& bins = result.at("climate").at("bins");
+    ASSERT_EQ(bins.size(), 2u);
+    // A reading at h:00 stands for the half hours either side: the cold bin's 6 x 365 hours fall half an hour
+    // a day in 0:00-1:00 and 6:00-7:00, a whole hour in 1:00-2:00 .. 5:00-6:00; by month, 6 hours a day.
+    const auto& cold = bins[0];
+    EXPECT_EQ(cold.at("t"), -10);
+    EXPECT_NEAR(cold.at("hours").get<double>(), 2190, 1e-9);
+    for (int slot = 0; slot < 24; ++slot)
+        EXPECT_NEAR(cold.at("by_hour")[slot].get<double>(), slot == 0 || slot == 6 ? 182.5 : slot <= 5 ? 365 : 0, 1e-9) << slot;
+    const int days[] = {31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31};
+    for (int m = 0; m < 12; ++m) EXPECT_NEAR(cold.at("by_month")[m].get<double>(), 6.0 * days[m], 1e-9) << m;
+
+    // Electric resistance heat by degree-hours below 18 degC, night 0:00-6:00 and day 6:00-24:00. By hand, from
+    // the bins' times: the cold bin has 2007.5 night hours of 2190 at 28 K, the warm one 182.5 (its 24:00
+    // readings) of 6570 at 3 K, so night = (28 x 2007.5 + 3 x 182.5) / (28 x 2190 + 3 x 6570) of the heat.
+    const json scenario = {
+        {"schema", "fuelwright.scenario/1"},
+        {"settings", {{"units", "metric"}, {"currency", "EUR"}}},
+        {"climate", result.at("climate")},
+        {"demand", {{"method", "direct"}, {"annual_useful_heat", {{"value", 10000}, {"unit", "kWh"}}}, {"balance_point", {{"value", 18}, {"unit", "degC"}}}}},
+        {"options", json::array({{{"id", "r"}, {"fuel", "electricity"},
+                                  {"price", {{"per", "kWh"}, {"schedule", json::array({{{"name", "night"}, {"amount", 0.1}, {"hours", {0, 6}}},
+                                                                                        {{"name", "day"}, {"amount", 0.3}, {"hours", {6, 24}}}})}}},
+                                  {"system", {{"kind", "electric-resistance"}, {"efficiency", {{"value", 1}, {"rating", "COP"}}}}}}})}};
+    const auto answer = json::parse(fw::evaluate_json(scenario.dump()));
+    ASSERT_TRUE(answer.at("errors").empty()) << answer.at("errors").dump();
+    const auto& option = answer.at("options")[0];
+    const double night_share = (28 * 2007.5 + 3 * 182.5) / (28 * 2190.0 + 3 * 6570.0);
+    EXPECT_NEAR(option.at("electricity_periods")[0].at("kwh").get<double>(), 10000 * night_share, 1e-4);
+    EXPECT_NEAR(option.at("electricity_periods")[1].at("kwh").get<double>(), 10000 * (1 - night_share), 1e-4);
+    // Without the times the model's calendar places the cold hours where its climate puts them (elsewhere).
+    json untimed = scenario;
+    for (auto& bin : untimed["climate"]["bins"]) {
+        bin.erase("by_hour");
+        bin.erase("by_month");
+    }
+    const auto model = json::parse(fw::evaluate_json(untimed.dump()));
+    EXPECT_GT(std::fabs(model.at("options")[0].at("electricity_periods")[0].at("kwh").get<double>() - 10000 * night_share), 1000);
+}
+
+TEST(weather_file, bin_times_are_checked_where_they_are_given) {
+    const auto error_for = [](json bins) {
+        const json scenario = {{"schema", "fuelwright.scenario/1"},
+                               {"settings", {{"units", "metric"}, {"currency", "EUR"}}},
+                               {"climate", {{"unit", "degC"}, {"monthly_mean", json::array({-2, -1, 3, 8, 13, 17, 19, 18, 14, 9, 4, 0})},
+                                            {"bin_width", 1}, {"bins", bins}}},
+                               {"demand", {{"method", "direct"}, {"annual_useful_heat", {{"value", 10000}, {"unit", "kWh"}}}}},
+                               {"options", json::array({{{"id", "r"}, {"fuel", "electricity"}, {"price", {{"amount", 0.2}, {"per", "kWh"}}},
+                                                         {"system", {{"kind", "electric-resistance"}, {"efficiency", {{"value", 1}, {"rating", "COP"}}}}}}})}};
+        const auto errors = json::parse(fw::evaluate_json(scenario.dump())).at("errors");
+        return errors.empty() ? json() : errors[0];
+    };
+    json even_hour = json::array(), even_month = json::array();
+    for (int h = 0; h < 24; ++h) even_hour.push_back(4380.0 / 24);
+    for (int m = 0; m < 12; ++m) even_month.push_back(4380.0 / 12);
+    json bins = json::array({{{"t", 0}, {"hours", 4380}, {"by_hour", even_hour}, {"by_month", even_month}},
+                             {{"t", 10}, {"hours", 4380}, {"by_hour", even_hour}, {"by_month", even_month}}});
+    EXPECT_TRUE(error_for(bins).is_null()) << error_for(bins).dump();
+    auto e = bins;
+    e[1].erase("by_month");
+    EXPECT_EQ(error_for(e).at("path"), "/climate/bins/1/by_month");
+    EXPECT_EQ(error_for(e).at("message"), "is required with by_hour");
+    e = bins;
+    e[1].erase("by_month");
+    e[1].erase("by_hour");
+    EXPECT_EQ(error_for(e).at("path"), "/climate/bins/1");
+    EXPECT_EQ(error_for(e).at("message"), "needs by_hour and by_month as the bins before it have them: give them on every bin or on none");
+    e = bins;
+    e[0]["by_hour"][3] = 0;
+    EXPECT_EQ(error_for(e).at("path"), "/climate/bins/0/by_hour");
+    EXPECT_EQ(error_for(e).at("message"), "adds up to 4197.5 hours; the bin has 4380");
+    e = bins;
+    e[0]["by_month"].erase(11);
+    EXPECT_EQ(error_for(e).at("message"), "must be 12 numbers, the bin's hours by month from January");
+}
+
 TEST(weather_file, several_readings_in_one_hour_count_once) {
     // ISO timestamps with a special report at :51 and :56 in the same hour: one reading an hour.
     std::string csv = "DATE,HourlyDryBulbTemperature\n";

@@ -81,12 +81,27 @@ std::vector<temperature_bin> hourly_bins(const climate_model& climate, double wi
 /// [h] Hours by month (January first) and hour of the day (0 = 0:00-1:00).
 using month_hour_hours = std::array<std::array<double, 24>, 12>;
 
+/// [h] When an observed bin's hours fell: by hour of the day (0 = 0:00-1:00) and by month (January first),
+/// each adding up to the bin's hours.
+struct bin_times {
+    std::array<double, 24> by_hour{};
+    std::array<double, 12> by_month{};
+};
+
 /// Each bin's hours by month and hour of the day: the model's hours in the bin (each month's daily means
 /// logistic, each hour offset by Erbs's diurnal profile, Erbs hour h read as the temperature at clock time h:00,
 /// hour 24 as 0:00, standing for the half hours either side of it), scaled to the bin's own hours (so observed bins keep theirs); the outermost bins take the tails.
 /// A bin the model puts no hours in is spread evenly over the year. Bins in ascending order, `width_k` wide.
+/// Where `observed` (one per bin, or empty) gives when a bin's hours fell, the model's month-by-hour table is
+/// fitted to those two sums by iterative proportional fitting (Deming & Stephan 1940), the model keeping
+/// only how hours of the day and months go together.
 std::vector<month_hour_hours> bin_calendar(const climate_model& climate, const std::vector<temperature_bin>& bins,
-                                           double width_k);
+                                           double width_k, const std::vector<bin_times>& observed = {});
+
+/// [h] `table` scaled by rows and columns (iterative proportional fitting, Deming & Stephan 1940) until its
+/// months add up to `by_month` and its hours of the day to `by_hour` (both with the same total); every cell
+/// starts at least at a thousandth of the mean cell, so that hours the seed has none of can be placed.
+month_hour_hours fit_to_sums(month_hour_hours table, const bin_times& sums);
 
 /// [degC] Temperature below which `fraction` of the year's hours lie (0.01 -> the 99 % design value).
 double design_temperature(const climate_model& climate, double fraction);

@@ -483,6 +483,8 @@ weather_series read_weather_csv(const std::string& text, const weather_read_opti
         for (const auto& [when, t] : by_hour) {
             by_day[when.first].push_back(t);
             series.hourly_c.push_back(t);
+            series.hourly_day.push_back(when.first);
+            series.hourly_clock.push_back(when.second);
         }
         std::size_t short_days = 0;
         for (const auto& [day, hours] : by_day) {
@@ -551,6 +553,17 @@ std::optional<weather_climate> climate_of_weather(const weather_series& series, 
         for (double t : series.hourly_c) counts[static_cast<long>(std::floor(t / bin_width_k + 0.5))] += 1;
         const double scale = 8760.0 / static_cast<double>(series.hourly_c.size());
         for (const auto& [index, count] : counts) out.bins.push_back({static_cast<double>(index) * bin_width_k, count * scale});
+        // When each bin's hours fell: a reading at h:00 stands for the half hours either side of it (half in
+        // hour h - 1, half in hour h), in the month of its day.
+        std::map<long, bin_times> times;
+        for (std::size_t i = 0; i < series.hourly_c.size(); ++i) {
+            auto& bin = times[static_cast<long>(std::floor(series.hourly_c[i] / bin_width_k + 0.5))];
+            const int clock = series.hourly_clock[i];
+            bin.by_hour[static_cast<std::size_t>((clock + 23) % 24)] += scale / 2;
+            bin.by_hour[static_cast<std::size_t>(clock % 24)] += scale / 2;
+            bin.by_month[static_cast<std::size_t>(month_of_day(series.hourly_day[i]))] += scale;
+        }
+        for (const auto& [index, bin] : times) out.bins_when.push_back(bin);
         out.design_99_c = hourly_quantile(series.hourly_c, 0.01);
         out.design_996_c = hourly_quantile(series.hourly_c, 0.004);
     }

@@ -158,7 +158,26 @@ issue spread_warning(const std::string& path) {
             "and hours in the cold come out too cold): give the 99 % design temperature or monthly_sd"};
 }
 
-/// Reads `bins` [{t, hours}] with `bin_width` (observed hourly bins, e.g. from a weather file) into `info`.
+/// [h] A bin's `key` (by_hour: 24 numbers, by_month: 12) into `out`: hours a year, each >= 0, adding up to the
+/// bin's `hours` (to 0.1 %, or 0.01 h).
+template <std::size_t N>
+void read_bin_sums(const json& bin, const char* key, const std::string& item, double hours, std::array<double, N>& out) {
+    const std::string path = item + "/" + key;
+    const auto& list = bin.at(key);
+    const char* what = N == 24 ? "24 numbers, the bin's hours by hour of the day from 0:00-1:00" : "12 numbers, the bin's hours by month from January";
+    if (!list.is_array() || list.size() != N) throw input_error(path, std::string("must be ") + what);
+    double sum = 0;
+    for (std::size_t i = 0; i < N; ++i) {
+        if (!list[i].is_number() || !(list[i].get<double>() >= 0))
+            throw input_error(path + "/" + std::to_string(i), "must be a number of hours >= 0");
+        out[i] = list[i].get<double>();
+        sum += out[i];
+    }
+    if (std::fabs(sum - hours) > std::max(0.01, 1e-3 * hours))
+        throw input_error(path, "adds up to " + format_number(sum) + " hours; the bin has " + format_number(hours));
+}
+
+/// Reads `bins` [{t, hours, by_hour?, by_month?}] with `bin_width` (observed hourly bins, e.g. from a weather file) into `info`.
 void read_observed_bins(const json& climate, const std::string& unit, bool leap, climate_info& info) {
     const std::string path = "/climate";
     const double k = degree_size(unit == "degF");
@@ -172,6 +191,7 @@ void read_observed_bins(const json& climate, const std::string& unit, bool leap,
     if (list.size() > 400) throw input_error(path + "/bins", "at most 400 bins, got " + std::to_string(list.size()));
     info.bin_width_k = *width * k;
     info.bins.clear();
+    info.bins_when.clear();
     double total = 0;
     for (std::size_t i = 0; i < list.size(); ++i) {
         const std::string item = path + "/bins/" + std::to_string(i);
@@ -187,6 +207,19 @@ void read_observed_bins(const json& climate, const std::string& unit, bool leap,
             throw input_error(item + "/t", "bins must be in ascending order of temperature");
         info.bins.push_back({t_c, *hours});
         total += *hours;
+        // when the bin's hours fell, from a weather file: both sums or neither, on every bin or none
+        const bool timed = list[i].contains("by_hour") || list[i].contains("by_month");
+        if (i > 0 && timed != !info.bins_when.empty())
+            throw input_error(item, timed ? "has by_hour and by_month where the bins before it have none: give them on every bin or on none"
+                                          : "needs by_hour and by_month as the bins before it have them: give them on every bin or on none");
+        if (timed) {
+            for (const char* key : {"by_hour", "by_month"})
+                if (!list[i].contains(key)) throw input_error(item + "/" + key, "is required with " + std::string(key[3] == 'h' ? "by_month" : "by_hour"));
+            bin_times when;
+            read_bin_sums(list[i], "by_hour", item, *hours, when.by_hour);
+            read_bin_sums(list[i], "by_month", item, *hours, when.by_month);
+            info.bins_when.push_back(when);
+        }
     }
     const double year_hours = leap ? 8784 : 8760;
     if (std::fabs(total - year_hours) > 24)

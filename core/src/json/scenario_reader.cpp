@@ -1018,7 +1018,7 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
     // Time of use places each bin's kWh in its months and hours of the day.
     bool scheduled = out.settings.electricity_schedule.has_value();
     for (const auto& option : out.options) scheduled = scheduled || option.schedule.has_value();
-    if (scheduled && out.climate) out.climate->calendar = bin_calendar(out.climate->model, out.climate->bins, out.climate->bin_width_k);
+    if (scheduled && out.climate) out.climate->calendar = bin_calendar(out.climate->model, out.climate->bins, out.climate->bin_width_k, out.climate->bins_when);
     for (auto& warning : plausibility_warnings(out)) warnings.push_back(std::move(warning));
     return out;
 }

@@ -82,7 +82,11 @@ json weather_answer(const weather_series& series, std::vector<issue>& warnings) 
     if (climate->design_99_c) {
         c["design_temperature"] = {{"value", t(*climate->design_99_c)}, {"unit", unit}};
         json bins = json::array();
-        for (const auto& bin : climate->bins) bins.push_back({{"t", t(bin.t_c)}, {"hours", bin.hours}});
+        for (std::size_t k = 0; k < climate->bins.size(); ++k)
+            bins.push_back({{"t", t(climate->bins[k].t_c)},
+                            {"hours", climate->bins[k].hours},
+                            {"by_hour", climate->bins_when[k].by_hour},
+                            {"by_month", climate->bins_when[k].by_month}});
         c["bins"] = bins;
         c["bin_width"] = climate->bin_width_k * per_k;
         summary["design_temperature_99"] = t(*climate->design_99_c);

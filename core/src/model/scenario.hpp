@@ -131,6 +131,7 @@ struct climate_info {
     std::vector<temperature_bin> bins;  ///< 1 degC or 2 degF wide, or as given
     double bin_width_k = 1.0;           ///< [K]
     bool bins_from_data = false;        ///< bins given (observed hours) rather than from the model
+    std::vector<bin_times> bins_when;   ///< observed bins: when each one's hours fell (one per bin, or none)
     double design_99_c = 0, design_996_c = 0;
     std::optional<double> given_design_c;
     std::optional<double> spread_factor;  ///< the spread's scale calibrated to the given design temperature
