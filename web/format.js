@@ -78,19 +78,19 @@ export function parseNumber(text, locale) {
   return PLAIN.test(t) ? Number(t) : NaN;
 }
 
-const CLOCK = /^(\d{1,2})(?:[:h.](\d{2}))?\s*(a\.?\s?m\.?|p\.?\s?m\.?)?$/;
+const CLOCK = /^(\d{1,2})(?:[:h.](\d{2})|h)?\s*(a\.?\s?m\.?|p\.?\s?m\.?)?$/;
 
 /**
  * A time of day typed as a tariff sheet prints it, in hours from 0 to 24: "16", "16:30", "16.30" (two digits
- * after the point are minutes, as British sheets print times), "4 pm", "4:30 p.m.", "12 am" (0), "noon", "midnight"
- * (0; a period ending at 0 runs to midnight), "24:00", or decimal hours ("16.5"). null for an empty field, NaN
- * when it is not a time of day.
+ * after the point are minutes, as British sheets print times), "22h" and "16h30", "4 pm", "4:30 p.m.", "12 am" (0),
+ * "noon", "midnight" or "12 midnight" (0; a period ending at 0 runs to midnight), "24:00", or decimal hours
+ * ("16.5"). null for an empty field, NaN when it is not a time of day.
  */
 export function parseClock(text, locale) {
   const t = String(text ?? '').trim().toLowerCase().replace(/\s+/g, ' ');
   if (!t) return null;
-  if (t === 'midnight') return 0;
-  if (t === 'noon' || t === '12 noon' || t === 'midday') return 12;
+  if (/^(12(:00)? )?midnight$/.test(t)) return 0;
+  if (/^(12(:00)? )?noon$/.test(t) || t === 'midday') return 12;
   const clock = CLOCK.exec(t);
   if (clock && (clock[2] !== undefined || clock[3] !== undefined || !t.includes('.'))) {
     let hours = Number(clock[1]);
@@ -103,7 +103,7 @@ export function parseClock(text, locale) {
     const value = hours + minutes / 60;
     return value <= 24 ? value : NaN;
   }
-  const number = parseNumber(t, locale);
+  const number = /e/.test(t) ? NaN : parseNumber(t, locale);
   return number === null || Number.isNaN(number) || number < 0 || number > 24 ? NaN : number;
 }
 

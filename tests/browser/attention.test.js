@@ -70,7 +70,7 @@ describe('A missing heat loss (Chromium, 768x1024 with touch)', () => {
   test('is said at the UA field, or at the design heat loss when that is how it is known', { timeout: TIMEOUT }, async () => {
     const session = await open({ width: 768, height: 1024 });
     const { page } = session;
-    const expected = "is required: the house's heat-loss coefficient ua {value, unit}, or its design_heat_loss {value, unit} with the indoor temperature";
+    const expected = "is required: the house's heat-loss coefficient (UA), or its design heat loss with the indoor temperature";
     try {
       await page.tap('#tab-house');
       await page.tap('label[for="f-demand-method-heat-loss"]');

@@ -80,7 +80,7 @@ describe('Hot water and time-of-use electricity (Chromium, touch)', () => {
     // weekends 16-21 are in no period yet: said once at the tariff, with the hour
     const gap = page.locator(`[data-field="${base}/price/schedule"] > .field-msg`);
     await gap.waitFor({ state: 'visible' });
-    assert.equal(await gap.textContent(), 'every hour must fall in one period: weekends 16:00-21:00 in January is in none');
+    assert.equal(await gap.textContent(), 'each time of day must fall in exactly one period: weekends 16:00-21:00 in January is in none');
     await tap('[data-action="add-period"]');
     await typeInto(id(`${base}/price/schedule/2/name`), 'off-peak');
     await typeInto(id(`${base}/price/schedule/2/amount`), '0.12');

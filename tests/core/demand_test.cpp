@@ -82,8 +82,7 @@ TEST(demand_heat_loss, a_house_without_its_heat_loss_is_told_what_to_give) {
     ASSERT_EQ(result.at("errors").size(), 1u) << result.dump();
     EXPECT_EQ(result.at("errors")[0].at("path"), "/demand/ua");
     EXPECT_EQ(result.at("errors")[0].at("message"),
-              "is required: the house's heat-loss coefficient ua {value, unit}, or its design_heat_loss {value, unit} with the "
-              "indoor temperature");
+              "is required: the house's heat-loss coefficient (UA), or its design heat loss with the indoor temperature");
     const auto no_indoor = evaluate(scenario_with({{"method", "heat-loss"}, {"design_heat_loss", {{"value", 12}, {"unit", "kW"}}}}));
     ASSERT_EQ(no_indoor.at("errors").size(), 1u) << no_indoor.dump();
     EXPECT_EQ(no_indoor.at("errors")[0].at("path"), "/demand/indoor");

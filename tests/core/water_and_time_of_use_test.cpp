@@ -394,23 +394,26 @@ TEST(time_of_use, a_schedule_as_typed_gets_a_message_at_its_field) {
     };
     auto e = error_for({{{"name", "day"}, {"amount", 0.2}, {"hours", {{7, 22}}}}, {{"name", "night"}, {"amount", 0.1}, {"hours", {{22, 6}}}}});
     EXPECT_EQ(e.at("path"), "/options/0/price/schedule");
-    EXPECT_EQ(e.at("message"), "every hour must fall in one period: weekdays 06:00-07:00 in January is in none");
+    EXPECT_EQ(e.at("message"), "each time of day must fall in exactly one period: weekdays 06:00-07:00 in January is in none");
     e = error_for({{{"name", "day"}, {"amount", 0.2}, {"hours", {{6, 22}}}}, {{"name", "night"}, {"amount", 0.1}, {"hours", {{21, 7}}}}});
     EXPECT_EQ(e.at("path"), "/options/0/price/schedule/1");
-    EXPECT_EQ(e.at("message"), "every hour must fall in one period: weekdays 06:00-07:00 in January is in both \"day\" and \"night\"");
+    EXPECT_EQ(e.at("message"), "each time of day must fall in exactly one period: weekdays 06:00-07:00 in January is in both \"day\" and \"night\"");
     e = error_for({{{"name", "all"}, {"amount", 21}, {"hours", {{0, 24}}}}});
     EXPECT_EQ(e.at("path"), "/options/0/price/schedule/0/amount");
     EXPECT_EQ(e.at("message"), "must be a price per kWh below 10, got 21 (cents? 21 cents is 0.21)");
     e = error_for({{{"name", "all"}, {"amount", 0.2}, {"hours", {{0, 16.25}}}}});
     EXPECT_EQ(e.at("path"), "/options/0/price/schedule/0/hours/0/1");
-    EXPECT_EQ(e.at("message"), "must be a whole or half hour from 0 to 24 (16.5 for 16:30; a boundary at other minutes is not supported), got 16.25 (16:15)");
+    EXPECT_EQ(e.at("message"), "must fall on the hour or the half hour, from 0 to 24 (16.5 is 16:30), got 16.25 (16:15)");
     // A gap is named over its whole length, to the half hour.
     e = error_for({{{"name", "all"}, {"amount", 0.2}, {"hours", {{0, 16.5}}}}});
     EXPECT_EQ(e.at("path"), "/options/0/price/schedule");
-    EXPECT_EQ(e.at("message"), "every hour must fall in one period: weekdays 16:30-24:00 in January is in none");
+    EXPECT_EQ(e.at("message"), "each time of day must fall in exactly one period: weekdays 16:30-24:00 in January is in none");
     e = error_for({{{"name", "peak"}, {"amount", 0.3}, {"hours", {{16, 21}}}, {"days", "weekdays"}},
                    {{"name", "other"}, {"amount", 0.1}, {"hours", {{21, 16}}}}});
-    EXPECT_EQ(e.at("message"), "every hour must fall in one period: weekends 16:00-21:00 in January is in none");
+    EXPECT_EQ(e.at("message"), "each time of day must fall in exactly one period: weekends 16:00-21:00 in January is in none");
+    // A gap over midnight is named from where it begins the evening before.
+    e = error_for({{{"name", "day"}, {"amount", 0.2}, {"hours", {{1, 23}}}}});
+    EXPECT_EQ(e.at("message"), "each time of day must fall in exactly one period: weekdays 23:00-01:00 in January is in none");
     e = error_for({{{"name", "day"}, {"amount", 0.2}, {"hours", {{7, 7}}}}});
     EXPECT_EQ(e.at("path"), "/options/0/price/schedule/0/hours/0/1");
     EXPECT_EQ(e.at("message"), "ends where it starts: a period needs at least half an hour (0 to 24 is the whole day)");
@@ -450,7 +453,7 @@ TEST(time_of_use, every_row_of_a_tariff_is_read_before_any_is_refused) {
     EXPECT_EQ(errors[0].at("message"), "is required (a number)");
     EXPECT_EQ(errors[1].at("path"), "/options/0/price/schedule/2/hours/0/1");
     EXPECT_EQ(errors[1].at("message"),
-              "must be a whole or half hour from 0 to 24 (16.5 for 16:30; a boundary at other minutes is not supported), got 16.2 (16:12)");
+              "must fall on the hour or the half hour, from 0 to 24 (16.5 is 16:30), got 16.2 (16:12)");
 }
 
 TEST(time_of_use, a_half_hour_boundary_splits_the_hour_it_falls_in) {

@@ -235,6 +235,28 @@ TEST(weather_file, each_bin_keeps_when_its_hours_fell_and_time_of_use_uses_it) {
     EXPECT_GT(std::fabs(model.at("options")[0].at("electricity_periods")[0].at("kwh").get<double>() - 10000 * night_share), 1000);
 }
 
+TEST(weather_file, a_reading_at_51_minutes_past_stands_for_the_half_hours_around_it) {
+    // An invented hourly export with its readings at hh:51 (as airport reports come), -10 degC at 1:51..6:51.
+    std::string csv = "DATE,HourlyDryBulbTemperature\n";
+    const long first = fw::parse_day_number("2023-01-01", "");
+    for (long day = first; day < first + 365; ++day)
+        for (int h = 0; h < 24; ++h) {
+            char line[64];
+            std::snprintf(line, sizeof line, "%sT%02d:51:00,%d\n", fw::day_text(day).c_str(), h, h >= 1 && h <= 6 ? -10 : 15);
+            csv += line;
+        }
+    const auto result = weather(csv, {{"unit", "degC"}});
+    ASSERT_TRUE(result.at("errors").empty()) << result.dump();
+    const auto& cold = result.at("climate").at("bins")[0];
+    ASSERT_EQ(cold.at("t"), -10);
+    // 1:51 stands for 1:21-2:21: 0.65 h in 1-2 h and 0.35 h in 2-3 h; so 1-2 h gets 0.65 a day, 2-3 .. 6-7 h a
+    // whole hour, 7-8 h 0.35 (6:51 stands for 6:21-7:21).
+    for (int slot = 0; slot < 24; ++slot) {
+        const double per_day = slot == 1 ? 0.65 : slot >= 2 && slot <= 6 ? 1.0 : slot == 7 ? 0.35 : 0.0;
+        EXPECT_NEAR(cold.at("by_hour")[slot].get<double>(), 365 * per_day, 1e-9) << slot;
+    }
+}
+
 TEST(weather_file, bin_times_are_checked_where_they_are_given) {
     const auto error_for = [](json bins) {
         const json scenario = {{"schema", "fuelwright.scenario/1"},

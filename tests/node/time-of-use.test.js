@@ -27,11 +27,12 @@ describe('web/format.js times of day', () => {
   test('as tariff sheets print them', () => {
     const cases = [['16', 16], ['16:30', 16.5], [' 0:30 ', 0.5], ['00:30', 0.5], ['16.30', 16.5], ['7.30', 7.5], ['16.5', 16.5],
       ['4 pm', 16], ['4:30 PM', 16.5], ['4:30 p.m.', 16.5], ['9pm', 21], ['12 am', 0], ['12 pm', 12], ['12:30 am', 0.5],
-      ['noon', 12], ['Midnight', 0], ['24:00', 24], ['24', 24], ['16h30', 16.5]];
+      ['noon', 12], ['Midnight', 0], ['24:00', 24], ['24', 24], ['16h30', 16.5], ['22h', 22], ['12 midnight', 0], ['12:00 midnight', 0],
+      ['12 noon', 12]];
     for (const [text, hours] of cases) assert.equal(format.parseClock(text, 'en-US'), hours, text);
     assert.equal(format.parseClock('', 'en-US'), null);
     assert.equal(format.parseClock('   ', 'en-US'), null);
-    for (const text of ['25', '16:60', '13 pm', '0 am', 'peak', '-1', '24:30', '4 p']) assert.ok(Number.isNaN(format.parseClock(text, 'en-US')), text);
+    for (const text of ['25', '16:60', '13 pm', '0 am', 'peak', '-1', '24:30', '4 p', '1e1', '13 midnight', 'h']) assert.ok(Number.isNaN(format.parseClock(text, 'en-US')), text);
     assert.equal(format.parseClock('16,5', 'de-DE'), 16.5, 'decimal hours with a decimal comma');
   });
 

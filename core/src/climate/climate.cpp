@@ -287,7 +287,15 @@ std::vector<month_hour_hours> bin_calendar(const climate_model& climate, const s
         for (std::size_t m = 0; m < 12; ++m)
             for (auto& hours : out[k][m])
                 hours = total > 0 ? hours * bins[k].hours / total : bins[k].hours * days[m] / year_hours;
-        if (k < observed.size()) out[k] = fit_to_sums(out[k], observed[k]);
+        if (k < observed.size()) {
+            // fitted to when the hours fell, then held to the bin's own hours (the sums may differ from them by rounding)
+            out[k] = fit_to_sums(out[k], observed[k]);
+            double fitted = 0;
+            for (const auto& month : out[k])
+                for (double hours : month) fitted += hours;
+            for (auto& month : out[k])
+                for (double& hours : month) hours = fitted > 0 ? hours * bins[k].hours / fitted : bins[k].hours / (12 * 24);
+        }
     }
     return out;
 }

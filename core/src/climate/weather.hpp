@@ -43,7 +43,7 @@ struct weather_series {
     std::vector<weather_day> days;  ///< ascending, one per observed day
     std::vector<double> hourly_c;   ///< hourly files: every hour read [degC]
     std::vector<long> hourly_day;   ///< hourly files: each reading's day (days since 1970-01-01)
-    std::vector<int> hourly_clock;  ///< hourly files: each reading's clock hour, 0 to 24 (h:00)
+    std::vector<double> hourly_clock;  ///< hourly files: each reading's clock time [h, 0 to 24] (13:51 is 13.85)
     std::vector<std::string> notes; ///< what was read: layout, columns, unit, rules applied
     std::vector<issue> warnings;    ///< rows skipped and why
 };
@@ -66,8 +66,8 @@ struct weather_climate {
     double base_c = 18.3;
     double years = 0;             ///< observed days / 365.25
     std::vector<temperature_bin> bins;  ///< hourly files only
-    std::vector<bin_times> bins_when;   ///< hourly files only: when each bin's hours fell (a reading at h:00 stands
-                                        ///< for the half hours either side of it), scaled as the bins are
+    std::vector<bin_times> bins_when;   ///< hourly files only: when each bin's hours fell (a reading stands for the
+                                        ///< half hours either side of its time), scaled as the bins are
     double bin_width_k = 1;
     std::optional<double> design_99_c, design_996_c;  ///< hourly files only
 };

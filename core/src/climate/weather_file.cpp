@@ -143,9 +143,9 @@ bool all_digits(const std::string& text) {
 
 bool separator_is_slash(const std::string& text) { return text.find('/') != std::string::npos; }
 
-/// The hour of a time of day "HH:MM[:SS]", "HHMM" or "H:MM AM/PM" (12 AM is hour 0, 12 PM hour 12);
-/// throws input_error at `path` quoting `raw`.
-int hour_of(std::string time, const std::string& path, const std::string& raw) {
+/// The hour of a time of day "HH:MM[:SS]", "HHMM" or "H:MM AM/PM" (12 AM is hour 0, 12 PM hour 12), and its
+/// minutes in `minute` (0 where the text has none); throws input_error at `path` quoting `raw`.
+int hour_of(std::string time, const std::string& path, const std::string& raw, int& minute) {
     std::string lower;
     for (unsigned char c : time) lower += static_cast<char>(std::tolower(c));
     int shift = -1;  // -1: a 24-hour clock
@@ -157,6 +157,8 @@ int hour_of(std::string time, const std::string& path, const std::string& raw) {
     const auto colon = time.find(':');
     const std::string hh = colon == std::string::npos ? (time.size() > 2 ? time.substr(0, time.size() - 2) : time) : time.substr(0, colon);
     if (!all_digits(hh)) throw input_error(path, "\"" + raw + "\" has a time this reader does not know (HH:MM, or H:MM AM/PM)");
+    const std::string mm = colon == std::string::npos ? (time.size() > 2 ? time.substr(time.size() - 2) : "") : time.substr(colon + 1, 2);
+    minute = mm.size() == 2 && all_digits(mm) ? std::min(59, std::atoi(mm.c_str())) : 0;
     int hour = std::atoi(hh.c_str());
     if (shift >= 0) {
         if (hour < 1 || hour > 12) throw input_error(path, "\"" + raw + "\" has an hour outside 1 to 12 before AM/PM");
@@ -169,9 +171,10 @@ int hour_of(std::string time, const std::string& path, const std::string& raw) {
 /// A date (and hour where the text has one) in the spellings weather exports use: YYYY-MM-DD, YYYY/MM/DD,
 /// YYYYMMDD[HH[MM]], MM/DD/YYYY, DD.MM.YYYY, each optionally followed by T or a space and HH:MM[:SS].
 /// Returns the day number and sets `hour` (-1 when the text has no time); throws input_error at `path`.
-long parse_when(const std::string& raw, int& hour, const std::string& path) {
+long parse_when(const std::string& raw, int& hour, int& minute, const std::string& path) {
     std::string text = raw;
     hour = -1;
+    minute = 0;
     std::string date = text, time;
     if (const auto cut = text.find_first_of("T "); cut != std::string::npos && cut >= 8) {
         date = text.substr(0, cut);
@@ -181,6 +184,7 @@ long parse_when(const std::string& raw, int& hour, const std::string& path) {
     if (all_digits(date) && (date.size() == 8 || date.size() == 10 || date.size() == 12)) {
         iso = date.substr(0, 4) + "-" + date.substr(4, 2) + "-" + date.substr(6, 2);
         if (date.size() >= 10) hour = std::atoi(date.substr(8, 2).c_str());
+        if (date.size() == 12) minute = std::min(59, std::atoi(date.substr(10, 2).c_str()));
     } else if (date.size() == 10 && (date[4] == '-' || date[4] == '/') && date[7] == date[4]) {
         iso = date.substr(0, 4) + "-" + date.substr(5, 2) + "-" + date.substr(8, 2);
     } else {
@@ -193,7 +197,7 @@ long parse_when(const std::string& raw, int& hour, const std::string& path) {
         // Slashes are read month first (MM/DD/YYYY, as US services print them), dots day first (DD.MM.YYYY).
         iso = parts[2] + "-" + two(separator == '/' ? parts[0] : parts[1]) + "-" + two(separator == '/' ? parts[1] : parts[0]);
     }
-    if (!time.empty()) hour = hour_of(time, path, raw);
+    if (!time.empty()) hour = hour_of(time, path, raw, minute);
     if (hour > 24) throw input_error(path, "\"" + raw + "\" has an hour above 24");
     try {
         return parse_day_number(iso, path);
@@ -206,7 +210,8 @@ long parse_when(const std::string& raw, int& hour, const std::string& path) {
 /// One data row as read.
 struct weather_row {
     long day;
-    int hour;  ///< -1: none
+    int hour;    ///< -1: none
+    int minute;  ///< of the hour, 0 where the file gives none
     std::optional<double> mean, max, min, temperature;  ///< in the file's unit
     std::size_t line;  ///< 1-based
 };
@@ -378,9 +383,9 @@ weather_series read_weather_csv(const std::string& text, const weather_read_opti
         weather_row row{};
         row.line = i + 1;
         try {
-            row.day = parse_when(fields[date_col], row.hour, at);
+            row.day = parse_when(fields[date_col], row.hour, row.minute, at);
             if (time_col && *time_col < fields.size() && !fields[*time_col].empty())
-                row.hour = hour_of(fields[*time_col], at, fields[*time_col]);
+                row.hour = hour_of(fields[*time_col], at, fields[*time_col], row.minute);
         } catch (const input_error& error) {
             throw input_error(at, where + error.message());
         }
@@ -462,7 +467,7 @@ weather_series read_weather_csv(const std::string& text, const weather_read_opti
         series.notes.push_back(max_col && min_col ? "daily mean = (max + min) / 2 where both are given" : "daily means as given");
     } else {
         // One reading an hour (the first where a file has several in one hour); daily means from days with 18+ hours.
-        std::map<std::pair<long, int>, double> by_hour;
+        std::map<std::pair<long, int>, std::pair<double, int>> by_hour;  // (day, hour) -> (degC, minute)
         std::size_t repeated = 0, untimed = 0;
         for (const auto& row : rows) {
             const auto t = row.temperature ? row.temperature : row.mean;
@@ -471,7 +476,7 @@ weather_series read_weather_csv(const std::string& text, const weather_read_opti
                 ++untimed;
                 continue;
             }
-            if (!by_hour.emplace(std::pair{row.day, row.hour}, to_c(*t)).second) ++repeated;
+            if (!by_hour.emplace(std::pair{row.day, row.hour}, std::pair{to_c(*t), row.minute}).second) ++repeated;
         }
         if (untimed > 0)
             throw input_error("/columns/time", "an hourly file needs the time of each reading; " + count_text(untimed, "row has", "rows have") +
@@ -480,11 +485,11 @@ weather_series read_weather_csv(const std::string& text, const weather_read_opti
             series.notes.push_back(count_text(repeated, "extra reading", "extra readings") +
                                    " within an hour already read were left out (one reading an hour)");
         std::map<long, std::vector<double>> by_day;
-        for (const auto& [when, t] : by_hour) {
-            by_day[when.first].push_back(t);
-            series.hourly_c.push_back(t);
+        for (const auto& [when, reading] : by_hour) {
+            by_day[when.first].push_back(reading.first);
+            series.hourly_c.push_back(reading.first);
             series.hourly_day.push_back(when.first);
-            series.hourly_clock.push_back(when.second);
+            series.hourly_clock.push_back(when.second + reading.second / 60.0);
         }
         std::size_t short_days = 0;
         for (const auto& [day, hours] : by_day) {
@@ -553,14 +558,17 @@ std::optional<weather_climate> climate_of_weather(const weather_series& series, 
         for (double t : series.hourly_c) counts[static_cast<long>(std::floor(t / bin_width_k + 0.5))] += 1;
         const double scale = 8760.0 / static_cast<double>(series.hourly_c.size());
         for (const auto& [index, count] : counts) out.bins.push_back({static_cast<double>(index) * bin_width_k, count * scale});
-        // When each bin's hours fell: a reading at h:00 stands for the half hours either side of it (half in
-        // hour h - 1, half in hour h), in the month of its day.
+        // When each bin's hours fell: a reading at clock time c stands for the half hours either side of it,
+        // c - 1/2 to c + 1/2 (at h:00 half in hour h - 1, half in hour h; at 13:51 39 minutes in 13-14 h and
+        // 21 in 14-15 h), in the month of its day.
         std::map<long, bin_times> times;
         for (std::size_t i = 0; i < series.hourly_c.size(); ++i) {
             auto& bin = times[static_cast<long>(std::floor(series.hourly_c[i] / bin_width_k + 0.5))];
-            const int clock = series.hourly_clock[i];
-            bin.by_hour[static_cast<std::size_t>((clock + 23) % 24)] += scale / 2;
-            bin.by_hour[static_cast<std::size_t>(clock % 24)] += scale / 2;
+            const double start = series.hourly_clock[i] - 0.5;
+            const double first = std::floor(start);
+            const auto slot = [](double hour) { return static_cast<std::size_t>((static_cast<long>(hour) % 24 + 24) % 24); };
+            bin.by_hour[slot(first)] += scale * (1 - (start - first));
+            bin.by_hour[slot(first + 1)] += scale * (start - first);
             bin.by_month[static_cast<std::size_t>(month_of_day(series.hourly_day[i]))] += scale;
         }
         for (const auto& [index, bin] : times) out.bins_when.push_back(bin);

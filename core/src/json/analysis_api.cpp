@@ -25,7 +25,10 @@ analysis_context read_context(const json& request) {
     if (!request.contains("scenario")) throw input_error("/scenario", "is required (the scenario to analyse)");
     std::vector<issue> errors, warnings;
     auto input = read_scenario(request.at("scenario"), errors, warnings);
-    if (!errors.empty()) throw input_error("/scenario" + errors.front().path, errors.front().message);
+    if (!errors.empty()) {
+        for (auto& error : errors) error.path = "/scenario" + error.path;
+        throw input_error(errors);
+    }
     const auto evaluated = evaluate_for_analysis(input);
     const auto basis_text = optional_string(request, "basis", "").value_or("annual");
     if (basis_text != "annual" && basis_text != "life-cycle")

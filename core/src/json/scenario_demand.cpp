@@ -521,7 +521,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
                                        temp_text(outdoor_c) + ") = " + format_fixed(ua, 1) + " W/K" +
                                        (demand.contains("design_outdoor") ? "" : " (design outdoor temperature from the climate, 99 %)"));
         } else {
-            throw input_error("/demand/ua", "is required: the house's heat-loss coefficient ua {value, unit}, or its design_heat_loss {value, unit} with the indoor temperature");
+            throw input_error("/demand/ua", "is required: the house's heat-loss coefficient (UA), or its design heat loss with the indoor temperature");
         }
         out.ua_w_per_k = ua;
         out.indoor_c = indoor_c;

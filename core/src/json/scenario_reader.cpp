@@ -322,8 +322,7 @@ void read_hour_span(const json& pair, const std::string& path, std::array<bool, 
                                                                   (e == 0 ? "starts" : "ends") + ", from 0 to 24 (16.5 for 16:30)");
         const double value = pair[e].get<double>();
         if (!(value >= 0 && value <= 24) || 2 * value != std::floor(2 * value))
-            throw input_error(path + "/" + std::to_string(e), "must be a whole or half hour from 0 to 24 (16.5 for 16:30; a boundary at "
-                                                              "other minutes is not supported), got " + format_number(value) +
+            throw input_error(path + "/" + std::to_string(e), "must fall on the hour or the half hour, from 0 to 24 (16.5 is 16:30), got " + format_number(value) +
                                                               (value >= 0 && value <= 24 ? " (" + clock_text(value) + ")" : ""));
         ends[e] = static_cast<int>(2 * value);
     }
@@ -395,9 +394,9 @@ price_schedule read_price_schedule(const json& list, const std::string& path, st
     if (!row_errors.empty()) throw input_error(row_errors);
     if (const auto clash = schedule_coverage_problem(schedule)) {
         if (clash->second < 0)
-            throw input_error(path, "every hour must fall in one period: " + clash_text(*clash) + " is in none");
+            throw input_error(path, "each time of day must fall in exactly one period: " + clash_text(*clash) + " is in none");
         throw input_error(path + "/" + std::to_string(clash->second),
-                          "every hour must fall in one period: " + clash_text(*clash) + " is in both \"" +
+                          "each time of day must fall in exactly one period: " + clash_text(*clash) + " is in both \"" +
                               schedule[static_cast<std::size_t>(clash->first)].name + "\" and \"" +
                               schedule[static_cast<std::size_t>(clash->second)].name + "\"");
     }
@@ -924,6 +923,15 @@ void read_quote_extras(const json& quote, std::vector<issue>& warnings) {
     }
 }
 
+/// Removes every issue that repeats an earlier one (same path and message), keeping the order.
+void drop_repeated(std::vector<issue>& issues) {
+    std::vector<issue> kept;
+    for (auto& item : issues)
+        if (std::none_of(kept.begin(), kept.end(), [&](const issue& e) { return e.path == item.path && e.message == item.message; }))
+            kept.push_back(std::move(item));
+    issues = std::move(kept);
+}
+
 }  // namespace
 
 scenario read_scenario(const json& document, std::vector<issue>& errors, std::vector<issue>& warnings) {
@@ -1009,6 +1017,9 @@ scenario read_scenario(const json& document, std::vector<issue>& errors, std::ve
     // Without the settings (prices of the site, services kept), a climate or a demand there is nothing to
     // evaluate the options against: the problem is reported at its own path and no option is computed.
     if (!settings_read || !climate_read || errors.size() != errors_before_demand) out.options.clear();
+    // The bills' option is read again for the fit: a problem or a note of it is said once.
+    drop_repeated(errors);
+    drop_repeated(warnings);
     // A water heater with no hot water asked for is not used: said at it.
     if (out.hot_water_kwh <= 0)
         for (const auto& option : out.options)

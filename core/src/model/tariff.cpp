@@ -33,6 +33,13 @@ std::optional<schedule_clash> schedule_coverage_problem(const price_schedule& sc
                 schedule_clash clash{month, half_hour, 1, weekend, found.first, found.second};
                 while (half_hour + clash.half_hours < half_hours_per_day && covering(month, half_hour + clash.half_hours, weekend) == found)
                     ++clash.half_hours;
+                // a run from 0:00 may have begun the evening before (23:00-01:00)
+                if (half_hour == 0)
+                    while (clash.half_hours < half_hours_per_day &&
+                           covering(month, (clash.half_hour + half_hours_per_day - 1) % half_hours_per_day, weekend) == found) {
+                        clash.half_hour = (clash.half_hour + half_hours_per_day - 1) % half_hours_per_day;
+                        ++clash.half_hours;
+                    }
                 return clash;
             }
     return std::nullopt;
@@ -43,7 +50,9 @@ std::string clash_text(const schedule_clash& clash) {
         const int h = half_hour / 2;
         return (h < 10 ? "0" : "") + std::to_string(h) + (half_hour % 2 ? ":30" : ":00");
     };
-    return std::string(clash.weekend ? "weekends " : "weekdays ") + clock(clash.half_hour) + "-" + clock(clash.half_hour + clash.half_hours) +
+    return std::string(clash.weekend ? "weekends " : "weekdays ") + clock(clash.half_hour) + "-" +
+           clock(clash.half_hour + clash.half_hours > half_hours_per_day ? clash.half_hour + clash.half_hours - half_hours_per_day
+                                                                         : clash.half_hour + clash.half_hours) +
            " in " + month_names[clash.month];
 }
 

@@ -37,7 +37,7 @@ inline constexpr double weekday_share = 5.0 / 7.0;
 /// A half hour of the week no period covers (`second` < 0) or two periods cover.
 struct schedule_clash {
     int month = 0;      ///< 0 = January
-    int half_hour = 0;  ///< where it starts: 0 = 0:00-0:30
+    int half_hour = 0;  ///< where it starts: 0 = 0:00-0:30 (a run over midnight starts the evening before)
     int half_hours = 1;  ///< how long it lasts: the following half hours in the same periods (or none)
     bool weekend = false;
     int first = -1, second = -1;  ///< period indices; first < 0: no period
