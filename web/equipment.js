@@ -125,6 +125,13 @@ export function sizingSentence(option, { ws, result, format, system, backupName 
   const design = designTemperature(ws, result);
   const at = design ? `At ${temperatureText(design, units, format)}` : 'On the coldest days';
   const backup = backupName || 'the backup';
+  const cut = cutoffOf(system, units);
+  const assumedCut = cut.assumed ? ' (a usual cut-out for this compressor: the data sheet\'s own figure is better)' : '';
+  if (design && capacity.value === 0 && load.value > 0) {
+    // the design temperature is below the cut-out: the compressor has stopped there
+    return `${at}, below the heat pump's cut-out of ${temperatureText(cut, units, format)}${assumedCut}, the compressor has stopped: `
+      + `${backup} carries all ${powerText(load, format)} the house needs.`;
+  }
   let text;
   if (capacity.value >= load.value) {
     text = `${at} the heat pump gives ${powerText(capacity, format)}, enough for the ${powerText(load, format)} the house needs.`;
@@ -134,9 +141,7 @@ export function sizingSentence(option, { ws, result, format, system, backupName 
       ? `${shortfall}; below ${temperatureText(option.balance_point, units, format)} ${backup} helps.`
       : `${shortfall}; ${backup} helps whenever the house needs heat.`;
   }
-  const cut = cutoffOf(system, units);
-  text += ` Below ${temperatureText(cut, units, format)} the compressor stops and ${backup} heats alone`
-    + `${cut.assumed ? ' (a usual cut-out for this compressor: the data sheet\'s own figure is better)' : ''}.`;
+  text += ` Below ${temperatureText(cut, units, format)} the compressor stops and ${backup} heats alone${assumedCut}.`;
   return text;
 }
 

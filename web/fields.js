@@ -236,7 +236,9 @@ export function showFieldErrors(roots, errors, ws, localErrors, { warnings = [],
     // a note about a field (not the option as a whole, which the verdict's notes name)
     if (!/^\/(options\/\d+\/.+|economics\/.+|demand\/.+|climate\/.+)$/.test(warning.path ?? '')) continue;
     const at = find(workspacePath(warning.path, ws));
-    if (at) entry(at.field, at.root).notes.push(plainUnits(warning.message));
+    // a fuel's note comes once for each option burning it: said once
+    const note = plainUnits(warning.message);
+    if (at && !entry(at.field, at.root).notes.includes(note)) entry(at.field, at.root).notes.push(note);
   }
   for (const root of roots) {
     for (const input of root.querySelectorAll('input[data-kind="number"]')) {

@@ -537,6 +537,8 @@ export function workspacePath(path, ws) {
     return fi >= 0 ? `/fuels/${fi}/spread` : '/uncertainty';
   }
   if (parts[1] === 'demand' && parts[2] === 'option') return '/demand/bills_option';
+  // a climate the method needs is asked for at the choice of climate
+  if (path === '/climate') return '/climate/mode';
   // the core asks for ua or a design heat loss at /demand/ua; the page shows the one the user chose
   if (path === '/demand/ua' && ws.demand?.ua_mode === 'design') return '/demand/design_heat_loss';
   return path;

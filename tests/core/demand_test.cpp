@@ -188,6 +188,13 @@ TEST(demand_bills, errors) {
     EXPECT_EQ(inclusive.at("errors").at(0).at("message"),
               "the bill of 2025-01-31 to 2025-02-27 overlaps the bill of 2025-01-01 to 2025-01-31 by 1 day (2025-01-31 to "
               "2025-01-31); each day may be billed once");
+    // The billed option's own rating: its problem is said at the option's field, where it is typed.
+    const auto bad_rating = evaluate(scenario_with(
+        {{"method", "bills"}, {"option", "gas"}, {"bills", json::array({ok})}},
+        json::array({{{"id", "gas"}, {"existing", true}, {"fuel", "natural-gas"}, {"price", {{"amount", 1.2}, {"per", "therm"}}},
+                      {"system", {{"kind", "furnace"}, {"efficiency", {{"value", -5}, {"rating", "AFUE"}}}}}}})));
+    EXPECT_EQ(bad_rating.at("errors").at(0).at("path").get<std::string>().rfind("/options/0/system/efficiency", 0), 0u)
+        << bad_rating.at("errors").dump();
     const auto bad_rule = evaluate(
         scenario_with({{"method", "bills"}, {"option", "gas"}, {"bill_dates", "monthly"}, {"bills", json::array({ok})}}));
     EXPECT_EQ(bad_rule.at("errors").at(0).at("path"), "/demand/bill_dates");
@@ -363,6 +370,12 @@ TEST(heat_pump_scenario, errors) {
                                                         {{"outdoor", {{"value", -7}, {"unit", "degC"}}}, {"capacity", {{"value", 6}, {"unit", "kW"}}}, {"cop", 2}}}}})),
               "/options/1/system/ratings/0/cop: a heat pump's COP cannot be below 1, got 0.7");
     EXPECT_EQ(error_of(heat_pump_scenario({{"cd", 1.5}})), "/options/1/system/cd: must be from 0 to 1, got 1.5");
+    // Temperatures no weather station has seen (-70 to 60 degC; WMO extremes, from memory), as a slip types them.
+    EXPECT_EQ(error_of(heat_pump_scenario({{"cutoff", {{"value", 1e9}, {"unit", "degF"}}}})),
+              "/options/1/system/cutoff/value: must be an outdoor temperature from -94 to 140 degF, got 1e+09 degF");
+    EXPECT_EQ(error_of(heat_pump_scenario({{"ratings", {{{"outdoor", {{"value", 7}, {"unit", "degC"}}}, {"capacity", {{"value", 9}, {"unit", "kW"}}}, {"cop", 3}},
+                                                        {{"outdoor", {{"value", -700}, {"unit", "degC"}}}, {"capacity", {{"value", 6}, {"unit", "kW"}}}, {"cop", 2}}}}})),
+              "/options/1/system/ratings/1/outdoor/value: must be an outdoor temperature from -70 to 60 degC, got -700 degC");
 }
 
 }  // namespace

@@ -38,7 +38,8 @@ strings questions_of(const json& scenario) {
     for (const auto& w : result.at("warnings")) {
         const auto path = w.at("path").get<std::string>();
         if (path.find("/price/amount") != std::string::npos || path.find("/efficiency/value") != std::string::npos ||
-            path.find("/capacity/value") != std::string::npos || path.rfind("/economics/", 0) == 0)
+            path.find("/capacity/value") != std::string::npos || path.rfind("/economics/", 0) == 0 ||
+            path.find("/fixed_charges/") != std::string::npos)
             out.push_back(path + ": " + w.at("message").get<std::string>());
     }
     return out;
@@ -63,6 +64,18 @@ TEST(plausibility, a_price_no_household_pays_is_questioned_with_the_range_in_its
     EXPECT_EQ(questions_of(gas_scenario({{"price", {{"amount", 14.5}}}}, {{"settings", {{"currency", "SEK"}}}})), strings{});
     // A currency the band does not know is not questioned.
     EXPECT_EQ(questions_of(gas_scenario({{"price", {{"amount", 1000}}}}, {{"settings", {{"currency", "JPY"}}}})), strings{});
+}
+
+TEST(plausibility, a_free_fuel_and_a_fixed_charge_no_household_pays_are_questioned) {
+    EXPECT_EQ(questions_of(gas_scenario({{"price", {{"amount", 0}}}})),
+              strings{"/options/0/price/amount: a price of 0 counts Natural gas as free; check the price"});
+    // A fixed charge typed a thousand times over; residential customer charges are about 5-50 USD a month (common practice).
+    EXPECT_EQ(questions_of(gas_scenario({{"fixed_charges", json::array({{{"label", "customer charge"}, {"amount_per_month", 1500}}})}})),
+              strings{"/options/0/fixed_charges/0/amount_per_month: 1500 USD a month is more than a household's service costs to "
+                      "keep (at most about 300 USD a month); check the amount and whether it is per month or per year"});
+    // 180 a year is 15 a month: no question.
+    EXPECT_EQ(questions_of(gas_scenario({{"fixed_charges", json::array({{{"label", "customer charge"}, {"amount_per_year", 180}}})}})),
+              strings{});
 }
 
 TEST(plausibility, an_efficiency_below_any_appliance_in_use_is_questioned) {

@@ -252,7 +252,14 @@ TEST(scenario_errors, every_field) {
     EXPECT_EQ(errors_of(one_option({{"system", {{"kind", "air-source-heat-pump"}, {"efficiency", {{"value", 3}, {"rating", "COP"}}}}}})),
               strings{"/options/0/system/kind: an air-source-heat-pump runs on electricity, not natural-gas"});
     EXPECT_EQ(errors_of(one_option({{"system", {{"distribution_loss", 1.5}}}})),
-              strings{"/options/0/system/distribution_loss: must be a fraction from 0 to below 1, got 1.5"});
+              strings{"/options/0/system/distribution_loss: must be a fraction from 0 to below 1 (0 % to below 100 %), got 1.5 (150 %)"});
+    // A heat pump's duct loss too (typed as 150 % it once gave a negative cost).
+    EXPECT_EQ(errors_of(one_option({{"fuel", "electricity"}, {"price", {{"amount", 0.15}, {"per", "kWh"}}},
+                                    {"system", {{"kind", "air-source-heat-pump"}, {"efficiency", {{"value", 3}, {"rating", "COP"}}},
+                                                {"distribution_loss", 1.5}}}})),
+              strings{"/options/0/system/distribution_loss: must be a fraction from 0 to below 1 (0 % to below 100 %), got 1.5 (150 %)"});
+    EXPECT_EQ(errors_of(one_option({{"system", {{"age_derating", -0.05}}}})),
+              strings{"/options/0/system/age_derating: must be a fraction from 0 to below 1 (0 % to below 100 %), got -0.05 (-5 %)"});
     EXPECT_EQ(errors_of(one_option({{"heating_value", {{"value", 1000}, {"unit", "Btu/gal"}}}})),
               strings{"/options/0/heating_value/unit: natural-gas is sold in therm, ccf, Mcf, ft3, m3, GJ, kWh, MMBtu; got \"gal\""});
     EXPECT_EQ(errors_of(one_option({{"id", "a b"}})),

@@ -241,6 +241,20 @@ describe('the verdict says it in words', () => {
     assert.equal(kw, 'At -15 °C the heat pump gives 12,3 kW, enough for the 11,1 kW the house needs. Below -20 °C the compressor stops and the backup heats alone.');
   });
 
+  test('a design temperature below the cut-out: the compressor has stopped, as the core says', () => {
+    // -14 °F design against a -13 °F cut-out: the core gives no capacity at design, and the sentence says why
+    const doc = withHeatPump();
+    doc.climate = { ...doc.climate, design_temperature: { value: -14, unit: 'degF' } };
+    doc.options.find((o) => o.id === 'hp').system.cutoff = { value: -13, unit: 'degF' };
+    const result = evaluate(doc);
+    const hp = result.options.find((o) => o.id === 'hp');
+    assert.equal(hp.capacity_at_design.value, 0);
+    const ws = scenario.fromScenario(doc);
+    const fmt = format.createFormat({ locale: 'en-US', currency: 'USD' });
+    const text = equipment.sizingSentence(hp, { ws, result, format: fmt, system: ws.systems[2].system, backupName: 'the backup' });
+    assert.match(text, /^At -14 °F, below the heat pump's cut-out of -13 °F, the compressor has stopped: the backup carries all [\d,]+ Btu\/h the house needs\.$/);
+  });
+
   test('the module\'s own answer for the variable-speed heat pump reads as a sentence with its numbers', () => {
     const doc = withHeatPump();
     const result = evaluate(doc);

@@ -57,6 +57,13 @@ describe('slips the page asks about', () => {
     assert.equal(slips.slipFor('/economics/discount_rate', demoWith((w) => { w.economics.discount_rate = 0.05; })), null);
     const escalation = demoWith((w) => { w.fuels[0].escalation = 0.0003; });
     assert.equal(slips.slipFor('/fuels/0/escalation', escalation).fix.value, 0.03);
+    // a loan's interest as a lender's sheet prints it (0.0699 for 6.99 %), which the quote sheet would print as 0.07 %
+    const loan = demoWith((w) => { w.quote.financing = { rate: 0.000699, years: 10 }; });
+    assert.deepEqual(slips.slipFor('/quote/financing/rate', loan), {
+      message: '0.0699 % a year is very small: did you mean 6.99 %?',
+      fix: { path: '/quote/financing/rate', value: 0.0699, text: 'Use 6.99 %' },
+    });
+    assert.equal(slips.slipFor('/quote/financing/rate', demoWith((w) => { w.quote.financing = { rate: 0.0699 }; })), null);
   });
 
   test('the core questions a price no household pays at the fuel the page shows it on', async () => {

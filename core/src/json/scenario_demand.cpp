@@ -590,7 +590,7 @@ void read_demand(const json& demand, scenario& out, const json& options_json, st
             }
         }
         equipment.sale.gas_pressure_pa = out.settings.gas_pressure_base_pa;
-        const auto efficiency = seasonal_efficiency_hhv(equipment.system, equipment.fuel, "/demand/system");
+        const auto efficiency = seasonal_efficiency_hhv(equipment.system, equipment.fuel, equipment.path.empty() || equipment.path == "/demand" ? "/demand/system" : equipment.path + "/system");
         if (!demand.contains("bills") || !demand.at("bills").is_array() || demand.at("bills").empty())
             throw input_error("/demand/bills", "needs at least one bill {start, end, quantity, unit}");
         const auto& list = demand.at("bills");

@@ -145,6 +145,7 @@ std::vector<fixed_charge> read_fixed_charges(const json& charges, const std::str
         require_at_most_max_amount(amount, charge_path + (monthly ? "/amount_per_month" : "/amount_per_year"));
         entry.amount_per_year = monthly ? *monthly * 12 : *yearly;
         entry.text = monthly ? format_fixed(*monthly, 2) + " per month x 12" : format_fixed(*yearly, 2) + " per year";
+        entry.path = charge_path + (monthly ? "/amount_per_month" : "/amount_per_year");
         out.push_back(entry);
     }
     return out;
@@ -153,6 +154,19 @@ std::vector<fixed_charge> read_fixed_charges(const json& charges, const std::str
 /// A temperature {value, unit} in degC.
 double read_temperature_c(const json& value, const std::string& path) {
     return quantity_in(value, path, dimension::temperature, "degC");
+}
+
+/// An outdoor temperature {value, unit} in degC, refused outside -70 to 60 degC (-94 to 140 degF), where
+/// no weather station has recorded one (World Meteorological Organization extremes, from memory).
+double read_outdoor_c(const json& value, const std::string& path) {
+    const double c = read_temperature_c(value, path);
+    if (!(c >= -70 && c <= 60)) {
+        const auto unit = value.is_object() && value.contains("unit") && value.at("unit").is_string() ? value.at("unit").get<std::string>() : "degC";
+        const bool f = unit == "degF";
+        throw input_error(path + "/value", std::string("must be an outdoor temperature from ") + (f ? "-94 to 140 degF" : "-70 to 60 degC") +
+                                               ", got " + format_number(f ? c * 9 / 5 + 32 : c) + (f ? " degF" : " degC"));
+    }
+    return c;
 }
 
 /// A power {value, unit} in kW.
@@ -194,7 +208,7 @@ void read_heat_pump_fields(const json& system, const std::string& path, scenario
             require_object(point, point_path);
             if (!point.contains("outdoor") || !point.contains("capacity"))
                 throw input_error(point_path, "needs \"outdoor\", \"capacity\" and \"cop\"");
-            heat_pump_point entry{read_temperature_c(point.at("outdoor"), point_path + "/outdoor"),
+            heat_pump_point entry{read_outdoor_c(point.at("outdoor"), point_path + "/outdoor"),
                                   read_power_kw(point.at("capacity"), point_path + "/capacity"),
                                   required_number(point, "cop", point_path)};
             if (entry.capacity_kw <= 0)
@@ -221,6 +235,9 @@ void read_heat_pump_fields(const json& system, const std::string& path, scenario
                                           format_number(point.at("min_capacity").value("value", 0.0)));
                 if (entry.min_cop < 1)
                     throw input_error(point_path + "/min_cop", "a heat pump's COP cannot be below 1, got " + format_number(entry.min_cop));
+                if (entry.min_cop > 15)
+                    throw input_error(point_path + "/min_cop",
+                                      "must be from 1 to 15 (data sheets give 1.5 to 6), got " + format_number(entry.min_cop));
             }
             for (const auto& other : option.ratings)
                 if (std::fabs(other.outdoor_c - entry.outdoor_c) < 1e-9)
@@ -228,7 +245,7 @@ void read_heat_pump_fields(const json& system, const std::string& path, scenario
             option.ratings.push_back(entry);
         }
     }
-    if (system.contains("cutoff")) option.cutoff_c = read_temperature_c(system.at("cutoff"), path + "/cutoff");
+    if (system.contains("cutoff")) option.cutoff_c = read_outdoor_c(system.at("cutoff"), path + "/cutoff");
     if (const auto cd = optional_number(system, "cd", path)) {
         if (*cd < 0 || *cd > 1) throw input_error(path + "/cd", "must be from 0 to 1, got " + format_number(*cd));
         option.cd = *cd;
@@ -241,7 +258,7 @@ void read_heat_pump_fields(const json& system, const std::string& path, scenario
                 throw input_error(path + "/changeover", "must be {value, unit} or \"optimal\"");
             option.changeover_optimal = true;
         } else {
-            option.changeover_c = read_temperature_c(*changeover, path + "/changeover");
+            option.changeover_c = read_outdoor_c(*changeover, path + "/changeover");
         }
     }
     if (system.contains("capacity")) {
@@ -669,6 +686,12 @@ scenario_option read_option(const json& item, const std::string& path, std::vect
                       system_path, warnings);
     option.system.distribution_loss = optional_number(system, "distribution_loss", system_path).value_or(0.0);
     option.system.age_derating = optional_number(system, "age_derating", system_path).value_or(0.0);
+    // Losses are shares of the heat: read here for every kind of system (a heat pump's too).
+    for (const auto& [key, share] : {std::pair{"distribution_loss", option.system.distribution_loss},
+                                     std::pair{"age_derating", option.system.age_derating}})
+        if (!(share >= 0 && share < 1))
+            throw input_error(system_path + "/" + key, "must be a fraction from 0 to below 1 (0 % to below 100 %), got " +
+                                                          format_number(share) + " (" + format_number(100 * share) + " %)");
     if (record && !option.fuel.custom &&
         std::find(record->fuels.begin(), record->fuels.end(), option.fuel.id) == record->fuels.end())
         warnings.push_back({system_path + "/catalog", record->id + " is not usually fired with " + option.fuel.id});

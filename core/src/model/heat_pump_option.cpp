@@ -195,9 +195,16 @@ option_result evaluate_heat_pump_option(const scenario& input, const scenario_op
     {
         bool unused = false;
         r.design_load_kw = house_design_load_kw(input).value_or(design_load_kw);
-        r.capacity_at_design_kw = interpolate(points, design_c, unused).capacity_kw;
+        // below its cut-out the compressor has stopped: nothing at the design temperature
+        const bool stopped = design_c < *option.cutoff_c;
+        r.capacity_at_design_kw = stopped ? 0.0 : interpolate(points, design_c, unused).capacity_kw;
         r.capacity_balance_c = capacity_balance_c(points, ua_kw, balance_c);
-        if (r.capacity_at_design_kw < r.design_load_kw)
+        if (stopped)
+            r.warnings.push_back("the design temperature " + temp_text(design_c) + " is below the heat pump's cut-out " +
+                                 temp_text(*option.cutoff_c) + ": on the coldest days the backup carries all " +
+                                 format_fixed(r.design_load_kw, 1) + " kW the house needs (resistance strips need their own "
+                                 "circuit and may need a larger electrical service: a licensed electrician to local code)");
+        else if (r.capacity_at_design_kw < r.design_load_kw)
             r.warnings.push_back("at the design temperature " + temp_text(design_c) + " the heat pump gives " +
                                  format_fixed(r.capacity_at_design_kw, 1) + " kW of the " + format_fixed(r.design_load_kw, 1) +
                                  " kW the house needs; the backup must carry the rest (resistance strips need their own "

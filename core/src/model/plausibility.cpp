@@ -25,6 +25,11 @@ constexpr double highest_discount_rate = 0.15;
 /// [1/year] Real energy price escalation outside this band is no forecast any agency publishes (common practice).
 constexpr double lowest_escalation = -0.10, highest_escalation = 0.15;
 
+/// [currency/month] Above this a fixed charge is more than any household's service costs to keep (common
+/// practice: residential customer charges are about 5-50 USD a month; in dollar-like currencies, ten times
+/// that in crowns).
+constexpr double highest_fixed_charge_per_month = 300;
+
 /// `value` rounded to `digits` significant digits, for ranges in messages.
 double round_to_significant(double value, int digits) {
     if (value == 0 || !std::isfinite(value)) return value;
@@ -50,6 +55,10 @@ void check_efficiency(const scenario_option& o, std::vector<issue>& out) {
 
 void check_price(const scenario_option& o, const std::string& currency, std::vector<issue>& out) {
     const auto band = household_price_band(currency);
+    if (o.price_per_unit == 0 && o.tiers.empty() && !o.schedule) {
+        out.push_back({o.path + "/price/amount", "a price of 0 counts " + o.fuel.name + " as free; check the price"});
+        return;
+    }
     if (!band || !(o.price_per_unit > 0)) return;
     double hhv_j = 0;
     try {
@@ -69,6 +78,17 @@ void check_price(const scenario_option& o, const std::string& currency, std::vec
                        format_number(round_to_significant(high, 2)) + " " + currency + " per " + o.price_unit + ", " +
                        format_number(band->low_per_kwh) + " to " + format_number(band->high_per_kwh) + " " + currency +
                        " per kWh of heat in the fuel); check the price and its unit"});
+}
+
+void check_fixed_charges(const scenario_option& o, const std::string& currency, std::vector<issue>& out) {
+    const auto band = household_price_band(currency);
+    if (!band) return;
+    const double limit = highest_fixed_charge_per_month * band->low_per_kwh / 0.003;  // ten times in crowns
+    for (const auto& charge : o.fixed_charges)
+        if (charge.amount_per_year / 12 > limit)
+            out.push_back({charge.path, format_number(round_to_significant(charge.amount_per_year / 12, 3)) + " " + currency +
+                                            " a month is more than a household's service costs to keep (at most about " +
+                                            format_number(limit) + " " + currency + " a month); check the amount and whether it is per month or per year"});
 }
 
 void check_heat_pump_size(const scenario_option& o, std::vector<issue>& out) {
@@ -125,6 +145,7 @@ std::vector<issue> plausibility_warnings(const scenario& s) {
     for (const auto& o : s.options) {
         check_efficiency(o, out);
         check_price(o, s.settings.currency, out);
+        check_fixed_charges(o, s.settings.currency, out);
         check_heat_pump_size(o, out);
     }
     if (s.economics) check_economics(*s.economics, out);

@@ -25,6 +25,7 @@ struct fixed_charge {
     std::string label;
     double amount_per_year = 0;  ///< [currency/year]
     std::string text;            ///< as entered, for the trace
+    std::string path;            ///< where it was entered ("/options/0/fixed_charges/1/amount_per_month")
 };
 
 /// A fuel whose service stays connected whatever heats the house (gas kept for a range and a water heater).
