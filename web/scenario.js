@@ -54,7 +54,8 @@ export function blankWorkspace({ units = 'us', currency = 'USD' } = {}) {
     title: '',
     description: '',
     quote: { customer: '', site: '', date: today(), prepared_by: '', notes: '', number: '', valid_until: '', terms: '' },
-    settings: { units, currency, gwp: 'AR5', energy_unit: us ? 'MMBtu' : 'kWh', paper: us ? 'letter' : 'a4' },
+    settings: { units, currency, gwp: 'AR5', energy_unit: us ? 'MMBtu' : 'kWh', paper: us ? 'letter' : 'a4',
+      elevation: { unit: us ? 'ft' : 'm' }, gas_pressure_base_mode: '' },
     demand: {
       method: 'direct',
       annual_useful_heat: { unit: us ? 'MMBtu' : 'kWh' },
@@ -442,6 +443,12 @@ export function toScenario(ws) {
   put(settings, 'electricity', electricityOf(ws));
   const kept = keptServicesOf(ws);
   if (kept.length) settings.kept_services = kept;
+  if (isNumber(ws.settings.elevation?.value)) settings.elevation = { value: ws.settings.elevation.value, unit: ws.settings.elevation.unit };
+  // the gas meter's pressure base: the site's air pressure, or one given in an imported quote (else the utility's standard)
+  if (ws.settings.gas_pressure_base_mode === 'site') settings.gas_pressure_base = 'site';
+  else if (ws.settings.gas_pressure_base_mode === 'given' && ws.settings.gas_pressure_base_given) settings.gas_pressure_base = clone(ws.settings.gas_pressure_base_given);
+  // settings of an imported quote this page does not edit travel on unchanged
+  for (const [key, value] of Object.entries(ws.settings.extra ?? {})) if (!(key in settings)) settings[key] = clone(value);
   doc.settings = settings;
   doc.demand = demandOf(ws.demand, ws);
   const climate = climateToScenario(ws.climate);
@@ -537,6 +544,7 @@ export function workspacePath(path, ws) {
     return fi >= 0 ? `/fuels/${fi}/spread` : '/uncertainty';
   }
   if (parts[1] === 'demand' && parts[2] === 'option') return '/demand/bills_option';
+  if (path.startsWith('/settings/gas_pressure_base')) return '/settings/gas_pressure_base_mode';
   // a climate the method needs is asked for at the choice of climate
   if (path === '/climate') return '/climate/mode';
   // the core asks for ua or a design heat loss at /demand/ua; the page shows the one the user chose
@@ -661,6 +669,15 @@ export function fromScenario(doc) {
   ws.settings.gwp = settings.gwp;
   if (settings.electricity_co2e_kg_per_kwh !== undefined) ws.settings.electricity_co2e_kg_per_kwh = settings.electricity_co2e_kg_per_kwh;
   if (settings.electricity && typeof settings.electricity === 'object') ws.settings.electricity = clone(settings.electricity);
+  if (settings.elevation && typeof settings.elevation === 'object') ws.settings.elevation = clone(settings.elevation);
+  if (settings.gas_pressure_base === 'site') ws.settings.gas_pressure_base_mode = 'site';
+  else if (settings.gas_pressure_base !== undefined) {
+    ws.settings.gas_pressure_base_mode = 'given';
+    ws.settings.gas_pressure_base_given = clone(settings.gas_pressure_base);
+  }
+  const settingsKnown = ['units', 'currency', 'gwp', 'electricity_co2e_kg_per_kwh', 'electricity', 'kept_services', 'elevation', 'gas_pressure_base'];
+  const extra = Object.fromEntries(Object.entries(settings).filter(([key]) => !settingsKnown.includes(key)).map(([k, v]) => [k, clone(v)]));
+  if (Object.keys(extra).length) ws.settings.extra = extra;
 
   const d = doc.demand ?? { method: 'direct' };
   const wd = ws.demand;

@@ -103,6 +103,12 @@ describe('Hot water and time-of-use electricity (Chromium, touch)', () => {
     // counted by hand from the steps above: 8 on the House tab, 20 for a three-row tariff (the gap said on the way), 10 for the option's own water heater
     assert.deepEqual({ houseTaps, fuelsTaps, systemsTaps }, { houseTaps: 8, fuelsTaps: 20, systemsTaps: 10 });
 
+    // the site is high up and its gas meter reads at the site's pressure: both go with the quote
+    await tap('#tab-house');
+    await typeInto(id('/settings/elevation/value'), '6200');
+    await choose(id('/settings/gas_pressure_base_mode'), 'site');
+    await page.locator('#site-elevation').screenshot({ path: join(ARTIFACTS, 'water-site-elevation-768.png') });
+
     await tap('#tab-verdict');
     // the charts repaint the verdict when they are drawn: the screenshots wait for them
     await chartsSettled(page);
@@ -118,6 +124,7 @@ describe('Hot water and time-of-use electricity (Chromium, touch)', () => {
     const [download] = await Promise.all([page.waitForEvent('download'), page.tap('[data-action="export-json"]')]);
     const doc = JSON.parse(readFileSync(await download.path(), 'utf8'));
     assert.equal(doc.demand.water_heating.people, 3);
+    assert.deepEqual([doc.settings.elevation, doc.settings.gas_pressure_base], [{ value: 6200, unit: 'ft' }, 'site']);
     const tariff = doc.options.find((o) => o.price?.schedule)?.price.schedule;
     assert.deepEqual(tariff.map((p) => [p.name, p.days ?? 'all', p.hours]),
       [['off-peak', 'all', [[21, 16]]], ['peak', 'weekdays', [[16, 21]]], ['off-peak', 'weekends', [[16, 21]]]]);

@@ -33,7 +33,7 @@ function everyOption() {
     { id: 'old-furnace', label: 'Existing furnace (invented)', existing: true, equipment: 'Invented Co. GF-80 (invented)', fuel: 'natural-gas',
       price: { amount: 1.45, per: 'ccf' }, fixed_charges: [{ label: 'Customer charge', amount_per_month: 18 }, { label: 'Meter rent', amount_per_year: 24 }],
       system: { kind: 'furnace', catalog: 'gas-furnace-standard', efficiency: { value: 80, rating: 'AFUE' }, distribution_loss: 0.12, age_derating: 0.05,
-        capacity: q(26.4, 'kW'), auxiliary_electricity: q(180, 'W') },
+        capacity: q(26.4, 'kW'), auxiliary_electricity: q(180, 'W'), altitude_rated: true },
       annual_maintenance: 150, life_years: 22 },
     { id: 'cold-climate-hp', label: 'Cold-climate heat pump (invented)', equipment: 'Invented Co. CX-36 (invented)', fuel: 'electricity',
       price: { amount: 0.16, per: 'kWh' },
@@ -66,7 +66,7 @@ function everyField(demand, climate) {
       notes: 'Measured on site (invented).', number: 'LC-0042', valid_until: '2027-01-03', terms: 'Half on signing (invented).',
       company: { name: 'Larchmere Comfort Heating (invented)', address: '2 Mill Road, Elm Fork (invented)', phone: '555-0177', email: 'office@larchmere.invalid', licence: 'LC-22-0419 (invented)' },
       financing: { rate: 0.069, years: 12 } },
-    settings: { units: 'us', currency: 'USD', gwp: 'AR6', electricity_co2e_kg_per_kwh: 0.31 },
+    settings: { units: 'us', currency: 'USD', gwp: 'AR6', electricity_co2e_kg_per_kwh: 0.31, elevation: q(1890, 'm'), gas_pressure_base: 'site' },
     demand,
     climate,
     options: everyOption(),
@@ -138,6 +138,19 @@ describe('every field through the workspace, the device and the file', () => {
     const again = scenario.fromScenario(file);
     const propane = again.fuels.find((f) => f.fuel === 'propane');
     assert.deepEqual([propane.price, propane.fixed_charges], [{ amount: 2.89, per: 'gal' }, [{ label: 'Tank rental', amount_per_year: 85 }]]);
+  });
+});
+
+describe('settings the page does not show as fields', () => {
+  test('a pressure base given as a pressure, and a setting of a later version, travel on unchanged', () => {
+    const doc = everyField(...DEMANDS['a known yearly heat need in GJ']);
+    doc.settings.gas_pressure_base = q(14.73, 'psia');
+    doc.settings.later_setting = { kept: true };
+    const ws = scenario.fromScenario(structuredClone(doc));
+    assert.equal(ws.settings.gas_pressure_base_mode, 'given');
+    const back = scenario.toScenario(ws);
+    assert.deepEqual(back.settings.gas_pressure_base, q(14.73, 'psia'));
+    assert.deepEqual(back.settings.later_setting, { kept: true });
   });
 });
 

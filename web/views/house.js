@@ -4,7 +4,7 @@ import { h } from '../dom.js';
 import { checkField, numberField, radioField, selectField, textField } from '../fields.js';
 import { monthNames } from '../format.js';
 import { observedSpan } from '../weather.js';
-import { POWER_UNITS, UA_UNITS } from '../units.js';
+import { POWER_UNITS, UA_UNITS, unitLabel } from '../units.js';
 import { fuelName } from './fuels.js';
 import { waterHeaterFields } from './water-heater.js';
 
@@ -214,6 +214,21 @@ function climateRecords(c) {
   return nodes;
 }
 
+/** The site's elevation and the pressure the gas meter reads at: gas appliances lose output with altitude. */
+function siteFields(ctx, ws) {
+  const st = ws.settings;
+  const given = st.gas_pressure_base_given;
+  const choices = [['', 'Standard pressure (corrected)'], ['site', 'Site pressure (not corrected)']];
+  if (given) choices.push(['given', `${given.value} ${unitLabel(given.unit)}, as in the imported quote`]);
+  return h('fieldset', { class: 'group', id: 'site-elevation' }, h('legend', { text: 'Site elevation' }),
+    h('div', { class: 'grid two' },
+      quantityField(ctx, 'Elevation above sea level (optional)', '/settings/elevation', st.elevation, ['ft', 'm'],
+        { hint: 'Above 2,000 ft gas appliances are derated (fuel gas code, 4 % for each 1,000 ft) unless rated for altitude.' }),
+      selectField(ctx, { label: 'Gas meter volumes are at', path: '/settings/gas_pressure_base_mode', value: st.gas_pressure_base_mode ?? '',
+        choices, hint: 'At altitude, for gas priced or billed in ccf or m³ without a therm factor: whether the utility corrects the meter\'s volumes to its standard pressure. Its bill or tariff says which.' })),
+    h('p', { class: 'hint', text: 'Derating at altitude and burner orifices are set by the installer to the appliance\'s instructions and local code.' }));
+}
+
 /** Renders the house panel from the workspace. */
 export function renderHouse(container, ctx) {
   const ws = ctx.store.state;
@@ -229,6 +244,6 @@ export function renderHouse(container, ctx) {
   const climate = h('fieldset', { class: 'group', id: 'climate-group' }, h('legend', { text: 'Climate' }), climateFields(ctx, ws));
   // the weather file and the climate library: nodes owned by web/climates.js, placed here as they are
   const tools = ctx.climateTools ? [ctx.climateTools.weatherNode, ctx.climateTools.libraryNode] : [];
-  container.replaceChildren(quoteFields(ctx, ws), demand, waterHeatingFields(ctx, ws), climate, ...tools);
+  container.replaceChildren(quoteFields(ctx, ws), demand, waterHeatingFields(ctx, ws), climate, ...tools, siteFields(ctx, ws));
 }
 

@@ -84,6 +84,8 @@ function heatPumpFields(ctx, ws, base, sys, index) {
 }
 
 const AUX_UNITS = [['kWh', 'kWh a year'], ['W', 'W while the burner runs']];
+/** Fuels burned as gas, whose appliances the fuel gas code derates at altitude. */
+const GAS_FUELS = ['natural-gas', 'propane'];
 
 /** A furnace's, boiler's or stove's output capacity and its own electricity, with the catalog's default shown, not entered. */
 function fuelBurningFields(ctx, ws, base, sys, entry) {
@@ -106,7 +108,12 @@ function fuelBurningFields(ctx, ws, base, sys, entry) {
     numberField(ctx, { label: 'Its own electricity (optional)', path: `${base}/system/auxiliary_electricity/value`, value: aux.value,
       placeholder: placeholder || undefined,
       unit: { path: `${base}/system/auxiliary_electricity/unit`, value: unit, choices: AUX_UNITS, structural: true },
-      hint: `${meaning} ${defaultText}` }));
+      hint: `${meaning} ${defaultText}` }),
+    // at a site elevation a gas appliance's output is derated unless it is rated for altitude
+    typeof ws.settings.elevation?.value === 'number' && GAS_FUELS.includes(typeof entry?.fuel === 'string' ? entry.fuel : '')
+      ? checkField(ctx, { label: 'Rated for this altitude (no derating)', path: `${base}/system/altitude_rated`, checked: Boolean(sys.altitude_rated),
+        hint: 'Tick it when the appliance\'s listing covers the site\'s elevation, as high-altitude models and kits do.' })
+      : null);
 }
 
 function economicFields(ctx, ws, base, sys) {
