@@ -5,7 +5,7 @@ import { createClimateTools } from './climates.js';
 import { createTemplateTools } from './template-shelf.js';
 import { CoreClient } from './core-client.js';
 import { download, h } from './dom.js';
-import { bindFields, showFieldErrors } from './fields.js';
+import { bindFields, restoreTyped, showFieldErrors } from './fields.js';
 import { createFormat, formatInput, isCurrency, isLocale } from './format.js';
 import { demoWorkspace } from './demo.js';
 import { isKiosk } from './kiosk-scenario.js';
@@ -120,6 +120,7 @@ function paintInputs() {
     renderHouse(panels.house, ctx);
     renderFuels(panels.fuels, ctx);
     renderSystems(panels.systems, ctx);
+    restoreTyped([panels.house, panels.fuels, panels.systems], localErrors);
   });
   showErrors();
 }

@@ -3,7 +3,7 @@
 // panel turns typing into store.set(). Errors from the core ({path, message},
 // a path into the scenario) are shown next to the field they point at.
 import { h, idFor } from './dom.js';
-import { clockInput, formatInput, parseClock, parseNumber, plainUnits } from './format.js';
+import { clockInput, formatInput, parseClock, parseNumber, parsePrice, plainUnits } from './format.js';
 import { workspacePath } from './scenario.js';
 import { unitLabel } from './units.js';
 
@@ -31,15 +31,16 @@ function describedBy(input, path, hint) {
 }
 
 /**
- * A number field: {label, path, value, unit: {path, value, choices} | text, scale, hint, placeholder}.
- * `scale` multiplies the stored value for display (100 shows a fraction as %).
+ * A number field: {label, path, value, unit: {path, value, choices} | text, scale, hint, placeholder, currency}.
+ * `scale` multiplies the stored value for display (100 shows a fraction as %); with `currency` it is a price,
+ * read as a bill prints it ("$1.42/therm", parsePrice).
  */
-export function numberField(ctx, { label, path, value, unit, scale = 1, hint, placeholder, className }) {
+export function numberField(ctx, { label, path, value, unit, scale = 1, hint, placeholder, className, currency }) {
   const input = h('input', {
     id: idFor(path), type: 'text', inputmode: 'decimal', autocomplete: 'off', spellcheck: 'false',
     value: formatInput(typeof value === 'number' ? value * scale : value, ctx.locale),
     placeholder: placeholder ?? undefined,
-    dataset: { path, kind: 'number', ...(scale !== 1 ? { scale: String(scale) } : {}) },
+    dataset: { path, kind: 'number', ...(scale !== 1 ? { scale: String(scale) } : {}), ...(currency ? { currency } : {}) },
   });
   describedBy(input, path, hint);
   let control = input;
@@ -102,6 +103,13 @@ export function radioField(ctx, { legend, path, value, choices, structural = tru
 /** Parses an input's value by its data-kind; {ok, value} or {ok: false, message}. */
 function readInput(input, locale) {
   const { kind, scale } = input.dataset;
+  if (kind === 'number' && input.dataset.currency) {
+    // a price: its currency sign and its unit as printed are read (the unit must be the menu's beside it)
+    const unit = input.closest('.with-unit')?.querySelector('select')?.value ?? '';
+    const price = parsePrice(input.value, locale, { currency: input.dataset.currency, unit });
+    if (price.message) return { ok: false, message: price.message };
+    return { ok: true, value: price.value ?? undefined };
+  }
   if (kind === 'number') {
     const number = parseNumber(input.value, locale);
     if (number === null) return { ok: true, value: undefined };
@@ -117,6 +125,26 @@ function readInput(input, locale) {
   if (kind === 'check') return { ok: true, value: input.checked };
   if (kind === 'radio') return { ok: true, value: input.value };
   return { ok: true, value: input.value };
+}
+
+/** What was typed into a field that cannot be read, by path: shown again when its panel is drawn anew. */
+const typedText = new Map();
+
+/**
+ * Puts back into the fields under `roots` what was typed where it could not be read (`localErrors`): a
+ * panel drawn anew from the store would otherwise show the last value read ("1" for "1,42").
+ */
+export function restoreTyped(roots, localErrors) {
+  for (const [path, text] of typedText) {
+    if (!localErrors.has(path)) {
+      typedText.delete(path);
+      continue;
+    }
+    for (const root of roots) {
+      const input = root.querySelector(`[data-path="${CSS.escape(path)}"]:not([data-action])`);
+      if (input && input.value !== text) input.value = text;
+    }
+  }
 }
 
 /**
@@ -135,10 +163,12 @@ export function bindFields(root, ctx, localErrors) {
     const read = readInput(input, ctx.locale);
     if (!read.ok) {
       localErrors.set(path, read.message);
+      typedText.set(path, input.value);
       showMessage(root, path, read.message);
       ctx.onLocalError?.();
       return;
     }
+    typedText.delete(path);
     if (localErrors.delete(path)) {
       showMessage(root, path, '');
       ctx.onLocalError?.();

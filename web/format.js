@@ -1,6 +1,7 @@
 // Locale formatting and parsing through Intl.NumberFormat: money in the
 // scenario's currency, quantities, dates, and numbers typed with the locale's
 // decimal separator (a decimal comma is accepted where the locale uses one).
+import { unitLabel } from './units.js';
 
 const cache = new Map();
 function nf(locale, options) {
@@ -118,6 +119,56 @@ export function clockTime(hours) {
 export function clockInput(hours) {
   if (typeof hours !== 'number' || !Number.isFinite(hours)) return '';
   return Number.isInteger(hours) ? String(hours) : clockTime(hours);
+}
+
+/** Unit words a price may be typed per, as sheets and receipts print them, by the unit they name. */
+const PER_WORDS = {
+  therm: ['therm', 'therms', 'thm'], kWh: ['kwh'], gal: ['gal', 'gallon', 'gallons'], L: ['l', 'litre', 'liter', 'litres', 'liters', 'ltr'],
+  ccf: ['ccf'], Mcf: ['mcf'], m3: ['m3', 'm³', 'cubic metre', 'cubic meter'], ft3: ['ft3', 'ft³', 'cubic foot', 'cubic feet'],
+  kg: ['kg'], lb: ['lb', 'lbs', 'pound'], short_ton: ['ton', 'short ton'], tonne: ['tonne', 't'], cord: ['cord'], face_cord: ['face cord'],
+  MMBtu: ['mmbtu'], GJ: ['gj'], MJ: ['mj'], imp_gal: ['imp gal', 'imp. gal', 'imperial gallon'],
+};
+
+/**
+ * A price typed as a bill or a sign prints it, in `currency` per `unit`: "1.42", "$1.42", "1,42 €", "USD 1.42",
+ * "$1.42/therm", "17.5¢/kWh" (cents are hundredths), "0.17 per kWh". The currency sign must be the quote's and
+ * the unit the one chosen beside the field. {value} (null for an empty field), or {message} saying what does not read.
+ */
+export function parsePrice(text, locale, { currency, unit }) {
+  let t = String(text ?? '').trim().replace(/\s+/g, ' ');
+  if (!t) return { value: null };
+  let per;
+  const perMatch = /\s*(?:\/|\bper\b|\ba\b)\s*([a-z³0-9. ]+?)\.?$/i.exec(t);
+  if (perMatch) {
+    per = perMatch[1].toLowerCase().trim();
+    t = t.slice(0, perMatch.index).trim();
+    const named = Object.entries(PER_WORDS).find(([, words]) => words.includes(per))?.[0];
+    if (!named) return { message: `"${perMatch[1].trim()}" is not a unit a price is given per` };
+    if (named !== unit) return { message: `typed per ${perMatch[1].trim()}; this price is per ${unitLabel(unit)}: choose ${unitLabel(named)} in the menu beside it` };
+  }
+  let scale = 1;
+  if (/(¢|\bcents?)$/i.test(t)) {
+    scale = 0.01;
+    t = t.replace(/\s*(¢|cents?)$/i, '');
+  }
+  const symbols = new Set([currency]);
+  try {
+    for (const display of ['symbol', 'narrowSymbol']) {
+      const part = new Intl.NumberFormat(locale, { style: 'currency', currency, currencyDisplay: display }).formatToParts(1).find((p) => p.type === 'currency');
+      if (part) symbols.add(part.value);
+    }
+  } catch { /* a currency Intl does not know: its code alone */ }
+  for (const symbol of symbols) {
+    const escaped = symbol.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+    const stripped = t.replace(new RegExp(`^${escaped}\\s*|\\s*${escaped}$`, 'i'), '');
+    if (stripped !== t) { t = stripped; break; }
+  }
+  // a sign or code left over is another currency's ("€1.42" on a quote in USD)
+  const foreign = /^([^\d\s.,+\-−a-z]{1,3}|[A-Z]{3})\s*[\d.,]|[\d.,]\s*([^\d\s.,'’a-z]{1,3}|[A-Z]{3})$/.exec(t);
+  if (foreign) return { message: `${foreign[1] ?? foreign[2]} is not this quote's currency (${currency}): type the price in ${currency}` };
+  const number = parseNumber(t, locale);
+  if (number === null || Number.isNaN(number)) return { message: 'Not a number' };
+  return { value: Number((number * scale).toPrecision(12)) };
 }
 
 /** A number for an input field: the locale's decimal separator, no grouping, up to 6 significant digits. */

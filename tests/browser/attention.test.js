@@ -1,5 +1,5 @@
 // Entries that need attention, in headless Chromium with touch, driven as a person would (taps
-// and typing): a price typed as "$1.45" marks the verdict out of date at once and names the field
+// and typing): a price typed as "1..45" (a doubled point) marks the verdict out of date at once and names the field
 // until it reads again; an AFUE typed as 0.95 is asked about with a one-tap fix to 95 %; the
 // verdict's list of fields to fix jumps to the field (its tab, in view, focused, nothing covering
 // it), at 768x1024 and 390x844. Screenshots go to build/test-artifacts. The demo is invented.
@@ -103,13 +103,18 @@ for (const viewport of [{ width: 768, height: 1024 }, { width: 390, height: 844 
       const { page } = session;
       try {
         await page.tap('#tab-fuels');
-        await typeInto(page, GAS_PRICE, '$1.45');
+        await typeInto(page, GAS_PRICE, '1..45');
         await page.waitForSelector('#verdict-stale', { state: 'attached' });
         assert.equal(await page.textContent(`${id('/fuels/1/price/amount')}-msg`), 'Not a number');
         assert.match(await page.textContent('#verdict-stale'),
           /^Out of date: Natural gas: Price \(USD\) cannot be read, so the figures below are for the earlier entries\.$/);
         assert.equal(await page.$eval('#verdict-body', (b) => b.classList.contains('stale')), true);
         assert.match(await page.textContent('#summary-text'), /^Out of date: Natural gas: Price \(USD\) cannot be read\.$/);
+        // the card drawn anew (a fixed charge added) shows what was typed, not the last price read
+        await page.tap('[data-action="add-charge"][data-fuel="/fuels/1"]');
+        await page.waitForSelector(id('/fuels/1/fixed_charges/1/label'));
+        assert.equal(await page.inputValue(GAS_PRICE), '1..45');
+        assert.equal(await page.textContent(`${id('/fuels/1/price/amount')}-msg`), 'Not a number');
         await typeInto(page, GAS_PRICE, '1.45');
         await page.waitForSelector('#verdict-stale', { state: 'detached' });
         await verdictSettled(page);

@@ -47,6 +47,29 @@ describe('web/format.js times of day', () => {
   });
 });
 
+describe('web/format.js prices as printed', () => {
+  test('a currency sign, cents and a unit are read; another currency or unit is said', () => {
+    const usd = { currency: 'USD', unit: 'therm' };
+    const read = (text, opts = usd, locale = 'en-US') => format.parsePrice(text, locale, opts);
+    assert.deepEqual(read('1.42'), { value: 1.42 });
+    assert.deepEqual(read('$1.42'), { value: 1.42 });
+    assert.deepEqual(read(' $ 1.42 '), { value: 1.42 });
+    assert.deepEqual(read('USD 1.42'), { value: 1.42 });
+    assert.deepEqual(read('$1.42/therm'), { value: 1.42 });
+    assert.deepEqual(read('1.42 per therm'), { value: 1.42 });
+    assert.deepEqual(read('$0.17/kWh', { currency: 'USD', unit: 'kWh' }), { value: 0.17 });
+    assert.deepEqual(read('17.5¢/kWh', { currency: 'USD', unit: 'kWh' }), { value: 0.175 });
+    assert.deepEqual(read('1,42 €', { currency: 'EUR', unit: 'kWh' }, 'de-DE'), { value: 1.42 });
+    assert.deepEqual(read('$3.89/gal', { currency: 'USD', unit: 'gal' }), { value: 3.89 });
+    assert.deepEqual(read(''), { value: null });
+    assert.deepEqual(read('$1.42/kWh'), { message: 'typed per kWh; this price is per therm: choose kWh in the menu beside it' });
+    assert.deepEqual(read('€1.42'), { message: '€ is not this quote\'s currency (USD): type the price in USD' });
+    assert.deepEqual(read('1.42/bucket'), { message: '"bucket" is not a unit a price is given per' });
+    assert.deepEqual(read('abc'), { message: 'Not a number' });
+    assert.deepEqual(read('1..45'), { message: 'Not a number' });
+  });
+});
+
 describe('web/schedule.js', () => {
   test('months as typed', () => {
     assert.deepEqual(schedule.parseMonths(''), []);

@@ -99,7 +99,7 @@ function fuelCard(ctx, ws, entry, index) {
   if (custom) nodes.push(customFuelFields(ctx, base, entry.fuel));
   const timeOfUse = id === 'electricity' && Boolean(entry.price?.time_of_use);
   if (!timeOfUse) {
-    nodes.push(numberField(ctx, { label: `Price (${currency})`, path: `${base}/price/amount`, value: entry.price?.amount,
+    nodes.push(numberField(ctx, { label: `Price (${currency})`, path: `${base}/price/amount`, value: entry.price?.amount, currency,
       unit: { path: `${base}/price/per`, value: entry.price?.per, choices: units.map((u) => [u, `per ${unitLabel(u)}`]), structural: true },
       hint: 'As paid, with delivery and taxes.' }));
   }
