@@ -188,11 +188,11 @@ function riseIn(q, system) {
 
 /**
  * A new time-of-use row on an electricity entry: the first one covers every hour at the entry's one price (so the
- * tariff is complete from the start), later ones start empty.
+ * tariff is complete from the start), later ones start with a name of their own ("period 2") and no price or hours.
  */
 export function addPeriod(entry) {
   const schedule = entry.price.schedule ?? [];
   entry.price.schedule = schedule;
   if (!schedule.length) schedule.push({ name: 'all hours', amount: entry.price.amount, from: 0, to: 24, days: 'all', months_text: '' });
-  else schedule.push({ name: '', days: 'all', months_text: '' });
+  else schedule.push({ name: `period ${schedule.length + 1}`, days: 'all', months_text: '' });
 }

@@ -179,7 +179,8 @@ export function waterHeaterOf(heater, ws) {
   const out = {};
   put(out, 'kind', heater?.kind || undefined);
   if (!BOILER_WATER_HEATERS.includes(heater?.kind)) {
-    put(out, 'fuel', heater?.fuel || undefined);
+    // a heat-pump water heater runs on electricity alone: that is its fuel until another is chosen
+    put(out, 'fuel', heater?.fuel || (heater?.kind === 'heat-pump-water-heater' ? 'electricity' : undefined));
     if (isNumber(heater?.uef)) out.uef = heater.uef;
     else if (isNumber(heater?.efficiency?.value)) out.efficiency = { value: heater.efficiency.value, rating: heater.efficiency.rating ?? 'UEF' };
     else out.uef = null;  // the core asks for it at its field

@@ -401,6 +401,9 @@ TEST(time_of_use, a_schedule_as_typed_gets_a_message_at_its_field) {
     e = error_for({{{"name", "all"}, {"amount", 21}, {"hours", {{0, 24}}}}});
     EXPECT_EQ(e.at("path"), "/options/0/price/schedule/0/amount");
     EXPECT_EQ(e.at("message"), "must be a price per kWh below 10, got 21 (cents? 21 cents is 0.21)");
+    e = error_for({{{"name", ""}, {"amount", 0.2}, {"hours", {{0, 24}}}}});
+    EXPECT_EQ(e.at("path"), "/options/0/price/schedule/0/name");
+    EXPECT_EQ(e.at("message"), "is required: the period's name as the tariff gives it (peak, off-peak…)");
     e = error_for({{{"name", "all"}, {"amount", 0.2}, {"hours", {{0, 16.25}}}}});
     EXPECT_EQ(e.at("path"), "/options/0/price/schedule/0/hours/0/1");
     EXPECT_EQ(e.at("message"), "must fall on the hour or the half hour, from 0 to 24 (16.5 is 16:30), got 16.25 (16:15)");

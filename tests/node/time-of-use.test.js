@@ -117,6 +117,9 @@ describe('web/schedule.js', () => {
     editing.addPeriod(entry);
     assert.deepEqual(entry.price.schedule[0], { name: 'all hours', amount: 0.2, from: 0, to: 24, days: 'all', months_text: '' },
       'the first period covers every hour at today\'s price');
+    const second = structuredClone(entry);
+    editing.addPeriod(second);
+    assert.deepEqual(second.price.schedule[1], { name: 'period 2', days: 'all', months_text: '' }, 'a later period has a name of its own');
     entry.price.time_of_use = true;
     entry.price.schedule[0].months_text = 'summer';
     const answer = JSON.parse(core.evaluate(JSON.stringify(scenario.toScenario(ws))));

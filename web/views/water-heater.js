@@ -38,9 +38,11 @@ export function waterHeaterFields(ctx, base, heater = {}, { boiler = true } = {}
         placeholder: '50', hint: 'About 50 W for a well-insulated 40 to 50 gal tank when left empty.' }));
     }
   } else {
+    const fuels = heaterFuels(ctx.catalog, kind);
     nodes.push(h('div', { class: 'grid two' },
-      selectField(ctx, { label: 'Runs on', path: `${base}/fuel`, value: heater.fuel ?? '', structural: true,
-        choices: [['', 'Choose…'], ...heaterFuels(ctx.catalog, kind)] }),
+      // one fuel to run on (a heat-pump water heater's electricity) is shown as chosen, as the scenario sends it
+      selectField(ctx, { label: 'Runs on', path: `${base}/fuel`, value: heater.fuel || (fuels.length === 1 ? fuels[0][0] : ''), structural: true,
+        choices: fuels.length === 1 ? fuels : [['', 'Choose…'], ...fuels] }),
       numberField(ctx, { label: 'Uniform energy factor (UEF)', path: `${base}/uef`, value: heater.uef,
         hint: kind === 'heat-pump-water-heater' ? 'On the label, e.g. 3.5.' : 'On the label, e.g. 0.64 for a gas tank, 0.93 for an electric one.' })));
   }

@@ -365,6 +365,8 @@ price_schedule read_price_schedule(const json& list, const std::string& path, st
         const auto& period_json = list[i];
         require_object(period_json, item);
         schedule_period period;
+        if (!period_json.contains("name") || (period_json.at("name").is_string() && period_json.at("name").get<std::string>().empty()))
+            throw input_error(item + "/name", "is required: the period's name as the tariff gives it (peak, off-peak…)");
         period.name = required_string(period_json, "name", item);
         if (period.name.empty() || period.name.size() > 40) throw input_error(item + "/name", "must be 1 to 40 characters");
         period.amount_per_kwh = required_number(period_json, "amount", item);
@@ -433,7 +435,7 @@ water_heater_spec read_water_heater(const json& item, const std::string& path, s
         else
             heater.fuel = find_fuel(*fuel, path + "/fuel");
     } else if (!by_boiler) {
-        throw input_error(path + "/fuel", "is required (the fuel id the water heater runs on, e.g. natural-gas or electricity)");
+        throw input_error(path + "/fuel", "is required: the fuel the water heater runs on");
     }
     if (heater.kind == water_heater_kind::heat_pump_water_heater && heater.fuel && heater.fuel->category != fuel_category::electricity)
         throw input_error(path + "/fuel", "a heat-pump water heater runs on electricity, not " + heater.fuel->id);
