@@ -85,7 +85,7 @@ function resultsTable(ws, result, ctx) {
   const massUnit = ws.settings.units === 'us' ? 'lb' : 'kg';
   const list = rankedOptions(result, 'annual');
   const econ = Boolean(ws.economics?.enabled) && list.some((o) => Number.isFinite(o.life_cycle_cost));
-  const head = ['#', 'Option', 'Per year', `Per ${energyUnit}`, 'Fuel used', `CO2e ${massUnit}/yr`, ...(econ ? ['Payback', 'Life-cycle cost'] : [])];
+  const head = ['#', 'Option', 'Per year', `Energy per ${energyUnit}`, 'Fuel used', `CO2e ${massUnit}/yr`, ...(econ ? ['Payback', 'Life-cycle cost'] : [])];
   return h('table', { class: 'print-table' },
     h('thead', {}, h('tr', {}, head.map((t) => h('th', { scope: 'col', text: t })))),
     h('tbody', {}, list.map((o, i) => {
@@ -96,7 +96,9 @@ function resultsTable(ws, result, ctx) {
         ...(econ ? [h('td', { text: paybackWords(o, { lifeYears: lifeOf(ws, o), studyYears: result.economics?.analysis_years,
           baselineId: result.economics?.baseline, format }) ?? 'the system now' }),
           h('td', { text: format.money(o.life_cycle_cost) })] : []));
-    })));
+    })),
+    h('tfoot', {}, h('tr', {}, h('td', { colspan: String(head.length), class: 'note',
+      text: `Energy per ${energyUnit}: the fuel and electricity a unit of heat delivered takes; fixed charges are in the cost per year.` }))));
 }
 
 /** The contractor's block: logo, name, address, phone, e-mail and licence number (from the quote's copy of the profile). */
@@ -106,7 +108,8 @@ function companyBlock(q) {
   return h('div', { class: 'company', id: 'sheet-company' },
     c.logo ? h('img', { class: 'company-logo', src: c.logo, alt: c.name ? `${c.name} logo` : 'Logo' }) : null,
     h('div', {},
-      h('p', { class: 'company-name', text: c.name || q.prepared_by || 'Heating cost comparison' }),
+      // without a company or a name the sheet's title heads it alone (not twice)
+      c.name || q.prepared_by ? h('p', { class: 'company-name', text: c.name || q.prepared_by }) : null,
       c.address ? h('p', { text: c.address }) : null,
       contact ? h('p', { text: contact }) : null,
       c.licence ? h('p', { id: 'sheet-licence', text: `Licence ${c.licence}` }) : null));

@@ -402,7 +402,7 @@ describe('Chromium, tablet portrait 820x1180 with touch', () => {
     await page.tap('label[for="units-metric"]');
     await settled();
     let shown = await row(gas.id);
-    assert.ok(shown.header.includes('Per kWh of heat'), shown.header.join('|'));
+    assert.ok(shown.header.includes('Energy per kWh of heat'), shown.header.join('|'));
     assert.ok(close(shown.perUseful.value, gas.cost_per_useful_kwh), 'cost per useful kWh');
     assert.ok(close(shown.co2e.value, gas.co2e_kg), 'CO2e in kg');
     assert.ok(close(shown.annual.value, gas.annual_cost), 'annual cost unchanged');

@@ -11,7 +11,7 @@ export function table(result, ws, ctx, by) {
   const massUnit = ws.settings.units === 'us' ? 'lb' : 'kg';
   const list = rankedOptions(result, by);
   const econ = hasLifeCycle(result, ws);
-  const head = ['#', 'Option', 'Per year', `Per ${energyUnit} of heat`, 'Fuel used', `CO2e ${massUnit}/yr`];
+  const head = ['#', 'Option', 'Per year', `Energy per ${energyUnit} of heat`, 'Fuel used', `CO2e ${massUnit}/yr`];
   if (econ) head.push('Life-cycle cost');
   const rows = list.map((option, i) => {
     const v = displayValues(option, ws);
@@ -25,7 +25,7 @@ export function table(result, ws, ctx, by) {
         option.id === result.economics?.baseline || option.existing ? h('span', { class: 'badge existing', text: 'existing' }) : null),
       h('td', { dataset: { label: head[2] } }, numButton(option, 'annual_cost', v.annual_cost, format.money(v.annual_cost), 'Annual cost'),
         h('span', { class: 'sub', text: `${format.money(v.energy_cost)} energy + ${format.money(v.fixed_cost)} fixed` })),
-      h('td', { dataset: { label: head[3] } }, numButton(option, 'cost_per_useful', v.cost_per_useful, format.price(v.cost_per_useful), `Cost per ${energyUnit} of useful heat`)),
+      h('td', { dataset: { label: head[3] } }, numButton(option, 'cost_per_useful', v.cost_per_useful, format.price(v.cost_per_useful), `Energy cost per ${energyUnit} of useful heat (fixed charges are in the cost per year)`)),
       h('td', { dataset: { label: head[4] } }, numButton(option, 'fuel_quantity', v.fuel_quantity, fuelUsedText(option, v, format), 'Fuel used per year')),
       h('td', { dataset: { label: head[5] } }, numButton(option, 'co2e', v.co2e, format.number(v.co2e, 3), `CO2e ${massUnit} per year`)),
     ];
