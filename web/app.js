@@ -390,8 +390,9 @@ function runAnalyses() {
   const fuelIndex = defaultSweepFuel(ws, result);
   const entry = ws.fuels[fuelIndex];
   const name = fuelName(entry, ctx.catalog);
-  const now = entry?.price?.amount;
   const users = ws.systems.filter((s) => s.fuel_key === entry?.key).map((s) => s.id);
+  // by time of use, today's price is the mean the core worked out over the schedule's hours (every period moves with it)
+  const now = entry?.price?.time_of_use ? result.options.find((o) => users.includes(o.id))?.price?.amount : entry?.price?.amount;
   const none = (message) => {
     analyses.drop();
     setProgress(null);

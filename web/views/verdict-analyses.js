@@ -55,6 +55,10 @@ export function sweepSection(result, ws, ctx, analysis) {
       title: life ? 'Life-cycle cost against one price' : 'Annual cost against one price' }));
     slot.append(h('ul', { class: 'legend' }, series.map((sr, i) => h('li', {}, h('span', { class: 'swatch line', dataset: { i: String(i % 8) } }), sr.label))));
     const what = life ? 'over the years' : 'a year';
+    if (entry?.price?.time_of_use && isNum(sweep.current)) {
+      notes.append(h('li', { class: 'tou-mean', text: `Priced by time of use: the price here is the mean over the tariff's hours, today ${
+        format.price(sweep.current)} per ${per}; every period's price moves with it.` }));
+    }
     for (const m of marks) {
       notes.append(h('li', { dataset: { with: m.with, value: String(m.x) } },
         traceButton('sweep', m.x, `${format.price(m.x)} per ${per}`, 'Break-even price', { with: m.with }),
