@@ -161,6 +161,11 @@ TEST(climate_errors, messages) {
               "/climate/design_temperature: is required with annual_hdd (the 99 % heating design temperature)");
     EXPECT_EQ(error_of({{"unit", "degC"}}),
               "/climate: give monthly_mean (12 values), monthly_hdd (12 values), or annual_hdd with design_temperature");
+    // A base typed as -5 degF for 65: no climate has 10,550 degF-days below -5 degF; said in the quote's degF.
+    EXPECT_EQ(error_of({{"annual_hdd", 10550}, {"unit", "degF"}, {"base", {{"value", -5}, {"unit", "degF"}}},
+                        {"design_temperature", {{"value", -14}, {"unit", "degF"}}}}),
+              "/climate/design_temperature: no climate has 10550 heating degree-days (degF day) to a base of -5 degF and a 99 % "
+              "design temperature of -14 degF; check the three values");
     EXPECT_EQ(error_of({{"monthly_hdd", {100, 100, 100, -4, 0, 0, 0, 0, 0, 10, 50, 90}}, {"unit", "degC"}}),
               "/climate/monthly_hdd/3: must be from 0 to a plausible monthly total, got -4");
 }

@@ -310,7 +310,16 @@ climate_info read_climate(const json& climate, std::vector<issue>& warnings) {
             throw input_error(path + "/annual_hdd", "must be a positive annual total of heating degree-days");
         if (!info.given_design_c)
             throw input_error(path + "/design_temperature", "is required with annual_hdd (the 99 % heating design temperature)");
-        info.model = climate_from_annual_hdd(*annual * k, info.base_c, *info.given_design_c, leap, range_k);
+        try {
+            info.model = climate_from_annual_hdd(*annual * k, info.base_c, *info.given_design_c, leap, range_k);
+        } catch (const input_error&) {
+            // said in the climate's own unit, with the base the degree-days are counted to
+            const auto in_unit = [&](double c) { return format_number(std::round(100 * convert(c, "degC", *unit)) / 100) + " " + *unit; };
+            throw input_error(path + "/design_temperature",
+                              "no climate has " + format_number(*annual) + " heating degree-days (" + *unit + " day) to a base of " +
+                                  in_unit(info.base_c) + " and a 99 % design temperature of " + in_unit(*info.given_design_c) +
+                                  "; check the three values");
+        }
     } else {
         throw input_error(path, "give monthly_mean (12 values), monthly_hdd (12 values), or annual_hdd with design_temperature");
     }
