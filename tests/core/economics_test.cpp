@@ -2,6 +2,7 @@
 // the C++ standard, hand-worked NPV and payback, break-even, and the Monte Carlo properties.
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <cstdlib>
 #include <filesystem>
 #include <fstream>
@@ -301,6 +302,10 @@ TEST(economics, sweep_and_tornado) {
     ASSERT_GE(inputs.size(), 3u);
     for (std::size_t i = 1; i < inputs.size(); ++i)
         EXPECT_GE(inputs[i - 1].at("swing").get<double>(), inputs[i].at("swing").get<double>());
+    // A price is named by its fuel (each fuel here is burned by one option), not by an option's id.
+    std::vector<std::string> names;
+    for (const auto& input : inputs) names.push_back(input.at("input").get<std::string>());
+    EXPECT_NE(std::find(names.begin(), names.end(), "the price of No. 2 heating oil"), names.end()) << tornado.dump();
 }
 
 json with_uncertainty(const json& u) {

@@ -85,6 +85,15 @@ TEST(plausibility, an_efficiency_below_any_appliance_in_use_is_questioned) {
     EXPECT_EQ(questions_of(gas_scenario({{"system", {{"efficiency", {{"value", 55}}}}}})), strings{});
 }
 
+TEST(plausibility, a_condensing_rating_on_a_non_condensing_type_is_questioned) {
+    // Non-condensing furnaces rate about 78-85 % AFUE, condensing ones 90 % and more (common practice).
+    EXPECT_EQ(questions_of(gas_scenario({{"system", {{"catalog", "gas-furnace-standard"}}}})),
+              strings{"/options/0/system/efficiency/value: AFUE 95 % is a condensing rating; a non-condensing furnace rates at most "
+                      "about 88 %: check the rating, or choose the condensing type"});
+    EXPECT_EQ(questions_of(gas_scenario({{"system", {{"catalog", "gas-furnace-condensing"}}}})), strings{});
+    EXPECT_EQ(questions_of(gas_scenario({{"system", {{"catalog", "gas-furnace-standard"}, {"efficiency", {{"value", 80}}}}}})), strings{});
+}
+
 TEST(plausibility, a_heat_pump_of_a_few_btu_per_hour_is_questioned_at_its_capacity) {
     const json heat_pump = {{"id", "hp"},
                             {"fuel", "electricity"},

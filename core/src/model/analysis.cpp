@@ -302,8 +302,11 @@ tornado_result tornado(const analysis_context& context, double step) {
     const auto& input = context.input;
     for (std::size_t i = 0; i < input.options.size(); ++i) {
         const auto& option = input.options[i];
+        // named by its fuel, and by the option where two options burn that fuel
+        const auto burning = std::count_if(input.options.begin(), input.options.end(),
+                                           [&](const scenario_option& other) { return other.fuel.id == option.fuel.id; });
         analysis_variable price{variable_kind::price, {i}, option.price_per_unit, input.settings.currency + "/" + option.price_unit,
-                                "the price of " + option.fuel.name + " (" + option.id + ")", option.id};
+                                "the price of " + option.fuel.name + (burning > 1 ? " for " + option.label : std::string()), option.id};
         if (price.current > 0) add(price);
         // Electric resistance is 100 % by definition: nothing to vary.
         if (option.efficiency_given && !input_has_bins(input, option) && option.system.kind != system_kind::electric_resistance) {

@@ -15,6 +15,9 @@ namespace {
 /// [%] Below this a furnace, boiler or stove burns more fuel than any in use (common practice: the
 /// oldest gravity furnaces and boilers still running rate about 50-60 % AFUE).
 constexpr double lowest_fuel_efficiency_pct = 50;
+/// [%] Above this a furnace or boiler condenses its flue gas (common practice: non-condensing appliances rate
+/// about 78-85 % AFUE, condensing ones 90 % and more; 88 leaves room for the best non-condensing boilers).
+constexpr double highest_non_condensing_pct = 88;
 /// [kW] The smallest and largest heat pumps sold for one house, at 47 degF (common practice: the
 /// smallest ductless heads are about 1.5 kW / 5,000 Btu/h; residential units stop at about 5 tons).
 constexpr double smallest_heat_pump_kw = 1.5;
@@ -47,6 +50,17 @@ std::string percent_text(double fraction) { return format_number(fraction * 100)
 void check_efficiency(const scenario_option& o, std::vector<issue>& out) {
     if (!o.efficiency_given || !burns_fuel(o.system.kind) || !is_percent_rating(o.system.rating)) return;
     const double v = o.system.efficiency_value;
+    // A non-condensing burner keeps its flue gas above the dew point, which caps it below condensing ratings.
+    if (o.system_catalog && o.system.rating != efficiency_rating::seasonal_ncv) {
+        const auto& record = find_system(*o.system_catalog);
+        if (record.variant == "non-condensing" && v > highest_non_condensing_pct) {
+            out.push_back({o.path + "/system/efficiency/value",
+                           std::string(rating_name(o.system.rating)) + " " + format_number(v) + " % is a condensing rating; a non-condensing " +
+                               std::string(o.system.kind == system_kind::boiler ? "boiler" : "furnace") + " rates at most about " +
+                               format_number(highest_non_condensing_pct) + " %: check the rating, or choose the condensing type"});
+            return;
+        }
+    }
     if (v >= lowest_fuel_efficiency_pct) return;
     const std::string text = std::string(rating_name(o.system.rating)) + " " + format_number(v) +
                        " % is below any furnace, boiler or stove in use (the oldest still running rate about 50-60 %)";
