@@ -117,11 +117,16 @@ export function addBill(ws) {
   ws.demand.bills.push({ start, end: '', unit, mean_temperature: { unit: temperature } });
 }
 
-/** Bills read from pasted lines ({start, end, quantity, unit?}), each in the unit it gives or the last bill's. */
+/**
+ * Bills read from pasted lines ({start, end, quantity, unit?}), each in the unit it gives, else the last bill's; the
+ * first ones pasted into an empty list without a unit take the first unit a later line names ("84" then "131 ccf").
+ */
 export function appendBills(ws, bills) {
+  const named = bills.find((bill) => bill.unit)?.unit;
   for (const bill of bills) {
     const { unit, temperature } = billUnits(ws);
-    ws.demand.bills.push({ start: bill.start, end: bill.end, quantity: bill.quantity, unit: bill.unit ?? unit, mean_temperature: { unit: temperature } });
+    const carried = ws.demand.bills.length ? unit : named ?? unit;
+    ws.demand.bills.push({ start: bill.start, end: bill.end, quantity: bill.quantity, unit: bill.unit ?? carried, mean_temperature: { unit: temperature } });
   }
 }
 

@@ -108,5 +108,9 @@ describe('web/editing.js', () => {
     assert.equal(ws.demand.bills[2].start, '');
     editing.appendBills(ws, [{ start: '2025-03-14', end: '2025-04-11', quantity: 80 }, { start: '2025-04-11', end: '2025-05-12', quantity: 41, unit: 'therm' }]);
     assert.deepEqual(ws.demand.bills.slice(3).map((b) => [b.quantity, b.unit]), [[80, 'ccf'], [41, 'therm']]);
+    // into an empty list, a first line without a unit takes the unit the next lines name, not the quote's therm
+    ws.demand.bills = [];
+    editing.appendBills(ws, [{ start: '2025-01-14', end: '2025-02-12', quantity: 120 }, { start: '2025-02-12', end: '2025-03-13', quantity: 98, unit: 'ccf' }]);
+    assert.deepEqual(ws.demand.bills.map((b) => b.unit), ['ccf', 'ccf']);
   });
 });
