@@ -19,6 +19,8 @@ export const WORKSPACE_VERSION = 1;
 const FUEL_FIELDS = ['fuel', 'price', 'fixed_charges', 'heating_value', 'wood_species', 'moisture_pct', 'bag_mass',
   'face_cord_fraction'];
 /** Option fields that belong to the system (kept in `systems`). */
+/** Settings the page edits and writes itself; any other travels on unchanged. */
+const SETTINGS_FIELDS = ['units', 'currency', 'gwp', 'electricity_co2e_kg_per_kwh', 'electricity', 'kept_services', 'elevation', 'gas_pressure_base'];
 const SYSTEM_FIELDS = ['id', 'label', 'system', 'existing', 'installed_cost', 'incentives', 'annual_maintenance',
   'life_years', 'equipment'];
 /** Text fields of the quote, printed on the sheet. */
@@ -676,8 +678,7 @@ export function fromScenario(doc) {
     ws.settings.gas_pressure_base_mode = 'given';
     ws.settings.gas_pressure_base_given = clone(settings.gas_pressure_base);
   }
-  const settingsKnown = ['units', 'currency', 'gwp', 'electricity_co2e_kg_per_kwh', 'electricity', 'kept_services', 'elevation', 'gas_pressure_base'];
-  const extra = Object.fromEntries(Object.entries(settings).filter(([key]) => !settingsKnown.includes(key)).map(([k, v]) => [k, clone(v)]));
+  const extra = Object.fromEntries(Object.entries(settings).filter(([key]) => !SETTINGS_FIELDS.includes(key)).map(([k, v]) => [k, clone(v)]));
   if (Object.keys(extra).length) ws.settings.extra = extra;
 
   const d = doc.demand ?? { method: 'direct' };

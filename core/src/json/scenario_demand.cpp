@@ -214,7 +214,7 @@ void read_observed_bins(const json& climate, const std::string& unit, bool leap,
                                           : "needs by_hour and by_month as the bins before it have them: give them on every bin or on none");
         if (timed) {
             for (const char* key : {"by_hour", "by_month"})
-                if (!list[i].contains(key)) throw input_error(item + "/" + key, "is required with " + std::string(key[3] == 'h' ? "by_month" : "by_hour"));
+                if (!list[i].contains(key)) throw input_error(item + "/" + key, std::string("is required with ") + (std::string(key) == "by_hour" ? "by_month" : "by_hour"));
             bin_times when;
             read_bin_sums(list[i], "by_hour", item, *hours, when.by_hour);
             read_bin_sums(list[i], "by_month", item, *hours, when.by_month);

@@ -321,13 +321,6 @@ given_heating_value read_given_heating_value(const json& hv, const std::string& 
 
 namespace {
 
-/// "16:15" for 16.25 h: hours as a clock shows them (minutes rounded).
-std::string clock_text(double hours) {
-    const long minutes = std::lround(hours * 60);
-    const long m = minutes % 60;
-    return std::to_string(minutes / 60) + (m < 10 ? ":0" : ":") + std::to_string(m);
-}
-
 /// One [from, to] pair of local hours, whole or half (16.5 is 16:30), into the period's half hours (to < from runs past midnight).
 void read_hour_span(const json& pair, const std::string& path, std::array<bool, 48>& half_hours) {
     if (!pair.is_array() || pair.size() != 2)

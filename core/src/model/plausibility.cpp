@@ -97,7 +97,7 @@ void check_price(const scenario_option& o, const std::string& currency, std::vec
 void check_fixed_charges(const scenario_option& o, const std::string& currency, std::vector<issue>& out) {
     const auto band = household_price_band(currency);
     if (!band) return;
-    const double limit = highest_fixed_charge_per_month * band->low_per_kwh / 0.003;  // ten times in crowns
+    const double limit = highest_fixed_charge_per_month * band->money_scale;
     for (const auto& charge : o.fixed_charges)
         if (charge.amount_per_year / 12 > limit)
             out.push_back({charge.path, format_number(round_to_significant(charge.amount_per_year / 12, 3)) + " " + currency +
@@ -150,7 +150,7 @@ std::optional<price_band> household_price_band(const std::string& currency) {
     const price_band dollar{0.003, 2.0};
     if (std::find(dollar_like.begin(), dollar_like.end(), currency) != dollar_like.end()) return dollar;
     if (std::find(krone_like.begin(), krone_like.end(), currency) != krone_like.end())
-        return price_band{dollar.low_per_kwh * 10, dollar.high_per_kwh * 10};
+        return price_band{dollar.low_per_kwh * 10, dollar.high_per_kwh * 10, 10};
     return std::nullopt;
 }
 

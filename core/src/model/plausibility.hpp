@@ -12,6 +12,7 @@ namespace fw {
 /// value (USD, CAD, EUR, GBP, CHF, AUD, NZD; SEK, NOK and DKK x 10); empty for other currencies.
 struct price_band {
     double low_per_kwh = 0, high_per_kwh = 0;
+    double money_scale = 1;  ///< [1] the currency's amounts against a dollar's (10 for crowns)
 };
 std::optional<price_band> household_price_band(const std::string& currency);
 

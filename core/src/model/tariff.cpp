@@ -1,5 +1,7 @@
 #include "model/tariff.hpp"
 
+#include <cmath>
+
 #include "base/error.hpp"
 #include "climate/climate.hpp"
 
@@ -45,11 +47,14 @@ std::optional<schedule_clash> schedule_coverage_problem(const price_schedule& sc
     return std::nullopt;
 }
 
+std::string clock_text(double hours, bool two_digit_hour) {
+    const long minutes = std::lround(hours * 60);
+    const long h = minutes / 60, m = minutes % 60;
+    return (two_digit_hour && h < 10 ? "0" : "") + std::to_string(h) + (m < 10 ? ":0" : ":") + std::to_string(m);
+}
+
 std::string clash_text(const schedule_clash& clash) {
-    const auto clock = [](int half_hour) {
-        const int h = half_hour / 2;
-        return (h < 10 ? "0" : "") + std::to_string(h) + (half_hour % 2 ? ":30" : ":00");
-    };
+    const auto clock = [](int half_hour) { return clock_text(half_hour / 2.0, true); };
     return std::string(clash.weekend ? "weekends " : "weekdays ") + clock(clash.half_hour) + "-" +
            clock(clash.half_hour + clash.half_hours > half_hours_per_day ? clash.half_hour + clash.half_hours - half_hours_per_day
                                                                          : clash.half_hour + clash.half_hours) +

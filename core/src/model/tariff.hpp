@@ -48,6 +48,9 @@ struct schedule_clash {
 /// exactly one period.
 std::optional<schedule_clash> schedule_coverage_problem(const price_schedule& schedule);
 
+/// "16:15" for 16.25 h (minutes rounded); `two_digit_hour` gives "06:00" for 6 h.
+std::string clock_text(double hours, bool two_digit_hour = false);
+
 /// "weekdays 14:00-16:30 in July" for messages.
 std::string clash_text(const schedule_clash& clash);
 
