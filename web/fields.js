@@ -31,16 +31,16 @@ function describedBy(input, path, hint) {
 }
 
 /**
- * A number field: {label, path, value, unit: {path, value, choices} | text, scale, hint, placeholder, currency}.
+ * A number field: {label, path, value, unit: {path, value, choices} | text, scale, hint, placeholder, currency, per}.
  * `scale` multiplies the stored value for display (100 shows a fraction as %); with `currency` it is a price,
- * read as a bill prints it ("$1.42/therm", parsePrice).
+ * read as a bill prints it ("$1.42/therm", parsePrice), per the unit menu beside it or `per` (a fixed unit).
  */
-export function numberField(ctx, { label, path, value, unit, scale = 1, hint, placeholder, className, currency }) {
+export function numberField(ctx, { label, path, value, unit, scale = 1, hint, placeholder, className, currency, per }) {
   const input = h('input', {
     id: idFor(path), type: 'text', inputmode: 'decimal', autocomplete: 'off', spellcheck: 'false',
     value: formatInput(typeof value === 'number' ? value * scale : value, ctx.locale),
     placeholder: placeholder ?? undefined,
-    dataset: { path, kind: 'number', ...(scale !== 1 ? { scale: String(scale) } : {}), ...(currency ? { currency } : {}) },
+    dataset: { path, kind: 'number', ...(scale !== 1 ? { scale: String(scale) } : {}), ...(currency ? { currency } : {}), ...(per ? { per } : {}) },
   });
   describedBy(input, path, hint);
   let control = input;
@@ -105,7 +105,7 @@ function readInput(input, locale) {
   const { kind, scale } = input.dataset;
   if (kind === 'number' && input.dataset.currency) {
     // a price: its currency sign and its unit as printed are read (the unit must be the menu's beside it)
-    const unit = input.closest('.with-unit')?.querySelector('select')?.value ?? '';
+    const unit = input.closest('.with-unit')?.querySelector('select')?.value ?? input.dataset.per ?? '';
     const price = parsePrice(input.value, locale, { currency: input.dataset.currency, unit });
     if (price.message) return { ok: false, message: price.message };
     return { ok: true, value: price.value ?? undefined };

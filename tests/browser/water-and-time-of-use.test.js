@@ -72,7 +72,7 @@ describe('Hot water and time-of-use electricity (Chromium, touch)', () => {
     await typeInto(id(`${base}/price/schedule/0/to`), '16');
     await tap('[data-action="add-period"]');
     await typeInto(id(`${base}/price/schedule/1/name`), 'peak');
-    await typeInto(id(`${base}/price/schedule/1/amount`), '0.34');
+    await typeInto(id(`${base}/price/schedule/1/amount`), '$0.34/kWh');
     await choose(id(`${base}/price/schedule/1/days`), 'weekdays');
     // times as a tariff sheet prints them
     await typeInto(id(`${base}/price/schedule/1/from`), '4 pm');
@@ -128,6 +128,7 @@ describe('Hot water and time-of-use electricity (Chromium, touch)', () => {
     const tariff = doc.options.find((o) => o.price?.schedule)?.price.schedule;
     assert.deepEqual(tariff.map((p) => [p.name, p.days ?? 'all', p.hours]),
       [['off-peak', 'all', [[21, 16]]], ['peak', 'weekdays', [[16, 21]]], ['off-peak', 'weekends', [[16, 21]]]]);
+    assert.equal(tariff[1].amount, 0.34, 'the peak price typed as "$0.34/kWh"');
     assert.equal(doc.options.find((o) => o.water_heater)?.water_heater.kind, 'heat-pump-water-heater');
     const { results, ...scenario } = doc;
     const answer = await cliEvaluate(scenario);

@@ -70,7 +70,7 @@ function fixedCharges(ctx, base, entry, currency) {
     return h('div', { class: 'row-card' },
       h('div', { class: 'grid charge' },
         textField(ctx, { label: 'Fixed charge', path: `${p}/label`, value: charge.label, placeholder: 'e.g. customer charge' }),
-        numberField(ctx, { label: 'Amount', path: amountPath, value: perYear ? charge.amount_per_year : charge.amount_per_month, unit: currency }),
+        numberField(ctx, { label: 'Amount', path: amountPath, value: perYear ? charge.amount_per_year : charge.amount_per_month, unit: currency, currency }),
         h('div', { class: 'field' }, h('label', { for: `period-${base.replaceAll('/', '-')}-${i}`, text: 'Per' }),
           h('select', { id: `period-${base.replaceAll('/', '-')}-${i}`, dataset: { action: 'charge-period', fuel: base, index: String(i) } },
             h('option', { value: 'month', text: 'month', selected: !perYear }), h('option', { value: 'year', text: 'year', selected: perYear })))),
@@ -174,7 +174,7 @@ function timeOfUseFields(ctx, base, entry, currency) {
     return h('div', { class: 'row-card period-row', dataset: { field: p } },
       h('div', { class: 'grid periods' },
         textField(ctx, { label: `Period ${k + 1}`, path: `${p}/name`, value: row.name, maxlength: 40, placeholder: 'peak' }),
-        numberField(ctx, { label: `Price (${currency})`, path: `${p}/amount`, value: row.amount, unit: 'per kWh' }),
+        numberField(ctx, { label: `Price (${currency})`, path: `${p}/amount`, value: row.amount, unit: 'per kWh', currency, per: 'kWh' }),
         selectField(ctx, { label: 'Days', path: `${p}/days`, value: row.days ?? 'all', choices: DAY_CHOICES }),
         clockField(ctx, { label: 'From', path: `${p}/from`, value: row.from, placeholder: '16:00' }),
         clockField(ctx, { label: 'To', path: `${p}/to`, value: row.to, placeholder: '21:00' }),
@@ -224,7 +224,7 @@ function equipmentElectricity(ctx, ws) {
     }
   } else {
     nodes.push(numberField(ctx, { label: `Electricity price for the equipment itself (${ws.settings.currency})`, path: '/settings/electricity/price/amount',
-      value: typed, unit: 'per kWh',
+      value: typed, unit: 'per kWh', currency: ws.settings.currency, per: 'kWh',
       hint: `${what} No system here runs on electricity, so give the house's price per kWh; without it that electricity is counted but not priced.` }));
   }
   return h('fieldset', { class: 'group', id: 'equipment-electricity' }, nodes);
